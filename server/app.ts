@@ -1,0 +1,76 @@
+import { existsSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { randomUUID } from 'node:crypto';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import { pinoHttp } from 'pino-http';
+import { RequestContext } from '@mikro-orm/core';
+import type { Env } from './env.ts';
+import type { Logger } from './logger.ts';
+import type { Orm } from './db/orm.ts';
+import { apiNotFound, errorHandler } from './middleware/error-handler.ts';
+import { healthRouter } from './features/health/health.router.ts';
+import { storefrontRouter } from './features/studios/storefront.router.ts';
+
+export type AppDeps = {
+  env: Env;
+  orm: Orm;
+  logger: Logger;
+  version: string;
+};
+
+/** Builds the Express app. It never listens: server/index.ts does, and tests use it directly. */
+export function createApp(deps: AppDeps): Express {
+  const { env, orm, logger } = deps;
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          // The built client has no inline script; styles come from our own bundle.
+          'script-src': ["'self'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'connect-src': ["'self'"],
+          'upgrade-insecure-requests': null,
+        },
+      },
+    }),
+  );
+  app.use(
+    pinoHttp({
+      logger,
+      genReqId: (req, res) => {
+        const incoming = req.headers['x-request-id'];
+        const id = typeof incoming === 'string' && /^[\w-]{1,64}$/.test(incoming) ? incoming : randomUUID();
+        res.setHeader('x-request-id', id);
+        return id;
+      },
+      // One short line per request: no headers (cookies, keys) in the log.
+      serializers: {
+        req: (req: { id: string; method: string; url: string }) => ({ id: req.id, method: req.method, url: req.url }),
+        res: (res: { statusCode: number }) => ({ status: res.statusCode }),
+      },
+      customLogLevel: (_req, res, error) => (error || res.statusCode >= 500 ? 'error' : 'info'),
+    }),
+  );
+  app.use('/api', express.json({ limit: env.JSON_BODY_LIMIT }));
+  // Each request gets its own identity map, so entities never leak between requests.
+  app.use((_req, _res, next) => RequestContext.create(orm.em, next));
+
+  app.use('/api/health', healthRouter({ orm, version: deps.version }));
+  app.use('/api/storefront', storefrontRouter({ orm }));
+  app.use('/api', apiNotFound);
+
+  const clientDir = resolve(env.CLIENT_DIST);
+  if (existsSync(resolve(clientDir, 'index.html'))) {
+    app.use(express.static(clientDir, { index: false, maxAge: '1h', immutable: false }));
+    // Client-side routes: every other GET gets the app shell, which shows its own not-found page.
+    app.get('/{*path}', (_req, res) => res.sendFile(resolve(clientDir, 'index.html')));
+  }
+
+  app.use(errorHandler);
+  return app;
+}

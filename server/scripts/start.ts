@@ -1,0 +1,50 @@
+import { log, run } from './stack/run.ts';
+import { onShutdown } from './stack/signals.ts';
+import { projectDir, startStack } from './stack/stack.ts';
+import { startAppProcess } from './stack/app-process.ts';
+import { demoStudios } from '../db/demo-scenario.ts';
+
+/**
+ * `npm start`: the whole product on the embedded defaults. Starts the local stack, builds the
+ * client, serves client and API from one process, and stops everything on Ctrl-C or SIGTERM.
+ */
+const stack = await startStack('dev');
+let stopApp: () => Promise<void> = async () => {};
+let shuttingDown = false;
+onShutdown(async () => {
+  shuttingDown = true;
+  await stopApp();
+  await stack.stop();
+  log('everything stopped');
+});
+
+try {
+  log('building the client…');
+  await run(process.execPath, ['node_modules/vite/bin/vite.js', 'build', '--logLevel', 'warn'], { cwd: projectDir });
+  const port = process.env.PORT ?? '3000';
+  const app = await startAppProcess({ ...stack.env, PORT: port, NODE_ENV: process.env.NODE_ENV ?? 'production' });
+  stopApp = app.stop;
+  app.child.on('exit', (code) => {
+    if (shuttingDown) return;
+    log(`the app process stopped (code ${code}); stopping the stack`);
+    void stack.stop().finally(() => process.exit(code ?? 1));
+  });
+  const url = `http://127.0.0.1:${app.port}`;
+  console.log(
+    [
+      '',
+      `  Etchwell is running at ${url}`,
+      '',
+      '  Demo studios (storefronts):',
+      ...demoStudios.map((s) => `    ${s.name.padEnd(26)} ${url}/s/${s.slug}`),
+      '',
+      '  Press Ctrl-C to stop everything.',
+      '',
+    ].join('\n'),
+  );
+} catch (error) {
+  log(`start failed: ${(error as Error).message}`);
+  await stopApp();
+  await stack.stop();
+  process.exit(1);
+}

@@ -1,0 +1,55 @@
+import { existsSync } from 'node:fs';
+import { log, run, runAttached } from './stack/run.ts';
+import { onShutdown } from './stack/signals.ts';
+import { projectDir, startStack } from './stack/stack.ts';
+
+/**
+ * `npm test`: typecheck, then the test stack (its own PostgreSQL cluster and ports, beside any
+ * running `npm start`), the client build the browser tests load, Debian's Chromium when missing,
+ * and vitest over the unit, integration and browser projects. Everything started is stopped,
+ * also after a failure; the exit code is the first failure's.
+ */
+const node = process.execPath;
+const bin = (name: string) => `node_modules/${name}`;
+
+async function ensureChromium(): Promise<void> {
+  if (existsSync('/usr/bin/chromium')) return;
+  log("Chromium not found: installing Debian's chromium package (about a minute)…");
+  await run('apt-get', ['update'], { quiet: true });
+  await run('apt-get', ['install', '-y', '--no-install-recommends', 'chromium'], {
+    quiet: true,
+    env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' },
+  });
+}
+
+log('typecheck: server, shared, client, browser tests');
+for (const project of ['tsconfig.json', 'shared', 'src', 'tests/browser']) {
+  const code = await runAttached(node, [bin('typescript/bin/tsc'), '-p', project], { cwd: projectDir });
+  if (code !== 0) {
+    log(`typecheck of ${project} failed`);
+    process.exit(code);
+  }
+}
+
+const stack = await startStack('test');
+onShutdown(() => stack.stop());
+
+let code = 1;
+try {
+  await Promise.all([
+    ensureChromium(),
+    (async () => {
+      log('building the client for the browser tests…');
+      await run(node, [bin('vite/bin/vite.js'), 'build', '--logLevel', 'warn'], { cwd: projectDir });
+    })(),
+  ]);
+  code = await runAttached(node, [bin('vitest/vitest.mjs'), 'run', '--reporter=verbose', ...process.argv.slice(2)], {
+    cwd: projectDir,
+    env: { ...process.env, ...stack.env, TEST_DATABASE_TEMPLATE_URL: stack.env.DATABASE_URL!, CHROMIUM_PATH: '/usr/bin/chromium' },
+  });
+} catch (error) {
+  log(`test run failed before the tests: ${(error as Error).message}`);
+} finally {
+  await stack.stop();
+}
+process.exit(code);

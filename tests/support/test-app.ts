@@ -1,0 +1,47 @@
+import { afterAll, beforeAll } from 'vitest';
+import type { Express } from 'express';
+import { createApp } from '../../server/app.ts';
+import { loadEnv, type Env } from '../../server/env.ts';
+import { createLogger } from '../../server/logger.ts';
+import { initOrm, type Orm } from '../../server/db/orm.ts';
+import { createTestDatabase } from './test-database.ts';
+
+export type TestApp = { app: Express; orm: Orm; env: Env; databaseUrl: string };
+
+/**
+ * Builds the app as the server does, on a database of its own. `databasePort` makes the app
+ * reach that database through another port (a test's proxy) instead of directly.
+ */
+export async function buildTestApp(
+  overrides: Record<string, string> = {},
+  { databasePort }: { databasePort?: number } = {},
+): Promise<TestApp & { close(): Promise<void> }> {
+  const database = await createTestDatabase();
+  const url = new URL(database.url);
+  if (databasePort) url.port = String(databasePort);
+  const env = loadEnv({ NODE_ENV: 'test', LOG_LEVEL: 'silent', DATABASE_URL: url.toString(), CLIENT_DIST: 'dist', ...overrides });
+  const orm = await initOrm(env.DATABASE_URL);
+  const app = createApp({ env, orm, logger: createLogger(env), version: 'test' });
+  return {
+    app,
+    orm,
+    env,
+    databaseUrl: database.url,
+    async close() {
+      await orm.close();
+      await database.drop();
+    },
+  };
+}
+
+/** For a test file: one app and database, built before its tests and dropped after them. */
+export function useTestApp(overrides: Record<string, string> = {}): TestApp {
+  const holder = {} as TestApp & { close(): Promise<void> };
+  beforeAll(async () => {
+    Object.assign(holder, await buildTestApp(overrides));
+  });
+  afterAll(async () => {
+    await holder.close?.();
+  });
+  return holder;
+}
