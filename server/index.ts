@@ -16,7 +16,6 @@ async function main(): Promise<void> {
     const address = server.address();
     const port = typeof address === 'object' && address ? address.port : env.PORT;
     logger.info({ port }, `Etchwell listening on http://${env.HOST}:${port}`);
-    process.send?.({ type: 'listening', port });
   });
 
   let closing = false;

@@ -9,6 +9,7 @@ import { demoStudios } from '../db/demo-scenario.ts';
  * client, serves client and API from one process, and stops everything on Ctrl-C or SIGTERM.
  */
 const stack = await startStack('dev');
+// Registered before anything else starts, so a Ctrl-C during the build still stops the database.
 let stopApp: () => Promise<void> = async () => {};
 let shuttingDown = false;
 onShutdown(async () => {
