@@ -5,6 +5,16 @@ import { z } from 'zod';
  * embedded stack listens on loopback only. A bad value stops the boot with a message that
  * names the variable, rather than failing later somewhere far from the cause.
  */
+const httpUrl = z.url({ protocol: /^https?$/, error: 'must be an http:// or https:// URL' });
+
+/** Keys of the local stand-ins. Public on purpose; refused when NODE_ENV=production. */
+export const LOCAL_SECRETS = {
+  S3_ACCESS_KEY_ID: 'etchwell-local',
+  S3_SECRET_ACCESS_KEY: 'etchwell-local-secret',
+  STRIPE_SECRET_KEY: 'sk_test_etchwell_local',
+  STRIPE_WEBHOOK_SECRET: 'whsec_etchwell_local',
+} as const;
+
 const envSchema = z.object({
   NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
   HOST: z.string().min(1).default('127.0.0.1'),
@@ -17,6 +27,33 @@ const envSchema = z.object({
   CLIENT_DIST: z.string().min(1).default('dist'),
   /** Largest JSON body the API accepts. */
   JSON_BODY_LIMIT: z.string().regex(/^\d+(b|kb|mb)$/, 'must look like 100kb or 1mb').default('100kb'),
+  /** The address people use to reach the app: links in e-mails, allowed origin for uploads. */
+  APP_URL: httpUrl.default('http://127.0.0.1:3000'),
+
+  // Object storage, S3 API. Defaults: the local stand-in started by `npm start`.
+  S3_ENDPOINT: httpUrl.default('http://127.0.0.1:54380'),
+  S3_REGION: z.string().min(1).default('us-east-1'),
+  S3_ACCESS_KEY_ID: z.string().min(1).default(LOCAL_SECRETS.S3_ACCESS_KEY_ID),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).default(LOCAL_SECRETS.S3_SECRET_ACCESS_KEY),
+  S3_BUCKET: z.string().regex(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, 'must be a valid bucket name').default('etchwell'),
+  S3_FORCE_PATH_STYLE: z.stringbool({ error: 'must be true or false' }).default(true),
+
+  // Payments API. STRIPE_API_URL is the local stand-in by default; https://api.stripe.com in production.
+  STRIPE_API_URL: httpUrl.default('http://127.0.0.1:54381'),
+  STRIPE_SECRET_KEY: z.string().regex(/^(sk|rk)_(test|live)_\w+$/, 'must be a secret key (sk_test_… or sk_live_…)').default(LOCAL_SECRETS.STRIPE_SECRET_KEY),
+  STRIPE_WEBHOOK_SECRET: z.string().regex(/^whsec_\w+$/, 'must start with whsec_').default(LOCAL_SECRETS.STRIPE_WEBHOOK_SECRET),
+
+  // E-mail over SMTP (smtp:// or smtps://, credentials in the URL).
+  SMTP_URL: z.url({ protocol: /^smtps?$/, error: 'must be an smtp:// or smtps:// URL' }).default('smtp://127.0.0.1:54325'),
+  MAIL_FROM: z.string().min(3).default('Etchwell <no-reply@etchwell.localhost>'),
+}).superRefine((env, ctx) => {
+  // The built-in keys are for the local stand-ins only: production must bring its own.
+  if (env.NODE_ENV !== 'production') return;
+  for (const [name, value] of Object.entries(LOCAL_SECRETS)) {
+    if (env[name as keyof typeof LOCAL_SECRETS] === value) {
+      ctx.addIssue({ code: 'custom', path: [name], message: `must be set in production (the default ${name} is for local development only)` });
+    }
+  }
 });
 
 export type Env = z.infer<typeof envSchema>;

@@ -9,7 +9,8 @@ import { startAppProcess, type AppProcess } from './stack/app-process.ts';
  * Vite's dev server with hot reload, which proxies /api to the API (see vite.config.ts).
  */
 const apiPort = process.env.API_PORT ?? '3001';
-const stack = await startStack('dev');
+// Pages are served by Vite: links in e-mails and the upload origin use its address.
+const stack = await startStack('dev', { appUrl: 'http://127.0.0.1:5173' });
 let api: AppProcess | undefined;
 let vite: ChildProcess | undefined;
 

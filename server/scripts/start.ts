@@ -8,7 +8,8 @@ import { demoStudios } from '../db/demo-scenario.ts';
  * `npm start`: the whole product on the embedded defaults. Starts the local stack, builds the
  * client, serves client and API from one process, and stops everything on Ctrl-C or SIGTERM.
  */
-const stack = await startStack('dev');
+const port = process.env.PORT ?? '3000';
+const stack = await startStack('dev', { appUrl: `http://127.0.0.1:${port}` });
 // Registered before anything else starts, so a Ctrl-C during the build still stops the database.
 let stopApp: () => Promise<void> = async () => {};
 let shuttingDown = false;
@@ -22,8 +23,7 @@ onShutdown(async () => {
 try {
   log('building the client…');
   await run(process.execPath, ['node_modules/vite/bin/vite.js', 'build', '--logLevel', 'warn'], { cwd: projectDir });
-  const port = process.env.PORT ?? '3000';
-  const app = await startAppProcess({ ...stack.env, PORT: port, NODE_ENV: process.env.NODE_ENV ?? 'production' });
+  const app = await startAppProcess({ ...stack.env, PORT: port, NODE_ENV: process.env.NODE_ENV ?? 'development' });
   stopApp = app.stop;
   app.child.on('exit', (code) => {
     if (shuttingDown) return;
@@ -35,6 +35,9 @@ try {
     [
       '',
       `  Etchwell is running at ${url}`,
+      '',
+      '  Local services:',
+      ...stack.services.map((s) => `    ${s}`),
       '',
       '  Demo studios (storefronts):',
       ...demoStudios.map((s) => `    ${s.name.padEnd(26)} ${url}/s/${s.slug}`),

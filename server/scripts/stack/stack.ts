@@ -2,8 +2,11 @@ import { resolve } from 'node:path';
 import { ensureDatabase, withDatabaseName } from '../../db/database-admin.ts';
 import { initOrm, migrate } from '../../db/orm.ts';
 import { seedDemo } from '../../db/seed.ts';
+import { loadEnv } from '../../env.ts';
+import { createStorage } from '../../adapters/storage.ts';
 import { log } from './run.ts';
 import { startPostgres } from './postgres.ts';
+import { startFake, type FakeName } from './fakes.ts';
 
 /**
  * The local stack: every service the app needs, started in order and stopped in reverse.
@@ -16,17 +19,21 @@ export type StackMode = 'dev' | 'test';
 export type Stack = {
   /** Environment for the app and the tests: connection URLs and keys of the running services. */
   env: Record<string, string>;
+  /** One line per running service, for the start banner. */
+  services: string[];
   stop(): Promise<void>;
 };
 
 const PORTS = {
-  dev: { postgres: 54329 },
-  test: { postgres: 54339 },
+  dev: { postgres: 54329, storage: 54380, payments: 54381, mailInbox: 54382, smtp: 54325 },
+  test: { postgres: 54339, storage: 54390, payments: 54391, mailInbox: 54392, smtp: 54335 },
 } as const;
+
+const FAKES: FakeName[] = ['storage', 'payments', 'mail'];
 
 export const projectDir = resolve(import.meta.dirname, '../../..');
 
-export async function startStack(mode: StackMode): Promise<Stack> {
+export async function startStack(mode: StackMode, { appUrl = 'http://127.0.0.1:3000' } = {}): Promise<Stack> {
   const stops: Array<{ name: string; stop: () => Promise<void> }> = [];
   let stopping: Promise<void> | undefined;
   // Idempotent: a signal and a crashed child may both ask to stop at once.
@@ -45,7 +52,34 @@ export async function startStack(mode: StackMode): Promise<Stack> {
     stops.push({ name: 'postgres', stop: postgres.stop });
     const databaseUrl = postgres.url(mode === 'dev' ? 'etchwell' : 'etchwell_test_template');
     await prepareDatabase(databaseUrl, { seed: mode === 'dev' });
-    return { env: { DATABASE_URL: databaseUrl }, stop };
+
+    const ports = PORTS[mode];
+    const stackEnv: Record<string, string> = {
+      DATABASE_URL: databaseUrl,
+      APP_URL: appUrl,
+      S3_ENDPOINT: `http://127.0.0.1:${ports.storage}`,
+      STRIPE_API_URL: `http://127.0.0.1:${ports.payments}`,
+      SMTP_URL: `smtp://127.0.0.1:${ports.smtp}`,
+    };
+    // Keys come from the environment as the app reads it, so both sides always agree.
+    const env = loadEnv({ ...process.env, ...stackEnv });
+    const services = [`PostgreSQL              127.0.0.1:${postgres.port}`];
+    for (const name of FAKES) {
+      const fake = await startFake(name, env, {
+        dataDir: resolve(projectDir, '.data', `fakes-${mode}`),
+        mailInboxPort: ports.mailInbox,
+        webhookUrl: mode === 'dev' ? `${appUrl}/api/payments/webhook` : undefined,
+        // Test runs keep the fakes' request lines out of the test report.
+        logFile: mode === 'test' ? resolve(projectDir, '.data', 'fakes-test.log') : undefined,
+      });
+      stops.push({ name: fake.name, stop: fake.stop });
+      services.push(fake.describe);
+    }
+    // Browsers upload straight to the store: allow the app's origin (any loopback port in tests).
+    const origins = mode === 'dev' ? [appUrl, 'http://127.0.0.1:5173'] : ['http://127.0.0.1:*', 'http://localhost:*'];
+    await createStorage(env).ensureBucket(origins);
+    log(`fakes up: ${FAKES.join(', ')}; bucket ${env.S3_BUCKET} ready`);
+    return { env: stackEnv, services, stop };
   } catch (error) {
     await stop();
     throw error;

@@ -1,0 +1,20 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+
+/** A temporary folder for one fake's data, removed by the returned function. */
+export function temporaryDataDir(name: string): { dir: string; remove(): void } {
+  const dir = mkdtempSync(join(tmpdir(), `etchwell-${name}-`));
+  return { dir, remove: () => rmSync(dir, { recursive: true, force: true }) };
+}
+
+/** Polls until `check` returns a value (not undefined), or fails after `timeoutMs`. */
+export async function eventually<T>(check: () => T | undefined | Promise<T | undefined>, timeoutMs = 5000): Promise<T> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const value = await check();
+    if (value !== undefined) return value;
+    if (Date.now() > deadline) throw new Error(`condition not met within ${timeoutMs} ms`);
+    await new Promise((resolve) => setTimeout(resolve, 25));
+  }
+}
