@@ -15,7 +15,7 @@ const STYLE = `
   button{background:none;border:1px solid #f3f1ec;color:inherit;border-radius:6px;padding:4px 10px;cursor:pointer}`;
 
 const frame = (title: string, body: string) =>
-  `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width,initial-scale=1"><title>${escapeHtml(title)}</title><style>${STYLE}</style></head>
+  `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width,initial-scale=1"><title>${escapeHtml(title)}</title><link rel="icon" href="data:,"><style>${STYLE}</style></head>
 <body><header><strong><a href="/">Local mail inbox</a></strong><form method="post" action="/clear"><button type="submit">Empty the inbox</button></form></header><main>${body}</main></body></html>`;
 
 export function inboxPage(messages: StoredMessage[], to?: string): string {
@@ -29,12 +29,18 @@ export function inboxPage(messages: StoredMessage[], to?: string): string {
   return frame('Inbox', `<table><thead><tr><th>Received</th><th>To</th><th>Subject</th><th>From</th></tr></thead><tbody>${rows}</tbody></table>`);
 }
 
+/** Links in the message open in the whole window, not inside the frame. */
+function withTopTarget(html: string): string {
+  const base = '<base target="_top">';
+  return /<head[^>]*>/i.test(html) ? html.replace(/<head[^>]*>/i, (head) => head + base) : base + html;
+}
+
 export function messagePage(message: StoredMessage, view: 'html' | 'text'): string {
   const links = message.links.map((l) => `<li><a href="${escapeHtml(l)}">${escapeHtml(l)}</a></li>`).join('');
   const body =
     view === 'html' && message.html
       ? // The message's own HTML runs in a sandbox: links open in the top window, no scripts run.
-        `<iframe title="Message" sandbox="allow-popups allow-top-navigation-by-user-activation" srcdoc="${escapeHtml(message.html.replace(/<head>/i, '<head><base target="_top">'))}"></iframe>`
+        `<iframe title="Message" sandbox="allow-popups allow-top-navigation-by-user-activation" srcdoc="${escapeHtml(withTopTarget(message.html))}"></iframe>`
       : `<pre>${escapeHtml(message.text)}</pre>`;
   return frame(
     message.subject,

@@ -46,7 +46,7 @@ export function payPage(input: { session: CheckoutSession; items: LineItem[]; me
     </form>
     ${session.cancel_url ? `<p class="note"><a href="${escapeHtml(session.cancel_url)}">Cancel and return to the shop</a></p>` : ''}`;
   return `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width,initial-scale=1">
-<title>Pay ${escapeHtml(input.merchant)}</title><style>${STYLE}</style></head><body><main>
+<title>Pay ${escapeHtml(input.merchant)}</title><link rel="icon" href="data:,"><style>${STYLE}</style></head><body><main>
 <section class="summary"><span class="badge">TEST MODE</span><h1>${escapeHtml(input.merchant)}</h1>
 <div class="total">${money(session.amount_total, session.currency)}</div><table>${rows}</table>
 <p class="note">Local payments stand-in: no money moves. Test cards: 4242 4242 4242 4242 pays; 4000 0000 0000 0002 is declined; 4000 0000 0000 9995 is declined for insufficient funds.</p></section>

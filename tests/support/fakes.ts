@@ -18,3 +18,9 @@ export async function eventually<T>(check: () => T | undefined | Promise<T | und
     await new Promise((resolve) => setTimeout(resolve, 25));
   }
 }
+
+/**
+ * After a fake stops, lets this process's HTTP client notice its pooled connections were closed,
+ * so the next request opens a new one instead of writing to a dead socket.
+ */
+export const settle = () => new Promise((resolve) => setTimeout(resolve, 50));

@@ -4,7 +4,7 @@ import { DeleteObjectCommand, GetObjectCommand, ListObjectsV2Command, S3ServiceE
 import { startStorageFake, type StorageFake } from '../../../fakes/storage/server.ts';
 import { createStorage } from '../../../server/adapters/storage.ts';
 import { loadEnv } from '../../../server/env.ts';
-import { temporaryDataDir } from '../../support/fakes.ts';
+import { settle, temporaryDataDir } from '../../support/fakes.ts';
 
 // Behaviour follows the Amazon S3 API Reference (PutObject, GetObject, HeadObject, DeleteObject,
 // ListObjectsV2, PutBucketCors, "Error responses") and the S3 User Guide ("Sharing objects with
@@ -144,6 +144,7 @@ describe('object storage stand-in, through the AWS SDK', () => {
     await storageWith().put('durable/key', Buffer.from('still here'), 'text/plain');
     const port = fake.port;
     await fake.stop();
+    await settle();
     fake = await start(port);
     expect(Buffer.from((await storageWith().get('durable/key')).body).toString()).toBe('still here');
   });
