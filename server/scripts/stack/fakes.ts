@@ -33,7 +33,7 @@ export async function startFake(
         credentials: { [env.S3_ACCESS_KEY_ID]: env.S3_SECRET_ACCESS_KEY },
         log,
       });
-      return { name, describe: `object storage (S3 API)  ${fake.url}`, stop: fake.stop };
+      return { name, describe: `object storage (S3 API) ${fake.url}`, stop: fake.stop };
     }
     case 'payments': {
       const fake = await startPaymentsFake({
