@@ -9,15 +9,30 @@ import type { Env } from './env.ts';
 import type { Logger } from './logger.ts';
 import type { Orm } from './db/orm.ts';
 import { apiNotFound, errorHandler } from './middleware/error-handler.ts';
+import type { Auth } from './auth/auth.ts';
+import type { Mailer } from './adapters/mailer.ts';
+import { workspaceRouter, type WorkspaceRoute } from './middleware/workspace-routes.ts';
 import { healthRouter } from './features/health/health.router.ts';
 import { storefrontRouter } from './features/studios/storefront.router.ts';
+import { studioRoutes } from './features/studios/studio.routes.ts';
+import { accountsRouter } from './features/accounts/accounts.router.ts';
+import { teamRoutes } from './features/team/team.routes.ts';
+import { invitesRouter } from './features/team/invites.router.ts';
+import { platformRouter } from './features/platform/platform.router.ts';
 
 export type AppDeps = {
   env: Env;
   orm: Orm;
   logger: Logger;
   version: string;
+  auth: Auth;
+  mailer: Mailer;
 };
+
+/** Every route under /api/studios/:studioSlug, from every feature. The isolation tests walk this list. */
+export function workspaceRoutes(deps: AppDeps): WorkspaceRoute[] {
+  return [...studioRoutes(), ...teamRoutes(deps)];
+}
 
 /** Builds the Express app. It never listens: server/index.ts does, and tests use it directly. */
 export function createApp(deps: AppDeps): Express {
@@ -61,7 +76,12 @@ export function createApp(deps: AppDeps): Express {
   app.use((_req, _res, next) => RequestContext.create(orm.em, next));
 
   app.use('/api/health', healthRouter({ orm, version: deps.version }));
+  app.use('/api/auth', deps.auth.router);
   app.use('/api/storefront', storefrontRouter({ orm }));
+  app.use('/api', accountsRouter(deps));
+  app.use('/api/invites', invitesRouter(deps));
+  app.use('/api/platform', platformRouter(deps));
+  app.use('/api/studios/:studioSlug', workspaceRouter({ auth: deps.auth, orm, routes: workspaceRoutes(deps) }));
   app.use('/api', apiNotFound);
 
   const clientDir = resolve(env.CLIENT_DIST);

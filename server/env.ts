@@ -13,6 +13,7 @@ export const LOCAL_SECRETS = {
   S3_SECRET_ACCESS_KEY: 'etchwell-local-secret',
   STRIPE_SECRET_KEY: 'sk_test_etchwell_local',
   STRIPE_WEBHOOK_SECRET: 'whsec_etchwell_local',
+  AUTH_SECRET: 'etchwell-local-auth-secret-not-for-production',
 } as const;
 
 const envSchema = z.object({
@@ -29,6 +30,9 @@ const envSchema = z.object({
   JSON_BODY_LIMIT: z.string().regex(/^\d+(b|kb|mb)$/, 'must look like 100kb or 1mb').default('100kb'),
   /** The address people use to reach the app: links in e-mails, allowed origin for uploads. */
   APP_URL: httpUrl.default('http://127.0.0.1:3000'),
+
+  /** Signs and encrypts session cookies. 32+ random characters in production. */
+  AUTH_SECRET: z.string().min(32, 'must be at least 32 characters').default(LOCAL_SECRETS.AUTH_SECRET),
 
   // Object storage, S3 API. Defaults: the local stand-in started by `npm start`.
   S3_ENDPOINT: httpUrl.default('http://127.0.0.1:54380'),

@@ -4,13 +4,17 @@ import { EnvError, loadEnv } from './env.ts';
 import { createLogger } from './logger.ts';
 import { initOrm } from './db/orm.ts';
 import { appVersion } from './version.ts';
+import { createMailer } from './adapters/mailer.ts';
+import { createAuth } from './auth/auth.ts';
 
 /** The only place that listens. Started by the stack scripts, the Docker image and `npm run dev`. */
 async function main(): Promise<void> {
   const env = loadEnv();
   const logger = createLogger(env);
   const orm = await initOrm(env.DATABASE_URL);
-  const app = createApp({ env, orm, logger, version: appVersion });
+  const mailer = createMailer(env);
+  const auth = createAuth({ orm, env, mailer });
+  const app = createApp({ env, orm, logger, version: appVersion, auth, mailer });
   const server = createServer(app);
   server.listen(env.PORT, env.HOST, () => {
     const address = server.address();
@@ -23,7 +27,7 @@ async function main(): Promise<void> {
     if (closing) return;
     closing = true;
     logger.info({ signal }, 'shutting down');
-    server.close(() => void orm.close().then(() => process.exit(0)));
+    server.close(() => void Promise.all([orm.close(), auth.close()]).then(() => process.exit(0)));
     server.closeIdleConnections();
     // Keep-alive connections from browsers must not hold the shutdown for long.
     setTimeout(() => process.exit(0), 3000).unref();

@@ -1,4 +1,8 @@
 import { Studio } from '../features/studios/studio.entity.ts';
+import { User } from '../features/accounts/user.entity.ts';
+import { Membership } from '../features/team/membership.entity.ts';
+import { Invite } from '../features/team/invite.entity.ts';
+import { VerificationToken } from '../auth/verification-token.entity.ts';
 
 /** Every entity the ORM knows, listed by hand: discovery by folder scan needs compiled files. */
-export const entities = [Studio];
+export const entities = [Studio, User, Membership, Invite, VerificationToken];

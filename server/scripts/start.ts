@@ -2,7 +2,7 @@ import { log, run } from './stack/run.ts';
 import { onShutdown } from './stack/signals.ts';
 import { projectDir, startStack } from './stack/stack.ts';
 import { startAppProcess } from './stack/app-process.ts';
-import { demoStudios } from '../db/demo-scenario.ts';
+import { DEMO_PASSWORD, demoPeople, demoStudios } from '../db/demo-scenario.ts';
 
 /**
  * `npm start`: the whole product on the embedded defaults. Starts the local stack, builds the
@@ -41,6 +41,14 @@ try {
       '',
       '  Demo studios (storefronts):',
       ...demoStudios.map((s) => `    ${s.name.padEnd(26)} ${url}/s/${s.slug}`),
+      '',
+      `  Demo sign-ins (${url}/sign-in), password ${DEMO_PASSWORD}:`,
+      ...demoPeople
+        .filter((p) => p.password)
+        .map((p) => `    ${p.email.padEnd(28)} ${p.platformAdmin ? 'platform admin' : p.memberships.map((m) => `${m.role} of ${m.studio}`).join(', ')}`),
+      ...demoPeople
+        .filter((p) => !p.password)
+        .map((p) => `    ${p.email.padEnd(28)} buyer: sign in by e-mailed link, read it in the mail inbox`),
       '',
       '  Press Ctrl-C to stop everything.',
       '',

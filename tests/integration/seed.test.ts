@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { seedDemo } from '../../server/db/seed.ts';
-import { demoStudios } from '../../server/db/demo-scenario.ts';
+import { demoPeople, demoStudios } from '../../server/db/demo-scenario.ts';
 import { Studio } from '../../server/features/studios/studio.entity.ts';
 import { useTestApp } from '../support/test-app.ts';
 
@@ -8,7 +8,8 @@ describe('demo scenario seed', () => {
   const t = useTestApp();
 
   it('adds the demo studios on an empty database', async () => {
-    expect(await seedDemo(t.orm.em.fork())).toBe(demoStudios.length);
+    const memberships = demoPeople.reduce((n, p) => n + p.memberships.length, 0);
+    expect(await seedDemo(t.orm.em.fork())).toBe(demoStudios.length + demoPeople.length + memberships);
     const slugs = (await t.orm.em.fork().find(Studio, {}, { orderBy: { slug: 'asc' } })).map((s) => s.slug);
     expect(slugs).toEqual(demoStudios.map((s) => s.slug).sort());
   });

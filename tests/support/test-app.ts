@@ -5,8 +5,10 @@ import { loadEnv, type Env } from '../../server/env.ts';
 import { createLogger } from '../../server/logger.ts';
 import { initOrm, type Orm } from '../../server/db/orm.ts';
 import { createTestDatabase } from './test-database.ts';
+import { createMailer, type Mailer } from '../../server/adapters/mailer.ts';
+import { createAuth, type Auth } from '../../server/auth/auth.ts';
 
-export type TestApp = { app: Express; orm: Orm; env: Env; databaseUrl: string };
+export type TestApp = { app: Express; orm: Orm; env: Env; databaseUrl: string; auth: Auth; mailer: Mailer };
 
 /**
  * Builds the app as the server does, on a database of its own. `databasePort` makes the app
@@ -21,13 +23,19 @@ export async function buildTestApp(
   if (databasePort) url.port = String(databasePort);
   const env = loadEnv({ NODE_ENV: 'test', LOG_LEVEL: 'silent', DATABASE_URL: url.toString(), CLIENT_DIST: 'dist', ...overrides });
   const orm = await initOrm(env.DATABASE_URL);
-  const app = createApp({ env, orm, logger: createLogger(env), version: 'test' });
+  const mailer = createMailer(env);
+  const auth = createAuth({ orm, env, mailer });
+  const app = createApp({ env, orm, logger: createLogger(env), version: 'test', auth, mailer });
   return {
     app,
     orm,
     env,
+    auth,
+    mailer,
     databaseUrl: database.url,
     async close() {
+      mailer.close();
+      await auth.close();
       await orm.close();
       await database.drop();
     },

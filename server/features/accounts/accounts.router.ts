@@ -1,0 +1,44 @@
+import { Router } from 'express';
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { openStudioInputSchema } from '../../../shared/schemas/accounts.ts';
+import type { Env } from '../../env.ts';
+import type { Orm } from '../../db/orm.ts';
+import type { Auth } from '../../auth/auth.ts';
+import type { Mailer } from '../../adapters/mailer.ts';
+import { optionalUser, requireUser } from '../../middleware/auth-guards.ts';
+import { checkSlug, confirmEmail, describeMe, openStudio, signOutEverywhere } from './accounts.service.ts';
+import { verifyEmailMail } from './accounts-mail.ts';
+
+/** Opening a studio, e-mail confirmation, and the signed-in person (`/api/accounts`, `/api/me`). */
+export function accountsRouter({ orm, env, auth, mailer }: { orm: Orm; env: Env; auth: Auth; mailer: Mailer }): Router {
+  const router = Router();
+  const em = () => orm.em as EntityManager;
+
+  router.get('/accounts/slug-availability', async (req, res) => {
+    res.json(await checkSlug(em(), String(req.query.slug ?? '')));
+  });
+
+  router.post('/accounts/studios', async (req, res) => {
+    const input = openStudioInputSchema.parse(req.body);
+    const { studio, user, verifyToken } = await openStudio(em(), input);
+    const url = `${env.APP_URL}/api/accounts/verify-email?token=${verifyToken}`;
+    await mailer.send({ to: user.email, ...verifyEmailMail({ name: user.name ?? '', studioName: studio.name, url }) });
+    res.status(201).json({ studioSlug: studio.slug });
+  });
+
+  router.get('/accounts/verify-email', async (req, res) => {
+    const ok = await confirmEmail(em(), String(req.query.token ?? ''));
+    res.redirect(303, ok ? '/sign-in?verified=1' : '/sign-in?verified=0');
+  });
+
+  router.get('/me', optionalUser(auth), async (req, res) => {
+    res.json(await describeMe(em(), req.user));
+  });
+
+  router.post('/me/sign-out-everywhere', requireUser(auth), async (req, res) => {
+    await signOutEverywhere(em(), req.user!);
+    res.status(204).end();
+  });
+
+  return router;
+}

@@ -1,0 +1,20 @@
+import { Router } from 'express';
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { acceptWithAccountInputSchema } from '../../../shared/schemas/team.ts';
+import type { Orm } from '../../db/orm.ts';
+import type { Auth } from '../../auth/auth.ts';
+import { requireUser } from '../../middleware/auth-guards.ts';
+import { acceptInvite, acceptInviteWithNewAccount, previewInvite } from './team.service.ts';
+
+/** The invitee's side, by the token in the e-mailed link (`/api/invites/:token`). */
+export function invitesRouter({ orm, auth }: { orm: Orm; auth: Auth }): Router {
+  const router = Router();
+  const em = () => orm.em as EntityManager;
+  router.get('/:token', async (req, res) => void res.json(await previewInvite(em(), String(req.params.token))));
+  router.post('/:token/accept', requireUser(auth), async (req, res) => void res.json(await acceptInvite(em(), String(req.params.token), req.user!)));
+  router.post('/:token/accept-with-account', async (req, res) => {
+    const input = acceptWithAccountInputSchema.parse(req.body);
+    res.status(201).json(await acceptInviteWithNewAccount(em(), String(req.params.token), input));
+  });
+  return router;
+}

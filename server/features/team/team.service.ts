@@ -1,0 +1,154 @@
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { AppError } from '../../../shared/errors.ts';
+import type { Role } from '../../../shared/permissions.ts';
+import type { CreateInviteInput, InvitePreview, Team } from '../../../shared/schemas/team.ts';
+import { withoutTenantFilter } from '../../db/tenant.ts';
+import { hashPassword } from '../../auth/password.ts';
+import { hashToken, isUuid, maskEmail, newLinkToken } from '../../lib/tokens.ts';
+import { User } from '../accounts/user.entity.ts';
+import type { Studio } from '../studios/studio.entity.ts';
+import { Invite } from './invite.entity.ts';
+import { Membership } from './membership.entity.ts';
+
+export const INVITE_VALID_DAYS = 7;
+
+/** Members and open invites of the studio in context (the tenant filter scopes both). */
+export async function findTeam(em: EntityManager, studio: Studio): Promise<Team> {
+  const members = await em.find(Membership, { studio }, { populate: ['user'], orderBy: { role: 'asc', createdAt: 'asc' } });
+  const invites = await em.find(Invite, { studio, usedAt: null, revokedAt: null, expiresAt: { $gt: new Date() } }, { orderBy: { createdAt: 'desc' } });
+  return {
+    members: members.map((m) => ({ id: m.id, userId: m.user.id, email: m.user.email, name: m.user.name, role: m.role, joinedAt: m.createdAt.toISOString() })),
+    invites: invites.map((i) => ({ id: i.id, email: i.email, role: i.role, expiresAt: i.expiresAt.toISOString(), createdAt: i.createdAt.toISOString() })),
+  };
+}
+
+export async function createInvite(em: EntityManager, studio: Studio, invitedBy: User, input: CreateInviteInput): Promise<{ invite: Invite; token: string }> {
+  const existing = await em.findOne(Membership, { studio, user: { email: input.email } });
+  if (existing) {
+    const message = 'This person is already a member of the studio.';
+    throw new AppError('CONFLICT', message, { issues: [{ path: ['email'], message }] });
+  }
+  const { token, hash } = newLinkToken();
+  // A new invite to the same address replaces the open one, so only the newest link works.
+  await em.nativeUpdate(Invite, { studio, email: input.email, usedAt: null, revokedAt: null }, { revokedAt: new Date() });
+  const invite = em.create(Invite, {
+    studio,
+    email: input.email,
+    role: input.role,
+    tokenHash: hash,
+    expiresAt: new Date(Date.now() + INVITE_VALID_DAYS * 86_400_000),
+    invitedBy,
+  });
+  await em.flush();
+  return { invite, token };
+}
+
+export async function revokeInvite(em: EntityManager, studio: Studio, inviteId: string): Promise<void> {
+  const invite = isUuid(inviteId) ? await em.findOne(Invite, { id: inviteId, studio }) : null;
+  if (!invite) throw new AppError('NOT_FOUND', 'There is no such invite.');
+  invite.revokedAt ??= new Date();
+  await em.flush();
+}
+
+async function findMember(em: EntityManager, studio: Studio, memberId: string): Promise<Membership> {
+  const member = isUuid(memberId) ? await em.findOne(Membership, { id: memberId, studio }, { populate: ['user'] }) : null;
+  if (!member) throw new AppError('NOT_FOUND', 'There is no such member.');
+  return member;
+}
+
+/** A studio always keeps at least one owner. Checked under a row lock on the studio's owners. */
+async function ensureAnotherOwner(em: EntityManager, studio: Studio, leaving: Membership): Promise<void> {
+  if (leaving.role !== 'owner') return;
+  const owners = await em.getConnection().execute<Array<{ id: string }>>(
+    "select id from membership where studio_id = ? and role = 'owner' for update",
+    [studio.id],
+  );
+  if (owners.length <= 1) throw new AppError('CONFLICT', 'A studio needs at least one owner. Make another member an owner first.');
+}
+
+export async function changeRole(em: EntityManager, studio: Studio, memberId: string, role: Role): Promise<void> {
+  await em.transactional(async (tx) => {
+    const member = await findMember(tx, studio, memberId);
+    if (member.role === role) return;
+    await ensureAnotherOwner(tx, studio, member);
+    member.role = role;
+  });
+}
+
+export async function removeMember(em: EntityManager, studio: Studio, memberId: string): Promise<void> {
+  await em.transactional(async (tx) => {
+    const member = await findMember(tx, studio, memberId);
+    await ensureAnotherOwner(tx, studio, member);
+    tx.remove(member);
+  });
+}
+
+// ---- the invitee's side: by token, before any studio context exists ---------------------------
+
+async function findInviteByToken(em: EntityManager, token: string): Promise<Invite> {
+  const invite = /^[\w-]{20,100}$/.test(token) ? await em.findOne(Invite, { tokenHash: hashToken(token) }, { ...withoutTenantFilter, populate: ['studio'] }) : null;
+  if (!invite) throw new AppError('NOT_FOUND', 'This invitation link is not valid. Ask the studio for a new one.');
+  return invite;
+}
+
+function inviteStatus(invite: Invite): InvitePreview['status'] {
+  if (invite.usedAt) return 'used';
+  if (invite.revokedAt) return 'revoked';
+  if (invite.expiresAt <= new Date()) return 'expired';
+  return 'open';
+}
+
+export async function previewInvite(em: EntityManager, token: string): Promise<InvitePreview> {
+  const invite = await findInviteByToken(em, token);
+  return {
+    studioName: invite.studio.name,
+    studioSlug: invite.studio.slug,
+    email: invite.email,
+    role: invite.role,
+    status: inviteStatus(invite),
+    hasAccount: (await em.count(User, { email: invite.email })) > 0,
+  };
+}
+
+const unusable: Record<Exclude<InvitePreview['status'], 'open'>, string> = {
+  used: 'This invitation has already been used.',
+  revoked: 'This invitation was withdrawn. Ask the studio for a new one.',
+  expired: 'This invitation has expired. Ask the studio for a new one.',
+};
+
+/**
+ * Joins the studio with the invite's role. The invite is marked used by a conditional update, so
+ * two clicks at once cannot both succeed.
+ */
+export async function acceptInvite(em: EntityManager, token: string, user: User): Promise<{ studioSlug: string }> {
+  const invite = await findInviteByToken(em, token);
+  const status = inviteStatus(invite);
+  if (status !== 'open') throw new AppError('CONFLICT', unusable[status]);
+  if (invite.email !== user.email) {
+    throw new AppError('FORBIDDEN', `This invitation was sent to ${maskEmail(invite.email)}. Sign in with that address to accept it.`);
+  }
+  await em.transactional(async (tx) => {
+    const taken = await tx.nativeUpdate(Invite, { id: invite.id, usedAt: null, revokedAt: null }, { usedAt: new Date() }, withoutTenantFilter);
+    if (taken !== 1) throw new AppError('CONFLICT', unusable.used);
+    const member = await tx.findOne(Membership, { studio: invite.studio, user }, withoutTenantFilter);
+    if (!member) tx.create(Membership, { studio: invite.studio, user, role: invite.role });
+    // Following the link proves the address.
+    const fresh = await tx.findOneOrFail(User, { id: user.id });
+    fresh.emailVerifiedAt ??= new Date();
+  });
+  return { studioSlug: invite.studio.slug };
+}
+
+/** For an invitee without an account: creates it (with a password) and accepts. */
+export async function acceptInviteWithNewAccount(em: EntityManager, token: string, input: { name: string; password: string }): Promise<{ studioSlug: string; email: string }> {
+  const invite = await findInviteByToken(em, token);
+  const status = inviteStatus(invite);
+  if (status !== 'open') throw new AppError('CONFLICT', unusable[status]);
+  if (await em.count(User, { email: invite.email })) {
+    throw new AppError('CONFLICT', 'An account with this e-mail address already exists. Sign in to accept the invitation.');
+  }
+  const user = em.create(User, { email: invite.email, name: input.name, passwordHash: await hashPassword(input.password) });
+  await em.flush();
+  const { studioSlug } = await acceptInvite(em, token, user);
+  return { studioSlug, email: user.email };
+}

@@ -1,0 +1,30 @@
+import { Router, type Request, type Response } from 'express';
+import type { Permission } from '../../shared/permissions.ts';
+import type { Auth } from '../auth/auth.ts';
+import type { Orm } from '../db/orm.ts';
+import { requirePermission, requireUser, studioContext } from './auth-guards.ts';
+
+/**
+ * A workspace route: everything under /api/studios/:studioSlug. Declared as data so that the
+ * router is built from the list, and the isolation tests walk the same list — a new route is
+ * covered by them without anyone remembering to add it.
+ */
+export type WorkspaceRoute = {
+  method: 'get' | 'post' | 'patch' | 'put' | 'delete';
+  /** Below /api/studios/:studioSlug, e.g. '/team/members/:memberId'. */
+  path: string;
+  permission: Permission;
+  handler: (req: Request, res: Response) => Promise<void> | void;
+  /** A valid call for the tests: path params and body, given fixtures of the studio. */
+  sample?: (fixtures: WorkspaceFixtures) => Promise<{ params?: Record<string, string>; body?: unknown }> | { params?: Record<string, string>; body?: unknown };
+};
+
+/** What the isolation tests give a route's sample: ids of records in the studio under test. */
+export type WorkspaceFixtures = { studioId: string; ownerId: string; staffId: string; makeMember(): Promise<string>; makeInvite(): Promise<string> };
+
+export function workspaceRouter({ auth, orm, routes }: { auth: Auth; orm: Orm; routes: WorkspaceRoute[] }): Router {
+  const router = Router({ mergeParams: true });
+  router.use(requireUser(auth), studioContext(orm));
+  for (const route of routes) router[route.method](route.path, requirePermission(route.permission), route.handler);
+  return router;
+}
