@@ -10,7 +10,6 @@ import type { Logger } from './logger.ts';
 import type { Orm } from './db/orm.ts';
 import { apiNotFound, errorHandler } from './middleware/error-handler.ts';
 import type { Auth } from './auth/auth.ts';
-import type { Mailer } from './adapters/mailer.ts';
 import { workspaceRouter, type WorkspaceRoute } from './middleware/workspace-routes.ts';
 import { healthRouter } from './features/health/health.router.ts';
 import { storefrontRouter } from './features/studios/storefront.router.ts';
@@ -26,7 +25,6 @@ export type AppDeps = {
   logger: Logger;
   version: string;
   auth: Auth;
-  mailer: Mailer;
 };
 
 /** Every route under /api/studios/:studioSlug, from every feature. The isolation tests walk this list. */

@@ -5,6 +5,7 @@ import { createLogger } from './logger.ts';
 import { initOrm } from './db/orm.ts';
 import { appVersion } from './version.ts';
 import { createMailer } from './adapters/mailer.ts';
+import { startOutboxSender } from './features/outbox/outbox.service.ts';
 import { createAuth } from './auth/auth.ts';
 
 /** The only place that listens. Started by the stack scripts, the Docker image and `npm run dev`. */
@@ -12,9 +13,10 @@ async function main(): Promise<void> {
   const env = loadEnv();
   const logger = createLogger(env);
   const orm = await initOrm(env.DATABASE_URL);
-  const mailer = createMailer(env);
-  const auth = createAuth({ orm, env, mailer });
-  const app = createApp({ env, orm, logger, version: appVersion, auth, mailer });
+  const auth = createAuth({ orm, env, logger });
+  const app = createApp({ env, orm, logger, version: appVersion, auth });
+  // E-mails leave through the outbox; this process sends what is due (any number may).
+  const outbox = startOutboxSender(orm, createMailer(env), logger);
   const server = createServer(app);
   server.listen(env.PORT, env.HOST, () => {
     const address = server.address();
@@ -27,7 +29,7 @@ async function main(): Promise<void> {
     if (closing) return;
     closing = true;
     logger.info({ signal }, 'shutting down');
-    server.close(() => void Promise.all([orm.close(), auth.close()]).then(() => process.exit(0)));
+    server.close(() => void outbox.stop().then(() => Promise.all([orm.close(), auth.close()])).then(() => process.exit(0)));
     server.closeIdleConnections();
     // Keep-alive connections from browsers must not hold the shutdown for long.
     setTimeout(() => process.exit(0), 3000).unref();

@@ -7,12 +7,13 @@ import { emailSchema } from '../../shared/schemas/accounts.ts';
 import { AppError } from '../../shared/errors.ts';
 import type { Env } from '../env.ts';
 import type { Orm } from '../db/orm.ts';
-import type { Mailer } from '../adapters/mailer.ts';
+import type { Logger } from '../logger.ts';
 import { User } from '../features/accounts/user.entity.ts';
 import { mikroOrmAdapter, toAdapterUser } from './adapter.ts';
 import { dummyPasswordHash, verifyPassword } from './password.ts';
 import { createSignInLimits, type SignInLimits } from './rate-limit.ts';
 import { signInLinkMail } from './sign-in-mail.ts';
+import { queueEmail } from '../features/outbox/outbox.service.ts';
 
 /**
  * Sign-in for everyone, through Auth.js mounted at /api/auth: an e-mailed link for anyone
@@ -33,7 +34,7 @@ export type Auth = {
 const SESSION_MAX_AGE = 30 * 24 * 3600;
 const LINK_MAX_AGE = 30 * 60;
 
-export function createAuth({ orm, env, mailer }: { orm: Orm; env: Env; mailer: Mailer }): Auth {
+export function createAuth({ orm, env, logger }: { orm: Orm; env: Env; logger: Logger }): Auth {
   const limits: SignInLimits = createSignInLimits(env.DATABASE_URL);
   const secure = env.APP_URL.startsWith('https://');
 
@@ -44,7 +45,18 @@ export function createAuth({ orm, env, mailer }: { orm: Orm; env: Env; mailer: M
     useSecureCookies: secure,
     adapter: mikroOrmAdapter(orm),
     session: { strategy: 'jwt', maxAge: SESSION_MAX_AGE },
-    pages: { signIn: '/sign-in', error: '/sign-in', verifyRequest: '/sign-in?link=sent' },
+    pages: { signIn: '/sign-in', error: '/sign-in', verifyRequest: '/sign-in/link-sent' },
+    // The service's own messages go to our log; a refused password is an answer, not an error.
+    logger: {
+      error(error) {
+        if (error.name === 'CredentialsSignin') return;
+        logger.error({ err: error }, 'sign-in service error');
+      },
+      warn(code) {
+        logger.warn({ code }, 'sign-in service warning');
+      },
+      debug() {},
+    },
     providers: [
       Credentials({
         credentials: { email: { type: 'email' }, password: { type: 'password' } },
@@ -67,7 +79,9 @@ export function createAuth({ orm, env, mailer }: { orm: Orm; env: Env; mailer: M
         from: env.MAIL_FROM,
         maxAge: LINK_MAX_AGE,
         async sendVerificationRequest({ identifier, url }) {
-          await mailer.send({ to: identifier, ...signInLinkMail(url, LINK_MAX_AGE / 60) });
+          const em = orm.em.fork();
+          queueEmail(em, { to: identifier, ...signInLinkMail(url, LINK_MAX_AGE / 60) });
+          await em.flush();
         },
       }),
     ],

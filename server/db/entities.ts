@@ -3,6 +3,8 @@ import { User } from '../features/accounts/user.entity.ts';
 import { Membership } from '../features/team/membership.entity.ts';
 import { Invite } from '../features/team/invite.entity.ts';
 import { VerificationToken } from '../auth/verification-token.entity.ts';
+import { OutboxEmail } from '../features/outbox/outbox-email.entity.ts';
+import { SignInLimit } from '../auth/sign-in-limit.entity.ts';
 
 /** Every entity the ORM knows, listed by hand: discovery by folder scan needs compiled files. */
-export const entities = [Studio, User, Membership, Invite, VerificationToken];
+export const entities = [Studio, User, Membership, Invite, VerificationToken, OutboxEmail, SignInLimit];

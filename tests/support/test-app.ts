@@ -5,10 +5,11 @@ import { loadEnv, type Env } from '../../server/env.ts';
 import { createLogger } from '../../server/logger.ts';
 import { initOrm, type Orm } from '../../server/db/orm.ts';
 import { createTestDatabase } from './test-database.ts';
-import { createMailer, type Mailer } from '../../server/adapters/mailer.ts';
+import { createMailer } from '../../server/adapters/mailer.ts';
+import { startOutboxSender } from '../../server/features/outbox/outbox.service.ts';
 import { createAuth, type Auth } from '../../server/auth/auth.ts';
 
-export type TestApp = { app: Express; orm: Orm; env: Env; databaseUrl: string; auth: Auth; mailer: Mailer };
+export type TestApp = { app: Express; orm: Orm; env: Env; databaseUrl: string; auth: Auth };
 
 /**
  * Builds the app as the server does, on a database of its own. `databasePort` makes the app
@@ -21,19 +22,22 @@ export async function buildTestApp(
   const database = await createTestDatabase();
   const url = new URL(database.url);
   if (databasePort) url.port = String(databasePort);
-  const env = loadEnv({ NODE_ENV: 'test', LOG_LEVEL: 'silent', DATABASE_URL: url.toString(), CLIENT_DIST: 'dist', ...overrides });
+  const env = loadEnv({ NODE_ENV: 'test', LOG_LEVEL: process.env.TEST_LOG_LEVEL ?? 'silent', DATABASE_URL: url.toString(), CLIENT_DIST: 'dist', ...overrides });
   const orm = await initOrm(env.DATABASE_URL);
+  const logger = createLogger(env);
+  const auth = createAuth({ orm, env, logger });
+  const app = createApp({ env, orm, logger, version: 'test', auth });
+  // As in the server: e-mails go out through the outbox, here checked often.
   const mailer = createMailer(env);
-  const auth = createAuth({ orm, env, mailer });
-  const app = createApp({ env, orm, logger: createLogger(env), version: 'test', auth, mailer });
+  const outbox = startOutboxSender(orm, mailer, logger, 100);
   return {
     app,
     orm,
     env,
     auth,
-    mailer,
     databaseUrl: database.url,
     async close() {
+      await outbox.stop();
       mailer.close();
       await auth.close();
       await orm.close();

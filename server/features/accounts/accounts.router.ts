@@ -4,13 +4,11 @@ import { openStudioInputSchema } from '../../../shared/schemas/accounts.ts';
 import type { Env } from '../../env.ts';
 import type { Orm } from '../../db/orm.ts';
 import type { Auth } from '../../auth/auth.ts';
-import type { Mailer } from '../../adapters/mailer.ts';
 import { optionalUser, requireUser } from '../../middleware/auth-guards.ts';
 import { checkSlug, confirmEmail, describeMe, openStudio, signOutEverywhere } from './accounts.service.ts';
-import { verifyEmailMail } from './accounts-mail.ts';
 
 /** Opening a studio, e-mail confirmation, and the signed-in person (`/api/accounts`, `/api/me`). */
-export function accountsRouter({ orm, env, auth, mailer }: { orm: Orm; env: Env; auth: Auth; mailer: Mailer }): Router {
+export function accountsRouter({ orm, env, auth }: { orm: Orm; env: Env; auth: Auth }): Router {
   const router = Router();
   const em = () => orm.em as EntityManager;
 
@@ -20,9 +18,7 @@ export function accountsRouter({ orm, env, auth, mailer }: { orm: Orm; env: Env;
 
   router.post('/accounts/studios', async (req, res) => {
     const input = openStudioInputSchema.parse(req.body);
-    const { studio, user, verifyToken } = await openStudio(em(), input);
-    const url = `${env.APP_URL}/api/accounts/verify-email?token=${verifyToken}`;
-    await mailer.send({ to: user.email, ...verifyEmailMail({ name: user.name ?? '', studioName: studio.name, url }) });
+    const { studio } = await openStudio(em(), input, env.APP_URL);
     res.status(201).json({ studioSlug: studio.slug });
   });
 

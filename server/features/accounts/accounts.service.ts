@@ -9,6 +9,8 @@ import { hashToken, newLinkToken } from '../../lib/tokens.ts';
 import { Studio } from '../studios/studio.entity.ts';
 import { Membership } from '../team/membership.entity.ts';
 import { User } from './user.entity.ts';
+import { queueEmail } from '../outbox/outbox.service.ts';
+import { verifyEmailMail } from './accounts-mail.ts';
 
 /** Addresses the app itself uses or might: never a studio's. */
 const RESERVED_SLUGS = new Set(['admin', 'api', 'app', 'auth', 'etchwell', 'help', 'invites', 'platform', 'settings', 'sign-in', 'sign-up', 'static', 'studio', 'studios', 'support', 'www']);
@@ -25,9 +27,9 @@ const VERIFY_DAYS = 7;
 
 /**
  * Opens a studio: the studio, its first owner (a new account with a password) and the owner's
- * membership, in one transaction. Returns the token for the e-mail confirmation link.
+ * membership, in one transaction, with the e-mail that asks the owner to confirm the address.
  */
-export async function openStudio(em: EntityManager, input: OpenStudioInput): Promise<{ studio: Studio; user: User; verifyToken: string }> {
+export async function openStudio(em: EntityManager, input: OpenStudioInput, appUrl: string): Promise<{ studio: Studio; user: User }> {
   const availability = await checkSlug(em, input.slug);
   if (!availability.available) {
     throw new AppError('CONFLICT', availability.reason!, { issues: [{ path: ['slug'], message: availability.reason! }] });
@@ -43,9 +45,11 @@ export async function openStudio(em: EntityManager, input: OpenStudioInput): Pro
     const studio = tx.create(Studio, { slug: input.slug, name: input.studioName, contactEmail: input.email });
     tx.create(Membership, { studio, user, role: 'owner' });
     tx.create(VerificationToken, { identifier: `verify:${user.email}`, token: hash, expires: new Date(Date.now() + VERIFY_DAYS * 86_400_000) });
+    const url = `${appUrl}/api/accounts/verify-email?token=${token}`;
+    queueEmail(tx, { to: user.email, ...verifyEmailMail({ name: input.ownerName, studioName: studio.name, url }) });
     return { studio, user };
   });
-  return { ...result, verifyToken: token };
+  return result;
 }
 
 /** Confirms an e-mail address from the link; single use. */

@@ -2,13 +2,11 @@ import type { EntityManager } from '@mikro-orm/postgresql';
 import { changeRoleInputSchema, createInviteInputSchema } from '../../../shared/schemas/team.ts';
 import type { Env } from '../../env.ts';
 import type { Orm } from '../../db/orm.ts';
-import type { Mailer } from '../../adapters/mailer.ts';
 import type { WorkspaceRoute } from '../../middleware/workspace-routes.ts';
-import { changeRole, createInvite, findTeam, INVITE_VALID_DAYS, removeMember, revokeInvite } from './team.service.ts';
-import { inviteMail } from './team-mail.ts';
+import { changeRole, createInvite, findTeam, removeMember, revokeInvite } from './team.service.ts';
 
 /** The Team page's API: members, roles, invites. Owners only (team:manage). */
-export function teamRoutes({ orm, env, mailer }: { orm: Orm; env: Env; mailer: Mailer }): WorkspaceRoute[] {
+export function teamRoutes({ orm, env }: { orm: Orm; env: Env }): WorkspaceRoute[] {
   const em = () => orm.em as EntityManager;
   return [
     {
@@ -24,9 +22,7 @@ export function teamRoutes({ orm, env, mailer }: { orm: Orm; env: Env; mailer: M
       sample: () => ({ body: { email: `new-${Math.random().toString(36).slice(2)}@example.com`, role: 'staff' } }),
       handler: async (req, res) => {
         const input = createInviteInputSchema.parse(req.body);
-        const { invite, token } = await createInvite(em(), req.studio!, req.user!, input);
-        const mail = inviteMail({ studioName: req.studio!.name, inviterName: req.user!.name ?? req.user!.email, role: input.role, url: `${env.APP_URL}/invites/${token}`, validDays: INVITE_VALID_DAYS });
-        await mailer.send({ to: input.email, ...mail });
+        const invite = await createInvite(em(), req.studio!, req.user!, input, env.APP_URL);
         res.status(201).json({ id: invite.id, email: invite.email, role: invite.role, expiresAt: invite.expiresAt.toISOString(), createdAt: invite.createdAt.toISOString() });
       },
     },

@@ -9,6 +9,8 @@ import { User } from '../accounts/user.entity.ts';
 import type { Studio } from '../studios/studio.entity.ts';
 import { Invite } from './invite.entity.ts';
 import { Membership } from './membership.entity.ts';
+import { queueEmail } from '../outbox/outbox.service.ts';
+import { inviteMail } from './team-mail.ts';
 
 export const INVITE_VALID_DAYS = 7;
 
@@ -22,25 +24,29 @@ export async function findTeam(em: EntityManager, studio: Studio): Promise<Team>
   };
 }
 
-export async function createInvite(em: EntityManager, studio: Studio, invitedBy: User, input: CreateInviteInput): Promise<{ invite: Invite; token: string }> {
+/** Creates the invite and queues its e-mail, in one transaction. */
+export async function createInvite(em: EntityManager, studio: Studio, invitedBy: User, input: CreateInviteInput, appUrl: string): Promise<Invite> {
   const existing = await em.findOne(Membership, { studio, user: { email: input.email } });
   if (existing) {
     const message = 'This person is already a member of the studio.';
     throw new AppError('CONFLICT', message, { issues: [{ path: ['email'], message }] });
   }
   const { token, hash } = newLinkToken();
-  // A new invite to the same address replaces the open one, so only the newest link works.
-  await em.nativeUpdate(Invite, { studio, email: input.email, usedAt: null, revokedAt: null }, { revokedAt: new Date() });
-  const invite = em.create(Invite, {
-    studio,
-    email: input.email,
-    role: input.role,
-    tokenHash: hash,
-    expiresAt: new Date(Date.now() + INVITE_VALID_DAYS * 86_400_000),
-    invitedBy,
+  return em.transactional(async (tx) => {
+    // A new invite to the same address replaces the open one, so only the newest link works.
+    await tx.nativeUpdate(Invite, { studio, email: input.email, usedAt: null, revokedAt: null }, { revokedAt: new Date() });
+    const invite = tx.create(Invite, {
+      studio,
+      email: input.email,
+      role: input.role,
+      tokenHash: hash,
+      expiresAt: new Date(Date.now() + INVITE_VALID_DAYS * 86_400_000),
+      invitedBy,
+    });
+    const url = `${appUrl}/invites/${token}`;
+    queueEmail(tx, { to: input.email, ...inviteMail({ studioName: studio.name, inviterName: invitedBy.name ?? invitedBy.email, role: input.role, url, validDays: INVITE_VALID_DAYS }) });
+    return invite;
   });
-  await em.flush();
-  return { invite, token };
 }
 
 export async function revokeInvite(em: EntityManager, studio: Studio, inviteId: string): Promise<void> {

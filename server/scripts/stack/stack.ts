@@ -1,5 +1,5 @@
 import { resolve } from 'node:path';
-import { ensureDatabase, withDatabaseName } from '../../db/database-admin.ts';
+import { dropDatabase, ensureDatabase, withDatabaseName } from '../../db/database-admin.ts';
 import { initOrm, migrate } from '../../db/orm.ts';
 import { seedDemo } from '../../db/seed.ts';
 import { loadEnv } from '../../env.ts';
@@ -51,6 +51,8 @@ export async function startStack(mode: StackMode, { appUrl = 'http://127.0.0.1:3
     const postgres = await startPostgres({ projectDir, name: `pg-${mode}`, port: PORTS[mode].postgres, fast: mode === 'test' });
     stops.push({ name: 'postgres', stop: postgres.stop });
     const databaseUrl = postgres.url(mode === 'dev' ? 'etchwell' : 'etchwell_test_template');
+    // Each test run migrates a fresh template: nothing from an earlier run can linger.
+    if (mode === 'test') await dropDatabase(databaseUrl);
     await prepareDatabase(databaseUrl, { seed: mode === 'dev' });
 
     const ports = PORTS[mode];

@@ -1,0 +1,38 @@
+import { Entity, Enum, Index, Property } from '@mikro-orm/core';
+import { BaseEntity } from '../../db/base.entity.ts';
+
+/**
+ * An e-mail waiting to be sent, or sent. Features write a row in the same transaction as the
+ * change it tells about, so no e-mail is lost when the mail server is down; the sender delivers
+ * due rows with retries.
+ */
+@Entity({ tableName: 'outbox_email' })
+@Index({ properties: ['status', 'nextAttemptAt'] })
+export class OutboxEmail extends BaseEntity<'status' | 'attempts' | 'nextAttemptAt' | 'lastError' | 'sentAt' | 'html'> {
+  @Property({ type: 'string', length: 254 })
+  to!: string;
+
+  @Property({ type: 'string', length: 300 })
+  subject!: string;
+
+  @Property({ type: 'text' })
+  text!: string;
+
+  @Property({ type: 'text', nullable: true })
+  html: string | null = null;
+
+  @Enum({ items: ['pending', 'sent', 'failed'], type: 'string' })
+  status: 'pending' | 'sent' | 'failed' = 'pending';
+
+  @Property({ type: 'integer' })
+  attempts: number = 0;
+
+  @Property({ type: 'datetime', defaultRaw: 'now()' })
+  nextAttemptAt: Date = new Date();
+
+  @Property({ type: 'text', nullable: true })
+  lastError: string | null = null;
+
+  @Property({ type: 'datetime', nullable: true })
+  sentAt: Date | null = null;
+}

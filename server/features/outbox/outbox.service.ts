@@ -1,0 +1,62 @@
+import { LockMode } from '@mikro-orm/core';
+import type { EntityManager } from '@mikro-orm/postgresql';
+import type { Mailer, OutgoingMail } from '../../adapters/mailer.ts';
+import type { Logger } from '../../logger.ts';
+import type { Orm } from '../../db/orm.ts';
+import { OutboxEmail } from './outbox-email.entity.ts';
+
+/** Puts an e-mail in the outbox; it is written with the caller's next flush or transaction. */
+export function queueEmail(em: EntityManager, mail: OutgoingMail): OutboxEmail {
+  return em.create(OutboxEmail, { to: mail.to, subject: mail.subject, text: mail.text, html: mail.html ?? null });
+}
+
+const MAX_ATTEMPTS = 12;
+/** 30 s, 1 min, 2 min … capped at 1 h: about a day of retries in all. */
+const backoffMs = (attempts: number) => Math.min(30_000 * 2 ** (attempts - 1), 3_600_000);
+
+/**
+ * Sends the e-mails that are due, a batch at a time. Rows are claimed with SKIP LOCKED, so any
+ * number of processes may run this side by side without sending anything twice.
+ */
+export async function deliverDueEmails(orm: Orm, mailer: Mailer, logger: Logger, batch = 20): Promise<number> {
+  let sent = 0;
+  await orm.em.fork().transactional(async (tx) => {
+    const due = await tx.find(
+      OutboxEmail,
+      { status: 'pending', nextAttemptAt: { $lte: new Date() } },
+      { orderBy: { nextAttemptAt: 'asc' }, limit: batch, lockMode: LockMode.PESSIMISTIC_PARTIAL_WRITE /* FOR UPDATE SKIP LOCKED */ },
+    );
+    for (const mail of due) {
+      mail.attempts += 1;
+      try {
+        await mailer.send({ to: mail.to, subject: mail.subject, text: mail.text, html: mail.html ?? undefined });
+        mail.status = 'sent';
+        mail.sentAt = new Date();
+        mail.lastError = null;
+        sent++;
+      } catch (error) {
+        mail.lastError = (error as Error).message.slice(0, 500);
+        if (mail.attempts >= MAX_ATTEMPTS) mail.status = 'failed';
+        else mail.nextAttemptAt = new Date(Date.now() + backoffMs(mail.attempts));
+        logger.warn({ outboxId: mail.id, attempts: mail.attempts, err: error }, 'e-mail not sent yet; will retry');
+      }
+    }
+  });
+  return sent;
+}
+
+/** Runs the sender every `intervalMs` until stopped. */
+export function startOutboxSender(orm: Orm, mailer: Mailer, logger: Logger, intervalMs = 1000): { stop(): Promise<void> } {
+  let running: Promise<unknown> = Promise.resolve();
+  let stopped = false;
+  const timer = setInterval(() => {
+    running = running.then(() => (stopped ? 0 : deliverDueEmails(orm, mailer, logger).catch((error) => logger.error({ err: error }, 'outbox sender failed'))));
+  }, intervalMs);
+  return {
+    async stop() {
+      stopped = true;
+      clearInterval(timer);
+      await running;
+    },
+  };
+}

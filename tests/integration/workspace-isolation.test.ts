@@ -1,0 +1,91 @@
+import { beforeAll, describe, expect, it } from 'vitest';
+import request from 'supertest';
+import { can, ROLES } from '../../shared/permissions.ts';
+import { workspaceRoutes, type AppDeps } from '../../server/app.ts';
+import type { WorkspaceFixtures, WorkspaceRoute } from '../../server/middleware/workspace-routes.ts';
+import { Invite } from '../../server/features/team/invite.entity.ts';
+import type { Studio } from '../../server/features/studios/studio.entity.ts';
+import { useTestApp } from '../support/test-app.ts';
+import { agentFor, createMember, createStudio, createUser } from '../support/factories.ts';
+
+/**
+ * Every workspace route, from the same list the router is built from: a route added later is
+ * checked here without anyone adding it. Another studio's records answer 404, never 403.
+ */
+describe('workspace isolation matrix', () => {
+  const t = useTestApp();
+  const routes = (): WorkspaceRoute[] => workspaceRoutes({ ...t, logger: undefined, version: 'test' } as unknown as AppDeps);
+  let studioA: Studio;
+  const agents = {} as Record<'buyer' | 'otherStudio' | 'owner' | 'staff', ReturnType<typeof request.agent>>;
+  let fixtures: WorkspaceFixtures;
+
+  beforeAll(async () => {
+    const em = t.orm.em.fork();
+    studioA = await createStudio(em, { slug: 'matrix-a' });
+    const studioB = await createStudio(em, { slug: 'matrix-b' });
+    const owner = await createMember(em, studioA, 'owner');
+    const staff = await createMember(em, studioA, 'staff');
+    const otherOwner = await createMember(em, studioB, 'owner');
+    const buyer = await createUser(em);
+    agents.owner = await agentFor(t.app, owner.user);
+    agents.staff = await agentFor(t.app, staff.user);
+    agents.otherStudio = await agentFor(t.app, otherOwner.user);
+    agents.buyer = await agentFor(t.app, buyer);
+    fixtures = {
+      studioId: studioA.id,
+      ownerId: owner.membership.id,
+      staffId: staff.membership.id,
+      makeMember: async () => (await createMember(t.orm.em.fork(), studioA, 'staff')).membership.id,
+      makeInvite: async () => {
+        const fork = t.orm.em.fork();
+        const invite = fork.create(Invite, { studio: studioA.id, email: `i-${Math.random()}@example.com`, role: 'staff', tokenHash: Math.random().toString(16).slice(2).padEnd(64, '0'), expiresAt: new Date(Date.now() + 86_400_000), invitedBy: null });
+        await fork.flush();
+        return invite.id;
+      },
+    };
+  });
+
+  it('covers at least the studio and team routes', () => {
+    expect(routes().map((r) => `${r.method} ${r.path}`)).toEqual(expect.arrayContaining(['get /', 'get /team', 'post /team/invites', 'patch /team/members/:memberId']));
+  });
+
+  const call = async (agent: ReturnType<typeof request.agent> | typeof request, route: WorkspaceRoute, studioSlug: string) => {
+    const { params = {}, body } = (await route.sample?.(fixtures)) ?? {};
+    const path = route.path.replace(/:(\w+)/g, (_, name: string) => params[name] ?? '00000000-0000-4000-8000-000000000000');
+    const url = `/api/studios/${studioSlug}${path === '/' ? '' : path}`;
+    const target = agent === request ? request(t.app) : (agent as ReturnType<typeof request.agent>);
+    const req = target[route.method](url);
+    return body === undefined ? req : req.send(body as object);
+  };
+
+  it('answers 401 to anyone not signed in, on every route', async () => {
+    for (const route of routes()) {
+      const res = await call(request, route, 'matrix-a');
+      expect(res.status, `${route.method} ${route.path}`).toBe(401);
+    }
+  });
+
+  it('answers 404 to a signed-in buyer who is not a member, on every route', async () => {
+    for (const route of routes()) {
+      const res = await call(agents.buyer, route, 'matrix-a');
+      expect(res.status, `${route.method} ${route.path}`).toBe(404);
+    }
+  });
+
+  it('answers 404 to a member of another studio, on every route', async () => {
+    for (const route of routes()) {
+      const res = await call(agents.otherStudio, route, 'matrix-a');
+      expect(res.status, `${route.method} ${route.path}`).toBe(404);
+    }
+  });
+
+  for (const role of ROLES) {
+    it(`lets ${role} members do exactly what the permission map allows`, async () => {
+      for (const route of routes()) {
+        const res = await call(agents[role as 'owner' | 'staff'], route, 'matrix-a');
+        if (can(role, route.permission)) expect(res.status, `${route.method} ${route.path}: ${JSON.stringify(res.body)}`).toBeLessThan(300);
+        else expect(res.status, `${route.method} ${route.path}`).toBe(403);
+      }
+    });
+  }
+});
