@@ -1,15 +1,24 @@
 import { createBrowserRouter } from 'react-router-dom';
 import { HomePage } from './routes/home.tsx';
-import { SignInPage } from './routes/sign-in.tsx';
+import { LinkSentPage, SignInPage } from './routes/sign-in.tsx';
+import { OpenStudioPage } from './routes/open-a-studio.tsx';
+import { InvitePage } from './routes/invite.tsx';
 import { NotFoundPage } from './routes/not-found.tsx';
 import { StorefrontHomePage } from './routes/storefront/storefront-home.tsx';
-import { WorkspaceHomePage } from './routes/workspace/workspace-home.tsx';
+import { WorkspaceOverviewPage } from './routes/workspace/overview.tsx';
+import { TeamPage } from './routes/workspace/team.tsx';
+import { PlatformStudiosPage } from './routes/platform-studios.tsx';
 
 /** Platform pages, a studio's storefront (/s/…) and its workspace (/studio/…). */
 export const router = createBrowserRouter([
   { path: '/', element: <HomePage /> },
   { path: '/sign-in', element: <SignInPage /> },
+  { path: '/sign-in/link-sent', element: <LinkSentPage /> },
+  { path: '/open-a-studio', element: <OpenStudioPage /> },
+  { path: '/invites/:token', element: <InvitePage /> },
+  { path: '/platform/studios', element: <PlatformStudiosPage /> },
   { path: '/s/:studioSlug', element: <StorefrontHomePage /> },
-  { path: '/studio/:studioSlug', element: <WorkspaceHomePage /> },
+  { path: '/studio/:studioSlug', element: <WorkspaceOverviewPage /> },
+  { path: '/studio/:studioSlug/team', element: <TeamPage /> },
   { path: '*', element: <NotFoundPage /> },
 ]);

@@ -29,12 +29,13 @@ export type BrowserContext = TestApp & {
 /**
  * For a browser test file: the built client and the API served by one in-process server on a
  * free port, on a database of its own, and Debian's Chromium driven by playwright-core.
+ * `prepare` runs first and may return environment overrides for the app (a fake's address).
  */
-export function useBrowser(): BrowserContext {
+export function useBrowser(prepare?: () => Promise<Record<string, string>>): BrowserContext {
   const context = {} as BrowserContext & { server: Server; close(): Promise<void> };
   beforeAll(async () => {
     mkdirSync(screenshotDir, { recursive: true });
-    Object.assign(context, await buildTestApp());
+    Object.assign(context, await buildTestApp((await prepare?.()) ?? {}));
     context.server = createServer(context.app);
     await new Promise<void>((resolve) => context.server.listen(0, '127.0.0.1', resolve));
     const address = context.server.address();

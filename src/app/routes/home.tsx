@@ -25,8 +25,11 @@ export function HomePage() {
           file and ships. One place for the work you now do by hand in two or three programs.
         </p>
         <div className="mt-8 flex flex-wrap gap-3">
-          <Link to="/sign-in" className={buttonClasses('primary', 'lg')}>
-            Sign in to your studio
+          <Link to="/open-a-studio" className={buttonClasses('primary', 'lg')}>
+            Open a studio
+          </Link>
+          <Link to="/sign-in" className={buttonClasses('secondary', 'lg')}>
+            Sign in
           </Link>
         </div>
       </section>

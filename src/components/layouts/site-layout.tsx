@@ -1,21 +1,18 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
+import { UserMenu } from '../../features/auth/components/user-menu.tsx';
 
 /** Etchwell's own pages (home, sign-in, not found): the platform header and footer. */
 export function SiteLayout({ children }: { children: ReactNode }) {
   return (
     <div className="flex min-h-screen flex-col">
       <header className="border-b border-graphite-100 bg-white/80 backdrop-blur">
-        <div className="mx-auto flex h-16 max-w-6xl items-center justify-between px-6">
+        <div className="mx-auto flex h-16 max-w-6xl items-center justify-between gap-4 px-6">
           <Link to="/" className="flex items-center gap-2 text-lg font-extrabold text-graphite-900">
             <img src="/favicon.svg" alt="" className="size-7" />
             Etchwell
           </Link>
-          <nav aria-label="Main">
-            <Link to="/sign-in" className="rounded-lg px-3 py-2 text-sm font-semibold text-graphite-700 hover:bg-graphite-100">
-              Sign in
-            </Link>
-          </nav>
+          <UserMenu />
         </div>
       </header>
       <main className="flex-1">{children}</main>

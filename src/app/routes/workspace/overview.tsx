@@ -1,0 +1,52 @@
+import { Link } from 'react-router-dom';
+import { WorkspaceLayout } from '../../../components/layouts/workspace-layout.tsx';
+import { Card, CardTitle } from '../../../components/ui/card.tsx';
+import { Notice } from '../../../components/ui/notice.tsx';
+
+const roleText = {
+  owner: 'As an owner you manage the team, the catalog, prices and refunds, and everything on orders.',
+  staff: 'As a team member you work on orders: review photos, prepare them, send proofs, burn and ship.',
+} as const;
+
+export function WorkspaceOverviewPage() {
+  return (
+    <WorkspaceLayout>
+      {({ studio, role }) => (
+        <div className="flex flex-col gap-6">
+          <h1 className="text-3xl font-extrabold">{studio.name}</h1>
+          {studio.status === 'suspended' && (
+            <Notice tone="caution" title="This studio is suspended">
+              The storefront is closed to new orders. Contact the platform team to reopen it.
+            </Notice>
+          )}
+          <div className="grid gap-4 md:grid-cols-2">
+            <Card>
+              <CardTitle>Your role</CardTitle>
+              <p className="text-graphite-700">{roleText[role]}</p>
+            </Card>
+            <Card>
+              <CardTitle>Storefront</CardTitle>
+              <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm">
+                <dt className="font-semibold text-graphite-600">Address</dt>
+                <dd>
+                  <Link to={`/s/${studio.slug}`} className="font-semibold text-ember-700 underline">
+                    /s/{studio.slug}
+                  </Link>
+                </dd>
+                <dt className="font-semibold text-graphite-600">Currency</dt>
+                <dd>{studio.currency}</dd>
+                <dt className="font-semibold text-graphite-600">Sizes shown in</dt>
+                <dd>{studio.units === 'in' ? 'inches' : 'millimetres'}</dd>
+                <dt className="font-semibold text-graphite-600">Contact</dt>
+                <dd>{studio.contactEmail ?? '—'}</dd>
+              </dl>
+            </Card>
+          </div>
+          <Notice tone="caution" title="Laser safety">
+            Never leave a running laser unattended, keep fire suppression at hand, run fume extraction and wear eye protection rated for the wavelength. Never burn PVC or vinyl. Follow your machine maker’s manual and local codes.
+          </Notice>
+        </div>
+      )}
+    </WorkspaceLayout>
+  );
+}

@@ -1,0 +1,64 @@
+import type { ReactNode } from 'react';
+import { NavLink, useParams } from 'react-router-dom';
+import { can } from '../../../shared/permissions.ts';
+import { AppError } from '../../../shared/errors.ts';
+import { useWorkspace, type Workspace } from '../../features/workspace/api/get-workspace.ts';
+import { UserMenu } from '../../features/auth/components/user-menu.tsx';
+import { RequireSignIn } from '../../app/routes/workspace/require-sign-in.tsx';
+import { Notice } from '../ui/notice.tsx';
+import { cx } from '../../lib/cx.ts';
+
+/** The workspace frame: studio name, the pages this member may open, and the account menu. */
+export function WorkspaceLayout({ children }: { children: (workspace: Workspace) => ReactNode }) {
+  return (
+    <RequireSignIn>
+      <WorkspaceFrame>{children}</WorkspaceFrame>
+    </RequireSignIn>
+  );
+}
+
+function WorkspaceFrame({ children }: { children: (workspace: Workspace) => ReactNode }) {
+  const { studioSlug = '' } = useParams();
+  const workspace = useWorkspace(studioSlug);
+  const nav = [
+    { to: `/studio/${studioSlug}`, label: 'Overview', end: true, show: true },
+    { to: `/studio/${studioSlug}/team`, label: 'Team', end: false, show: can(workspace.data?.role, 'team:manage') },
+  ];
+  return (
+    <div className="min-h-screen">
+      <header className="border-b border-graphite-100 bg-white">
+        <div className="mx-auto flex h-16 max-w-6xl items-center justify-between gap-4 px-6">
+          <div className="flex items-center gap-3">
+            <img src="/favicon.svg" alt="" className="size-7" />
+            <span className="text-lg font-extrabold">{workspace.data?.studio.name ?? 'Workspace'}</span>
+            {workspace.data && <span className="rounded-full bg-birch-100 px-2 py-0.5 text-xs font-bold uppercase tracking-wide text-graphite-600">{workspace.data.role}</span>}
+          </div>
+          <UserMenu />
+        </div>
+        <nav aria-label="Workspace" className="mx-auto flex max-w-6xl gap-1 px-6">
+          {nav
+            .filter((item) => item.show)
+            .map((item) => (
+              <NavLink
+                key={item.to}
+                to={item.to}
+                end={item.end}
+                className={({ isActive }) => cx('border-b-2 px-3 py-2.5 text-sm font-semibold', isActive ? 'border-ember-500 text-graphite-950' : 'border-transparent text-graphite-500 hover:text-graphite-800')}
+              >
+                {item.label}
+              </NavLink>
+            ))}
+        </nav>
+      </header>
+      <main className="mx-auto max-w-6xl px-6 py-8">
+        {workspace.isPending && <p className="text-graphite-500">Opening the workspace…</p>}
+        {workspace.error && (
+          <Notice tone="error" title="This workspace could not be opened">
+            {workspace.error instanceof AppError && workspace.error.code === 'NOT_FOUND' ? 'There is no studio at this address, or you are not a member of it.' : workspace.error.message}
+          </Notice>
+        )}
+        {workspace.data && children(workspace.data)}
+      </main>
+    </div>
+  );
+}

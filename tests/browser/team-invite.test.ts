@@ -1,0 +1,65 @@
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startMailFake, type MailFake } from '../../fakes/mail/server.ts';
+import type { StoredMessage } from '../../fakes/mail/mailbox.ts';
+import { seedDemo } from '../../server/db/seed.ts';
+import { DEMO_PASSWORD } from '../../server/db/demo-scenario.ts';
+import { screenshotDir, useBrowser } from '../support/browser.ts';
+import { eventually, temporaryDataDir } from '../support/fakes.ts';
+
+describe('an owner invites a colleague, who joins from the e-mailed link', () => {
+  const mailData = temporaryDataDir('mail-browser-team');
+  let mail: MailFake;
+  // The app sends mail to a catcher started before it; its address is known only then.
+  const b = useBrowser(async () => {
+    mail = await startMailFake({ dataDir: mailData.dir });
+    return { SMTP_URL: mail.smtpUrl };
+  });
+
+  beforeAll(async () => {
+    await seedDemo(b.orm.em.fork());
+  });
+  afterAll(async () => {
+    await mail?.stop();
+    mailData.remove();
+  });
+
+  it('owner signs in with a password, invites; the new colleague joins and sees no owner-only pages', async () => {
+    const owner = await b.newPage();
+    await owner.page.goto(`${b.baseUrl}/sign-in`);
+    await owner.page.getByLabel('E-mail address').fill('maren@harbour-light.test');
+    await owner.page.getByLabel('Password').fill(DEMO_PASSWORD);
+    await owner.page.getByRole('button', { name: 'Sign in', exact: true }).click();
+    await owner.page.waitForURL(`${b.baseUrl}/studio/harbour-light`);
+    await owner.page.getByRole('link', { name: 'Team' }).click();
+    await owner.page.getByLabel('E-mail address').fill('ola@harbour-light.test');
+    await owner.page.getByRole('button', { name: 'Send invitation' }).click();
+    await expect.poll(() => owner.page.getByRole('cell', { name: 'ola@harbour-light.test' }).count()).toBe(1);
+    await owner.page.screenshot({ path: join(screenshotDir, 'team-invited.png'), fullPage: true });
+    expect(owner.problems).toEqual([]);
+
+    const invite = await eventually(async () => {
+      const res = await fetch(`${mail.url}/api/messages/latest?to=ola@harbour-light.test`);
+      return res.ok ? ((await res.json()) as StoredMessage) : undefined;
+    });
+    expect(invite.subject).toBe('Join Harbour Light Engraving on Etchwell');
+    const link = new URL(invite.links.find((l) => l.includes('/invites/'))!);
+
+    const colleague = await b.newPage();
+    await colleague.page.goto(`${b.baseUrl}${link.pathname}`);
+    await colleague.page.getByLabel('Your name').fill('Ola Brandt');
+    await colleague.page.getByLabel('Choose a password').fill('a new long password');
+    await colleague.page.screenshot({ path: join(screenshotDir, 'invite-accept.png'), fullPage: true });
+    await colleague.page.getByRole('button', { name: 'Create my account and join' }).click();
+    await colleague.page.waitForURL(`${b.baseUrl}/studio/harbour-light`);
+    await expect.poll(() => colleague.page.getByRole('heading', { level: 1 }).textContent()).toBe('Harbour Light Engraving');
+    const workspaceNav = colleague.page.getByRole('navigation', { name: 'Workspace' });
+    expect(await workspaceNav.getByRole('link', { name: 'Overview' }).count()).toBe(1);
+    expect(await workspaceNav.getByRole('link', { name: 'Team' }).count()).toBe(0);
+    await colleague.page.screenshot({ path: join(screenshotDir, 'workspace-staff.png'), fullPage: true });
+    // Typing the owner-only address by hand shows a refusal, not the page.
+    await colleague.page.goto(`${b.baseUrl}/studio/harbour-light/team`);
+    await expect.poll(() => colleague.page.getByText('Owners only').count()).toBe(1);
+    expect(colleague.problems).toEqual([]);
+  });
+});
