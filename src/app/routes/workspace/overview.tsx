@@ -1,4 +1,8 @@
-import { Link } from 'react-router-dom';
+import { Link, useNavigate } from 'react-router-dom';
+import { useQueryClient } from '@tanstack/react-query';
+import { Button } from '../../../components/ui/button.tsx';
+import { useToast } from '../../../components/ui/toast.tsx';
+import { signOutEverywhere } from '../../../features/auth/api/sign-in.ts';
 import { WorkspaceLayout } from '../../../components/layouts/workspace-layout.tsx';
 import { Card, CardTitle } from '../../../components/ui/card.tsx';
 import { Notice } from '../../../components/ui/notice.tsx';
@@ -23,6 +27,7 @@ export function WorkspaceOverviewPage() {
             <Card>
               <CardTitle>Your role</CardTitle>
               <p className="text-graphite-700">{roleText[role]}</p>
+              <SignOutEverywhere />
             </Card>
             <Card>
               <CardTitle>Storefront</CardTitle>
@@ -48,5 +53,31 @@ export function WorkspaceOverviewPage() {
         </div>
       )}
     </WorkspaceLayout>
+  );
+}
+
+/** Ends every session of this account, on every device (a lost phone, a shared computer). */
+function SignOutEverywhere() {
+  const navigate = useNavigate();
+  const queryClient = useQueryClient();
+  const toast = useToast();
+  return (
+    <div className="mt-4 border-t border-graphite-100 pt-4">
+      <Button
+        variant="secondary"
+        size="sm"
+        onClick={async () => {
+          try {
+            await signOutEverywhere();
+            queryClient.clear();
+            navigate('/sign-in');
+          } catch (error) {
+            toast.show((error as Error).message, 'error');
+          }
+        }}
+      >
+        Sign out on every device
+      </Button>
+    </div>
   );
 }
