@@ -10,7 +10,10 @@ import { startAppProcess, type AppProcess } from './stack/app-process.ts';
  */
 const apiPort = process.env.API_PORT ?? '3001';
 // Pages are served by Vite: links in e-mails and the upload origin use its address.
-const stack = await startStack('dev', { appUrl: 'http://127.0.0.1:5173' });
+const stack = await startStack('dev', { appUrl: 'http://127.0.0.1:5173' }).catch((error: Error) => {
+  log(`could not start the local stack: ${error.message}`);
+  process.exit(1);
+});
 let api: AppProcess | undefined;
 let vite: ChildProcess | undefined;
 

@@ -9,7 +9,10 @@ import { DEMO_PASSWORD, demoPeople, demoStudios } from '../db/demo-scenario.ts';
  * client, serves client and API from one process, and stops everything on Ctrl-C or SIGTERM.
  */
 const port = process.env.PORT ?? '3000';
-const stack = await startStack('dev', { appUrl: `http://127.0.0.1:${port}` });
+const stack = await startStack('dev', { appUrl: `http://127.0.0.1:${port}` }).catch((error: Error) => {
+  log(`could not start the local stack: ${error.message}`);
+  process.exit(1);
+});
 // Registered before anything else starts, so a Ctrl-C during the build still stops the database.
 let stopApp: () => Promise<void> = async () => {};
 let shuttingDown = false;

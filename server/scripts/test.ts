@@ -31,7 +31,10 @@ for (const project of ['tsconfig.json', 'shared', 'src', 'tests/browser']) {
   }
 }
 
-const stack = await startStack('test');
+const stack = await startStack('test').catch((error: Error) => {
+  log(`could not start the test stack: ${error.message}`);
+  process.exit(1);
+});
 onShutdown(() => stack.stop());
 
 let code = 1;

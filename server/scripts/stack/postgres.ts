@@ -2,7 +2,20 @@ import { existsSync, mkdirSync, chmodSync } from 'node:fs';
 import { createHash } from 'node:crypto';
 import { join, resolve } from 'node:path';
 import { tmpdir } from 'node:os';
+import { createConnection } from 'node:net';
 import { log, run } from './run.ts';
+
+/** Whether something already answers on 127.0.0.1:port. */
+export function portInUse(port: number): Promise<boolean> {
+  return new Promise((resolve) => {
+    const socket = createConnection({ host: '127.0.0.1', port });
+    socket.once('connect', () => {
+      socket.destroy();
+      resolve(true);
+    });
+    socket.once('error', () => resolve(false));
+  });
+}
 
 /**
  * A private PostgreSQL cluster for this checkout: Debian's server binaries, a data folder under
@@ -76,6 +89,9 @@ export async function startPostgres(options: {
     await asPostgres(pgCtl, ['-D', dataDir, '-m', 'fast', '-w', 'stop']);
   } catch {
     /* not running: the usual case */
+  }
+  if (await portInUse(options.port)) {
+    throw new Error(`port ${options.port} is already in use on 127.0.0.1 (is another checkout's stack running?). Stop it first.`);
   }
   const settings = [`-c listen_addresses=127.0.0.1`, `-p ${options.port}`, `-k ${dataDir}`];
   if (options.fast) settings.push('-c fsync=off', '-c synchronous_commit=off', '-c full_page_writes=off');
