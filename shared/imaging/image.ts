@@ -1,0 +1,34 @@
+/**
+ * Image types of the imaging core. Plain typed arrays, row-major, top row first, so the same code
+ * runs in the browser's Web Worker and on the server.
+ */
+
+/** One channel, 8 bits per pixel (0 = black, 255 = white). */
+export type Gray8 = { width: number; height: number; data: Uint8Array };
+
+/** One channel in floating point, code values 0–255 (may go outside while filtering). */
+export type GrayF = { width: number; height: number; data: Float32Array };
+
+/** A halftoned result: 1 = white (not burned on a positive), 0 = black; one byte per pixel. */
+export type Bitmap = { width: number; height: number; data: Uint8Array };
+
+/** Interleaved 8-bit RGBA, as canvases and sharp's raw output give it. */
+export type Rgba8 = { width: number; height: number; data: Uint8Array | Uint8ClampedArray };
+
+export function grayF(width: number, height: number, fill = 0): GrayF {
+  return { width, height, data: new Float32Array(width * height).fill(fill) };
+}
+
+export function toGrayF(image: Gray8): GrayF {
+  return { width: image.width, height: image.height, data: Float32Array.from(image.data) };
+}
+
+/** Rounds and clamps to 8 bits. */
+export function toGray8(image: GrayF): Gray8 {
+  const out = new Uint8Array(image.data.length);
+  for (let i = 0; i < out.length; i++) {
+    const v = Math.round(image.data[i]!);
+    out[i] = v < 0 ? 0 : v > 255 ? 255 : v;
+  }
+  return { width: image.width, height: image.height, data: out };
+}

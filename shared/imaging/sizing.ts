@@ -1,0 +1,17 @@
+/**
+ * Physical size ↔ pixels. 1 inch = 25.4 mm exactly (International Yard and Pound Agreement, 1959).
+ * The output is the engraving area times the line density, rounded to the nearest whole pixel
+ * (half up), never below one: an 8 × 10 in area at 360 lines per inch is 2880 × 3600 pixels.
+ */
+export const MM_PER_INCH = 25.4;
+
+export const mmToInches = (mm: number) => mm / MM_PER_INCH;
+export const inchesToMm = (inches: number) => inches * MM_PER_INCH;
+
+export function pixelsFor(mm: number, linesPerInch: number): number {
+  return Math.max(1, Math.round((mm / MM_PER_INCH) * linesPerInch));
+}
+
+export function outputSize(area: { widthMm: number; heightMm: number }, linesPerInch: number): { width: number; height: number } {
+  return { width: pixelsFor(area.widthMm, linesPerInch), height: pixelsFor(area.heightMm, linesPerInch) };
+}
