@@ -39,3 +39,41 @@ export function largestFairOffered<T extends { widthMm: number; heightMm: number
     .filter((s) => verdictFor(effectivePpi(crop, s)) !== 'too-low')
     .sort((a, b) => b.widthMm * b.heightMm - a.widthMm * a.heightMm)[0];
 }
+
+/**
+ * Sharpness: the variance of the 4-neighbour Laplacian (J. L. Pech-Pacheco et al., "Diatom
+ * autofocusing in brightfield microscopy: a comparative study", ICPR 2000) on the photo scaled so
+ * its long side is `LAPLACIAN_SIDE` pixels, which makes the figure comparable between photos of
+ * different sizes. Gray input, code values.
+ */
+export const LAPLACIAN_SIDE = 512;
+
+export function laplacianVariance(image: { width: number; height: number; data: Float32Array | Uint8Array }): number {
+  const { width, height, data } = image;
+  let sum = 0;
+  let sumSq = 0;
+  let n = 0;
+  for (let y = 1; y < height - 1; y++) {
+    for (let x = 1; x < width - 1; x++) {
+      const i = y * width + x;
+      const l = data[i - 1]! + data[i + 1]! + data[i - width]! + data[i + width]! - 4 * data[i]!;
+      sum += l;
+      sumSq += l * l;
+      n++;
+    }
+  }
+  if (!n) return 0;
+  const mean = sum / n;
+  return sumSq / n - mean * mean;
+}
+
+/** Shares of clipped shadows (≤ 2) and highlights (≥ 253): large shares mean detail is lost. */
+export function exposure(image: { data: Float32Array | Uint8Array }): { shadows: number; highlights: number } {
+  let shadows = 0;
+  let highlights = 0;
+  for (const v of image.data) {
+    if (v <= 2) shadows++;
+    else if (v >= 253) highlights++;
+  }
+  return { shadows: shadows / image.data.length, highlights: highlights / image.data.length };
+}
