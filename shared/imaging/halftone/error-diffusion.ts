@@ -12,8 +12,10 @@ export type ErrorDiffusionOptions = {
 };
 
 /**
- * Error diffusion to one bit. Memory beyond input and output is a few rows of errors
- * (kernel height × (width + 4) floats), so an 80-megapixel file diffuses in O(width) state.
+ * Error diffusion to one bit. Every published kernel here fits in three rows and five columns
+ * (x − 2 … x + 2), so one loop serves them all: the current row's errors ride in two local
+ * carries, the next two rows' in two buffers of width + 4 floats. Memory beyond input and output
+ * is O(width) whatever the image height; an 80-megapixel file diffuses in a few kilobytes of state.
  */
 export function errorDiffuse(image: GrayF, options: ErrorDiffusionOptions): Bitmap {
   const { width, height, data } = image;
@@ -21,38 +23,67 @@ export function errorDiffuse(image: GrayF, options: ErrorDiffusionOptions): Bitm
   const threshold = options.threshold ?? 127.5;
   const serpentine = options.scan === 'serpentine';
   const mask = options.mask;
-  const depth = Math.max(...kernel.weights.map(([, dy]) => dy)) + 1;
+  // Weights as a 3 × 5 grid: w[dy][dx + 2], divided once here.
+  const w = [new Float64Array(5), new Float64Array(5), new Float64Array(5)];
+  for (const [dx, dy, weight] of kernel.weights) w[dy]![dx + 2] = weight / kernel.divisor;
+  const [, , , r1, r2] = w[0]!;
+  const [a0, a1, a2, a3, a4] = w[1]!;
+  const [b0, b1, b2, b3, b4] = w[2]!;
   const pad = 2;
-  const stride = width + 2 * pad;
-  // Row r of the image uses errors[r % depth]; each row's buffer is cleared as it is recycled.
-  const errors = Array.from({ length: depth }, () => new Float32Array(stride));
-  const taps = kernel.weights.map(([dx, dy, w]) => ({ dx, dy, w: w / kernel.divisor }));
+  let next1 = new Float64Array(width + 2 * pad); // errors for row y + 1
+  let next2 = new Float64Array(width + 2 * pad); // errors for row y + 2
+  let current = new Float64Array(width + 2 * pad);
   const out = new Uint8Array(width * height);
 
   for (let y = 0; y < height; y++) {
-    const current = errors[y % depth]!;
-    const leftToRight = !serpentine || y % 2 === 0;
-    const rowBuffers = taps.map((t) => errors[(y + t.dy) % depth]!);
-    for (let step = 0; step < width; step++) {
-      const x = leftToRight ? step : width - 1 - step;
-      const i = y * width + x;
-      if (mask && mask[i] === 0) {
+    // Rotate the buffers: what was "next" becomes "current"; a cleared buffer becomes row y + 2.
+    const recycled = current;
+    current = next1;
+    next1 = next2;
+    next2 = recycled;
+    next2.fill(0);
+    const row = y * width;
+    const rightward = !serpentine || (y & 1) === 0;
+    const step = rightward ? 1 : -1;
+    let c1 = 0; // error for the next pixel along the scan
+    let c2 = 0; // … and the one after it
+    // Sliding windows over the next two rows: partial sums for the positions 2 and 1 behind,
+    // at, and 1 ahead of the pixel, kept in locals; each position is written once, when final.
+    let u2 = 0, u1 = 0, u0 = 0, uA = 0;
+    let v2 = 0, v1 = 0, v0 = 0, vA = 0;
+    let x = rightward ? 0 : width - 1;
+    for (let n = 0; n < width; n++, x += step) {
+      const i = row + x;
+      let e = 0;
+      if (mask === undefined || mask[i] !== 0) {
+        const value = data[i]! + current[x + pad]! + c1;
+        const white = value > threshold ? 1 : 0;
+        out[i] = white;
+        e = value - 255 * white;
+      } else {
         out[i] = 1;
-        current[x + pad] = 0;
-        continue;
       }
-      const value = data[i]! + current[x + pad]!;
-      const white = value > threshold;
-      out[i] = white ? 1 : 0;
-      const error = value - (white ? 255 : 0);
-      for (let k = 0; k < taps.length; k++) {
-        const t = taps[k]!;
-        const tx = x + (leftToRight ? t.dx : -t.dx);
-        if (tx < 0 || tx >= width) continue;
-        rowBuffers[k]![tx + pad]! += error * t.w;
-      }
+      c1 = c2 + e * r1!;
+      c2 = e * r2!;
+      // Along the scan, "behind" is −step: position x − 2·step gets its last share now.
+      const behind2 = x - 2 * step + pad;
+      next1[behind2]! += u2 + e * a0!;
+      next2[behind2]! += v2 + e * b0!;
+      u2 = u1 + e * a1!;
+      u1 = u0 + e * a2!;
+      u0 = uA + e * a3!;
+      uA = e * a4!;
+      v2 = v1 + e * b1!;
+      v1 = v0 + e * b2!;
+      v0 = vA + e * b3!;
+      vA = e * b4!;
     }
-    current.fill(0);
+    // The last two positions of the row (the rest falls into the padding).
+    const last = x - step; // the final pixel processed
+    next1[last - step + pad]! += u2;
+    next1[last + pad]! += u1;
+    next2[last - step + pad]! += v2;
+    next2[last + pad]! += v1;
   }
   return { width, height, data: out };
 }
