@@ -107,13 +107,17 @@ export function plainBackgroundMask(image: Rgba8, tolerance = 24): Mask {
  * becomes white (nothing burned on a positive), and the returned on/off mask marks where the
  * halftone runs at all. Partial coverage fades the tone towards white, which is the feather.
  */
-export function applyMask(image: GrayF, mask: Mask, background = 255): { image: GrayF; inside: Uint8Array } {
+export function applyMask(image: GrayF, mask: Mask, background = 255): { image: GrayF; inside: Uint8Array | undefined } {
   const out = new Float32Array(image.data.length);
   const inside = new Uint8Array(image.data.length);
+  let outside = 0;
   for (let i = 0; i < out.length; i++) {
     const c = mask.data[i]!;
     out[i] = image.data[i]! * c + background * (1 - c);
-    inside[i] = c > 0.004 ? 1 : 0;
+    const on = c > 0.004 ? 1 : 0;
+    inside[i] = on;
+    outside += 1 - on;
   }
-  return { image: { width: image.width, height: image.height, data: out }, inside };
+  // No pixel outside the subject: no mask, and the halftone takes its faster path.
+  return { image: { width: image.width, height: image.height, data: out }, inside: outside ? inside : undefined };
 }

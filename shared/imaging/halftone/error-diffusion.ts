@@ -18,6 +18,7 @@ export type ErrorDiffusionOptions = {
  * is O(width) whatever the image height; an 80-megapixel file diffuses in a few kilobytes of state.
  */
 export function errorDiffuse(image: GrayF, options: ErrorDiffusionOptions): Bitmap {
+  if (options.kernel === 'floyd-steinberg') return floydSteinberg(image, options);
   const { width, height, data } = image;
   const kernel = DIFFUSION_KERNELS[options.kernel];
   const threshold = options.threshold ?? 127.5;
@@ -84,6 +85,49 @@ export function errorDiffuse(image: GrayF, options: ErrorDiffusionOptions): Bitm
     next1[last + pad]! += u1;
     next2[last - step + pad]! += v2;
     next2[last + pad]! += v1;
+  }
+  return { width, height, data: out };
+}
+
+/**
+ * Floyd–Steinberg on its own: the most used kernel has one next row and four weights, so its
+ * loop keeps everything in locals and writes each error cell once.
+ */
+function floydSteinberg(image: GrayF, options: ErrorDiffusionOptions): Bitmap {
+  const { width, height, data } = image;
+  const threshold = options.threshold ?? 127.5;
+  const serpentine = options.scan === 'serpentine';
+  const mask = options.mask;
+  const out = new Uint8Array(width * height);
+  let current = new Float64Array(width + 2);
+  let next = new Float64Array(width + 2);
+  for (let y = 0; y < height; y++) {
+    const swap = current;
+    current = next;
+    next = swap;
+    const row = y * width;
+    const step = !serpentine || (y & 1) === 0 ? 1 : -1;
+    let x = step === 1 ? 0 : width - 1;
+    let carry = 0; // 7/16 of the previous pixel's error
+    let behind = 0; // partial sum for the next row one pixel back along the scan
+    let here = 0; // … and under the current pixel
+    for (let n = 0; n < width; n++, x += step) {
+      const i = row + x;
+      let e = 0;
+      if (mask === undefined || mask[i] !== 0) {
+        const value = data[i]! + current[x + 1]! + carry;
+        const white = value > threshold ? 1 : 0;
+        out[i] = white;
+        e = value - 255 * white;
+      } else {
+        out[i] = 1;
+      }
+      carry = e * 0.4375; // 7/16
+      next[x - step + 1] = behind + e * 0.1875; // 3/16, now final
+      behind = here + e * 0.3125; // 5/16
+      here = e * 0.0625; // 1/16
+    }
+    next[x - step + 1] = behind; // the last pixel's cell
   }
   return { width, height, data: out };
 }
