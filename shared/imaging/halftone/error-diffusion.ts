@@ -35,15 +35,19 @@ export function errorDiffuse(image: GrayF, options: ErrorDiffusionOptions): Bitm
   let next2 = new Float64Array(width + 2 * pad); // errors for row y + 2
   let current = new Float64Array(width + 2 * pad);
   const out = new Uint8Array(width * height);
+  const allInside = new Uint8Array(width).fill(1);
 
   for (let y = 0; y < height; y++) {
-    // Rotate the buffers: what was "next" becomes "current"; a cleared buffer becomes row y + 2.
+    // Rotate the buffers: what was "next" becomes "current"; the oldest becomes row y + 2, whose
+    // every cell is written (not added to) below, so it needs no clearing.
     const recycled = current;
     current = next1;
     next1 = next2;
     next2 = recycled;
-    next2.fill(0);
     const row = y * width;
+    // One mask row at a time (all ones when nothing is cut out): the test in the loop is then a
+    // plain array read, the same whether or not there is a mask.
+    const inside = mask ? mask.subarray(row, row + width) : allInside;
     const rightward = !serpentine || (y & 1) === 0;
     const step = rightward ? 1 : -1;
     let c1 = 0; // error for the next pixel along the scan
@@ -56,7 +60,7 @@ export function errorDiffuse(image: GrayF, options: ErrorDiffusionOptions): Bitm
     for (let n = 0; n < width; n++, x += step) {
       const i = row + x;
       let e = 0;
-      if (mask === undefined || mask[i] !== 0) {
+      if (inside[x] !== 0) {
         const value = data[i]! + current[x + pad]! + c1;
         const white = value > threshold ? 1 : 0;
         out[i] = white;
@@ -69,7 +73,7 @@ export function errorDiffuse(image: GrayF, options: ErrorDiffusionOptions): Bitm
       // Along the scan, "behind" is −step: position x − 2·step gets its last share now.
       const behind2 = x - 2 * step + pad;
       next1[behind2]! += u2 + e * a0!;
-      next2[behind2]! += v2 + e * b0!;
+      next2[behind2] = v2 + e * b0!;
       u2 = u1 + e * a1!;
       u1 = u0 + e * a2!;
       u0 = uA + e * a3!;
@@ -83,8 +87,8 @@ export function errorDiffuse(image: GrayF, options: ErrorDiffusionOptions): Bitm
     const last = x - step; // the final pixel processed
     next1[last - step + pad]! += u2;
     next1[last + pad]! += u1;
-    next2[last - step + pad]! += v2;
-    next2[last + pad]! += v1;
+    next2[last - step + pad] = v2;
+    next2[last + pad] = v1;
   }
   return { width, height, data: out };
 }
@@ -101,11 +105,13 @@ function floydSteinberg(image: GrayF, options: ErrorDiffusionOptions): Bitmap {
   const out = new Uint8Array(width * height);
   let current = new Float64Array(width + 2);
   let next = new Float64Array(width + 2);
+  const allInside = new Uint8Array(width).fill(1);
   for (let y = 0; y < height; y++) {
     const swap = current;
     current = next;
     next = swap;
     const row = y * width;
+    const inside = mask ? mask.subarray(row, row + width) : allInside;
     const step = !serpentine || (y & 1) === 0 ? 1 : -1;
     let x = step === 1 ? 0 : width - 1;
     let carry = 0; // 7/16 of the previous pixel's error
@@ -114,7 +120,7 @@ function floydSteinberg(image: GrayF, options: ErrorDiffusionOptions): Bitmap {
     for (let n = 0; n < width; n++, x += step) {
       const i = row + x;
       let e = 0;
-      if (mask === undefined || mask[i] !== 0) {
+      if (inside[x] !== 0) {
         const value = data[i]! + current[x + 1]! + carry;
         const white = value > threshold ? 1 : 0;
         out[i] = white;
