@@ -44,6 +44,14 @@ export function adjustTone(image: GrayF, options: ToneOptions): GrayF {
  * become pure black and white. Pixels where `mask` is 0 are not counted.
  */
 export function autoLevels(image: GrayF, clip = 0.005, mask?: Uint8Array): GrayF {
+  const levels = levelsFor(image, clip, mask);
+  return levels ? applyLevels(image, levels) : { ...image, data: image.data.slice() };
+}
+
+export type Levels = { low: number; high: number };
+
+/** The black and white points that clip `clip` of the counted pixels at each end; undefined when flat. */
+export function levelsFor(image: GrayF, clip = 0.005, mask?: Uint8Array): Levels | undefined {
   const histogram = new Float64Array(256);
   let counted = 0;
   for (let i = 0; i < image.data.length; i++) {
@@ -52,13 +60,17 @@ export function autoLevels(image: GrayF, clip = 0.005, mask?: Uint8Array): GrayF
     histogram[v < 0 ? 0 : v > 255 ? 255 : v]!++;
     counted++;
   }
-  if (!counted) return { ...image, data: image.data.slice() };
+  if (!counted) return undefined;
   const cut = counted * clip;
   let low = 0;
   for (let seen = 0; low < 255 && seen + histogram[low]! <= cut; low++) seen += histogram[low]!;
   let high = 255;
   for (let seen = 0; high > 0 && seen + histogram[high]! <= cut; high--) seen += histogram[high]!;
-  if (high <= low) return { ...image, data: image.data.slice() };
+  return high > low ? { low, high } : undefined;
+}
+
+/** Stretches low…high to 0…255. */
+export function applyLevels(image: GrayF, { low, high }: Levels): GrayF {
   const out = new Float32Array(image.data.length);
   for (let i = 0; i < out.length; i++) {
     const v = ((image.data[i]! - low) * 255) / (high - low);

@@ -92,12 +92,12 @@ export async function runImagingBench(photoDir: string): Promise<void> {
   const child = `
     import { readFileSync } from 'node:fs';
     import { placePhoto } from '${join(process.cwd(), 'server/imaging/placement.ts')}';
-    import { prepareGray } from '${join(process.cwd(), 'shared/imaging/pipeline.ts')}';
+    import { prepareMaster } from '${join(process.cwd(), 'shared/imaging/pipeline.ts')}';
     import { encodeGrayscaleMaster } from '${join(process.cwd(), 'server/imaging/grayscale-master.ts')}';
     const t = performance.now();
     const placed = await placePhoto(readFileSync('${jpeg}'), { crop: { left: 800, top: 0, width: 2400, height: 3000 } }, { widthMm: 203.2, heightMm: 254 }, 1000);
-    const { gray, mask } = prepareGray(placed, { negative: false, sharpen: { amount: 150, radius: 3, threshold: 1 } });
-    await encodeGrayscaleMaster(gray, mask, 1000);
+    const master = prepareMaster(placed, { negative: false, sharpen: { amount: 150, radius: 3, threshold: 1 } });
+    await encodeGrayscaleMaster(master, 1000);
     console.log(JSON.stringify({ ms: performance.now() - t, maxRssKb: process.resourceUsage().maxRSS }));`;
   writeFileSync(join(process.cwd(), '.data', 'bench-master.ts'), child);
   const master = JSON.parse(execFileSync(process.execPath, ['--import', 'tsx', join(process.cwd(), '.data', 'bench-master.ts')], { encoding: 'utf8' }).trim().split('\n').pop()!);
