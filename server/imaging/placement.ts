@@ -1,3 +1,4 @@
+import { availableParallelism } from 'node:os';
 import sharp from 'sharp';
 import type { Rgba8 } from '../../shared/imaging/image.ts';
 import { outputSize } from '../../shared/imaging/sizing.ts';
@@ -8,6 +9,9 @@ import { MAX_INPUT_PIXELS } from './photo-decode.ts';
  * rotation (degrees, clockwise; the corners it opens are transparent, so they do not burn) and
  * optional flips; the result fills the area at the line density, resampled with Lanczos-3.
  */
+// libvips picks one thread on a two-core machine; rendering wants them all.
+sharp.concurrency(availableParallelism());
+
 export type Placement = {
   crop: { left: number; top: number; width: number; height: number };
   rotation?: number;

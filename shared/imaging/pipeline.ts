@@ -28,21 +28,43 @@ type PrepOnly = Omit<PrepSettings, 'halftone'> & {
 };
 
 /** The prepared grayscale (before halftoning), with the coverage mask: also the grayscale master. */
-export function prepareGray(photo: Rgba8, settings: PrepOnly): { gray: GrayF; mask: Mask } {
+/**
+ * `mask` is undefined when everything is inside the subject (an opaque photo and no cut-out),
+ * which spares a full-size mask and its pass over the image.
+ */
+export function prepareGray(photo: Rgba8, settings: PrepOnly): { gray: GrayF; mask: Mask | undefined } {
   let gray = rgbaToGray(photo, settings.luma ?? 'bt709');
+  const needsMask = Boolean(settings.cutout?.startMask || settings.cutout?.strokes?.length) || !isOpaque(photo);
+  if (!needsMask) {
+    const levels = settings.levels ?? (settings.autoLevelsClip ? levelsFor(gray, settings.autoLevelsClip) : undefined);
+    if (levels) gray = applyLevels(gray, levels);
+    return { gray: finishGray(gray, settings), mask: undefined };
+  }
   let mask = settings.cutout?.startMask ?? maskFromAlpha(photo);
   if (settings.cutout?.strokes?.length) mask = paintStrokes(mask, settings.cutout.strokes);
   if (settings.cutout?.featherRadius) mask = featherMask(mask, settings.cutout.featherRadius);
   const levels = settings.levels ?? (settings.autoLevelsClip ? levelsFor(gray, settings.autoLevelsClip, toOnOff(mask)) : undefined);
   if (levels) gray = applyLevels(gray, levels);
+  return { gray: finishGray(gray, settings), mask };
+}
+
+/** Tone, sharpening and the negative, in place. */
+function finishGray(gray: GrayF, settings: PrepOnly): GrayF {
   if (settings.tone) gray = adjustTone(gray, settings.tone);
-  if (settings.sharpen && settings.sharpen.amount > 0) gray = unsharpMask(gray, settings.sharpen);
+  if (settings.sharpen && settings.sharpen.amount > 0) gray = unsharpMask(gray, settings.sharpen, { inPlace: true });
   if (settings.negative) gray = invert(gray);
-  return { gray, mask };
+  return gray;
+}
+
+function isOpaque(photo: Rgba8): boolean {
+  const data = photo.data;
+  for (let p = 3; p < data.length; p += 4) if (data[p] !== 255) return false;
+  return true;
 }
 
 export function renderBitmap(photo: Rgba8, settings: PrepSettings): Bitmap {
   const { gray, mask } = prepareGray(photo, settings);
+  if (!mask) return halftone(gray, settings.halftone);
   const { image, inside } = applyMask(gray, mask);
   return halftone(image, { ...settings.halftone, mask: inside });
 }
@@ -69,7 +91,7 @@ export function prepareMaster(photo: Rgba8, settings: PrepOnly, bandRows = 256):
   let levels = settings.levels;
   if (!levels && settings.autoLevelsClip) {
     const whole = prepareGray(photo, { luma: settings.luma, negative: false, cutout: settings.cutout });
-    levels = levelsFor(whole.gray, settings.autoLevelsClip, toOnOff(whole.mask));
+    levels = levelsFor(whole.gray, settings.autoLevelsClip, whole.mask && toOnOff(whole.mask));
   }
   for (let top = 0; top < height; top += bandRows) {
     const from = Math.max(0, top - overlap);
@@ -83,7 +105,7 @@ export function prepareMaster(photo: Rgba8, settings: PrepOnly, bandRows = 256):
     for (let i = 0; i < keepRows * width; i++) {
       const v = Math.round(prepared.gray.data[keepFrom + i]!);
       gray[top * width + i] = v < 0 ? 0 : v > 255 ? 255 : v;
-      const c = prepared.mask.data[keepFrom + i]!;
+      const c = prepared.mask ? prepared.mask.data[keepFrom + i]! : 1;
       alpha[top * width + i] = Math.round((c < 0 ? 0 : c > 1 ? 1 : c) * 255);
     }
   }

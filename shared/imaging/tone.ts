@@ -1,7 +1,7 @@
 import type { GrayF } from './image.ts';
 
 /**
- * Tone adjustments as one lookup per pixel: brightness (−100…100, added in code values × 1.275),
+ * Tone adjustments (in place, like every step after grayscale) as one lookup per pixel: brightness (−100…100, added in code values × 1.275),
  * contrast (−100…100, a slope about mid-grey 127.5), gamma (> 0; output = 255·(v/255)^(1/γ), so
  * γ > 1 lightens mid-tones), then an optional tone curve for the material's mark response.
  */
@@ -33,19 +33,30 @@ function applyCurve(x: number, curve: Array<[number, number]>): number {
   return points[points.length - 1]![1];
 }
 
+/** Adjusts in place through a 4096-step lookup table (values are code values 0–255). */
 export function adjustTone(image: GrayF, options: ToneOptions): GrayF {
-  const out = new Float32Array(image.data.length);
-  for (let i = 0; i < out.length; i++) out[i] = toneValue(image.data[i]!, options);
-  return { width: image.width, height: image.height, data: out };
+  const steps = 4096;
+  const table = new Float32Array(steps + 1);
+  for (let s = 0; s <= steps; s++) table[s] = toneValue((s * 255) / steps, options);
+  const data = image.data;
+  for (let i = 0; i < data.length; i++) {
+    const v = data[i]!;
+    const at = ((v < 0 ? 0 : v > 255 ? 255 : v) * steps) / 255;
+    const k = Math.floor(at);
+    const f = at - k;
+    data[i] = k >= steps ? table[steps]! : table[k]! * (1 - f) + table[k + 1]! * f;
+  }
+  return image;
 }
 
 /**
  * Auto-levels: stretches the values so that `clip` of the pixels (e.g. 0.005 = 0.5 %) at each end
  * become pure black and white. Pixels where `mask` is 0 are not counted.
  */
+/** Auto-levels in place. */
 export function autoLevels(image: GrayF, clip = 0.005, mask?: Uint8Array): GrayF {
   const levels = levelsFor(image, clip, mask);
-  return levels ? applyLevels(image, levels) : { ...image, data: image.data.slice() };
+  return levels ? applyLevels(image, levels) : image;
 }
 
 export type Levels = { low: number; high: number };
@@ -69,19 +80,19 @@ export function levelsFor(image: GrayF, clip = 0.005, mask?: Uint8Array): Levels
   return high > low ? { low, high } : undefined;
 }
 
-/** Stretches low…high to 0…255. */
+/** Stretches low…high to 0…255, in place. */
 export function applyLevels(image: GrayF, { low, high }: Levels): GrayF {
-  const out = new Float32Array(image.data.length);
+  const out = image.data;
   for (let i = 0; i < out.length; i++) {
     const v = ((image.data[i]! - low) * 255) / (high - low);
     out[i] = v < 0 ? 0 : v > 255 ? 255 : v;
   }
-  return { width: image.width, height: image.height, data: out };
+  return image;
 }
 
-/** Negative, for materials where the mark is lighter than the surface. */
+/** Negative, in place, for materials where the mark is lighter than the surface. */
 export function invert(image: GrayF): GrayF {
-  const out = new Float32Array(image.data.length);
-  for (let i = 0; i < out.length; i++) out[i] = 255 - image.data[i]!;
-  return { width: image.width, height: image.height, data: out };
+  const data = image.data;
+  for (let i = 0; i < data.length; i++) data[i] = 255 - data[i]!;
+  return image;
 }

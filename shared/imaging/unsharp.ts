@@ -15,10 +15,10 @@ export type UnsharpOptions = {
   threshold: number;
 };
 
-/** The formula on its own, given the blurred image: results are clamped to 0–255. */
-export function applyUnsharp(original: GrayF, blurred: GrayF, amount: number, threshold: number): GrayF {
+/** The formula on its own, given the blurred image: results are clamped to 0–255. Writes into `into` (a new image by default). */
+export function applyUnsharp(original: GrayF, blurred: GrayF, amount: number, threshold: number, into: Float32Array = new Float32Array(original.data.length)): GrayF {
   const k = amount / 100;
-  const out = new Float32Array(original.data.length);
+  const out = into;
   for (let i = 0; i < out.length; i++) {
     const f = original.data[i]!;
     const diff = f - blurred.data[i]!;
@@ -28,7 +28,9 @@ export function applyUnsharp(original: GrayF, blurred: GrayF, amount: number, th
   return { width: original.width, height: original.height, data: out };
 }
 
-export function unsharpMask(image: GrayF, options: UnsharpOptions): GrayF {
+/** Sharpens; `inPlace` writes the result over the input (the pipeline's way, to spare memory). */
+export function unsharpMask(image: GrayF, options: UnsharpOptions, { inPlace = false } = {}): GrayF {
   if (options.amount < 0 || options.amount > 500) throw new RangeError('amount must be 0–500 %');
-  return applyUnsharp(image, gaussianBlur(image, options.radius), options.amount, options.threshold);
+  const blurred = gaussianBlur(image, options.radius);
+  return applyUnsharp(image, blurred, options.amount, options.threshold, inPlace ? image.data : blurred.data);
 }
