@@ -4,5 +4,5 @@ import { projectDir } from './stack/stack.ts';
 import { runImagingBench } from '../../tests/bench/imaging-bench.ts';
 
 /** `npm run bench`: installs the reference programs when missing, then prints the tables. */
-await ensureReferenceTools({ imagemagick: true });
+await ensureReferenceTools({ imagemagick: true, chromium: true });
 await runImagingBench(join(projectDir, '.data', 'reference-photos'));

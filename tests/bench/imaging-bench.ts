@@ -8,6 +8,7 @@ import type { GrayF } from '../../shared/imaging/image.ts';
 import { renderBitmap } from '../../shared/imaging/pipeline.ts';
 import { placePhoto } from '../../server/imaging/placement.ts';
 import { encodeBitmapPng } from '../../server/imaging/png-1bit.ts';
+import { measureMockupInChromium } from './mockup-bench.ts';
 
 /**
  * Imaging benchmarks, ours beside reference programs on the same pixels and the same machine.
@@ -102,6 +103,7 @@ export async function runImagingBench(photoDir: string): Promise<void> {
   writeFileSync(join(process.cwd(), '.data', 'bench-master.ts'), child);
   const master = JSON.parse(execFileSync(process.execPath, ['--import', 'tsx', join(process.cwd(), '.data', 'bench-master.ts')], { encoding: 'utf8' }).trim().split('\n').pop()!);
   row('Grayscale master, 8 × 10 in at 1000 ppi: seconds / peak RSS', `${(master.ms / 1000).toFixed(2)} s / ${(master.maxRssKb / 1024).toFixed(0)} MB`, 'target ≤ 5 s / ≤ 700 MB');
-  row('Mock-up re-render in Chromium at 800 × 1000, ms per change', 'not measured yet', 'needs the designer’s Web Worker');
+  const mockup = await measureMockupInChromium(process.cwd(), photo);
+  row('Mock-up re-render in Chromium at 800 × 1000, median ms per change', mockup.medianMs.toFixed(0), `target ≤ 50 (median of ${mockup.runs})`);
   rmSync(work, { recursive: true, force: true });
 }
