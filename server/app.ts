@@ -18,6 +18,8 @@ import { accountsRouter } from './features/accounts/accounts.router.ts';
 import { teamRoutes } from './features/team/team.routes.ts';
 import { invitesRouter } from './features/team/invites.router.ts';
 import { platformRouter } from './features/platform/platform.router.ts';
+import { catalogRoutes } from './features/catalog/catalog.routes.ts';
+import { storefrontCatalogRouter } from './features/catalog/storefront-catalog.router.ts';
 
 export type AppDeps = {
   env: Env;
@@ -29,7 +31,7 @@ export type AppDeps = {
 
 /** Every route under /api/studios/:studioSlug, from every feature. The isolation tests walk this list. */
 export function workspaceRoutes(deps: AppDeps): WorkspaceRoute[] {
-  return [...studioRoutes(), ...teamRoutes(deps)];
+  return [...studioRoutes(), ...teamRoutes(deps), ...catalogRoutes(deps)];
 }
 
 /** Builds the Express app. It never listens: server/index.ts does, and tests use it directly. */
@@ -76,6 +78,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/health', healthRouter({ orm, version: deps.version }));
   app.use('/api/auth', deps.auth.router);
   app.use('/api/storefront', storefrontRouter({ orm }));
+  app.use('/api/storefront', storefrontCatalogRouter({ orm }));
   app.use('/api', accountsRouter(deps));
   app.use('/api/invites', invitesRouter(deps));
   app.use('/api/platform', platformRouter(deps));

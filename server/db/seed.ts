@@ -4,7 +4,11 @@ import { User } from '../features/accounts/user.entity.ts';
 import { Membership } from '../features/team/membership.entity.ts';
 import { hashPassword } from '../auth/password.ts';
 import { withoutTenantFilter } from './tenant.ts';
-import { DEMO_PASSWORD, demoPeople, demoStudios } from './demo-scenario.ts';
+import { DEMO_PASSWORD, demoCatalog, demoPeople, demoStudios } from './demo-scenario.ts';
+import { Blank, BlankSize, Machine, Material, Recipe } from '../features/catalog/catalog.entity.ts';
+import { addMaterialLibrary } from '../features/catalog/catalog.service.ts';
+import { EXAMPLE_GLASS_RECIPE, MATERIAL_LIBRARY } from '../features/catalog/material-library.ts';
+import { TENANT_FILTER } from './tenant.ts';
 
 /**
  * Puts the demo scenario in the database. Idempotent: what exists is left as it is (a studio
@@ -43,6 +47,33 @@ export async function seedDemo(em: EntityManager): Promise<number> {
         added++;
       }
     }
+    for (const studio of studios.values()) added += await seedDemoCatalog(tx, studio);
+  });
+  return added;
+}
+
+/** A demo studio's catalog, once: the library, a machine, a recipe, blanks with sizes. */
+async function seedDemoCatalog(em: EntityManager, studio: Studio): Promise<number> {
+  const scoped = { filters: { [TENANT_FILTER]: { studioId: studio.id } } };
+  if (await em.count(Material, { studio }, scoped)) return 0;
+  const plan = demoCatalog[studio.slug as keyof typeof demoCatalog];
+  const materials = addMaterialLibrary(em, studio);
+  let added = materials.length;
+  if (!plan) return added;
+  const byName = (name: string) => materials.find((m) => m.name === name)!;
+  const machine = em.create(Machine, { ...plan.machine, studio });
+  const recipeMaterial = byName(plan.recipeMaterial);
+  const suggestion = MATERIAL_LIBRARY.find((m) => m.name === plan.recipeMaterial)!;
+  const recipe =
+    plan.recipeMaterial === 'Black-backed (painted) glass'
+      ? { ...EXAMPLE_GLASS_RECIPE, notes: 'The example recipe from trade practice.' }
+      : { linesPerInch: suggestion.suggestedLinesPerInch, halftoneMethod: suggestion.suggestedHalftone, tone: suggestion.defaultTone, speed: 300, powerMinPercent: 20, powerMaxPercent: 35, passes: 1, notes: '' };
+  em.create(Recipe, { ...recipe, material: recipeMaterial, machine, studio });
+  added += 2;
+  plan.blanks.forEach((b, index) => {
+    const blank = em.create(Blank, { name: b.name, description: b.description, material: byName(b.material), shape: b.shape, status: 'active', sortOrder: index, studio });
+    for (const size of b.sizes) em.create(BlankSize, { ...size, stock: size.stock, blank, studio });
+    added += 1 + b.sizes.length;
   });
   return added;
 }

@@ -20,7 +20,15 @@ export type WorkspaceRoute = {
 };
 
 /** What the isolation tests give a route's sample: ids of records in the studio under test. */
-export type WorkspaceFixtures = { studioId: string; ownerId: string; staffId: string; makeMember(): Promise<string>; makeInvite(): Promise<string> };
+export type WorkspaceFixtures = {
+  studioId: string;
+  ownerId: string;
+  staffId: string;
+  makeMember(): Promise<string>;
+  makeInvite(): Promise<string>;
+  /** A fresh catalog record of the studio under test; returns its id. */
+  catalog(kind: 'material' | 'machine' | 'recipe' | 'blank' | 'size'): Promise<string>;
+};
 
 export function workspaceRouter({ auth, orm, routes }: { auth: Auth; orm: Orm; routes: WorkspaceRoute[] }): Router {
   const router = Router({ mergeParams: true });

@@ -4,8 +4,10 @@ import { can, ROLES } from '../../shared/permissions.ts';
 import { workspaceRoutes, type AppDeps } from '../../server/app.ts';
 import type { WorkspaceFixtures, WorkspaceRoute } from '../../server/middleware/workspace-routes.ts';
 import { Invite } from '../../server/features/team/invite.entity.ts';
-import type { Studio } from '../../server/features/studios/studio.entity.ts';
+import { Studio } from '../../server/features/studios/studio.entity.ts';
 import { useTestApp } from '../support/test-app.ts';
+import * as catalog from '../../server/features/catalog/catalog.service.ts';
+import { TENANT_FILTER } from '../../server/db/tenant.ts';
 import { agentFor, createMember, createStudio, createUser } from '../support/factories.ts';
 
 /**
@@ -41,6 +43,23 @@ describe('workspace isolation matrix', () => {
         const invite = fork.create(Invite, { studio: studioA.id, email: `i-${Math.random()}@example.com`, role: 'staff', tokenHash: Math.random().toString(16).slice(2).padEnd(64, '0'), expiresAt: new Date(Date.now() + 86_400_000), invitedBy: null });
         await fork.flush();
         return invite.id;
+      },
+      catalog: async (kind) => {
+        const fork = t.orm.em.fork();
+        fork.setFilterParams(TENANT_FILTER, { studioId: studioA.id });
+        const studio = await fork.findOneOrFail(Studio, { id: studioA.id });
+        const unique = Math.random().toString(36).slice(2);
+        const material = () => catalog.createMaterial(fork, studio, { name: `M ${unique}`, family: 'stone', surfaceColour: '#333333', markColour: '#cccccc', defaultTone: 'negative', linesPerInchMin: 250, linesPerInchMax: 330, safetyNotes: '', forbiddenOn: [], forbiddenReason: '' });
+        const machine = () => catalog.createMachine(fork, studio, { name: `K ${unique}`, laserKind: 'co2', powerWatts: 60, bedWidthMm: 600, bedHeightMm: 400, speedUnit: 'mm/s', notes: '' });
+        if (kind === 'material') return (await material()).id;
+        if (kind === 'machine') return (await machine()).id;
+        if (kind === 'recipe') {
+          const [m, k] = [await material(), await machine()];
+          return (await catalog.createRecipe(fork, studio, { materialId: m.id, machineId: k.id, linesPerInch: 300, halftoneMethod: 'stucki', tone: 'negative', speed: 100, powerMinPercent: 5, powerMaxPercent: 10, passes: 1, notes: '' })).id;
+        }
+        const blank = await catalog.createBlank(fork, studio, { name: 'B', description: '', materialId: (await material()).id, shape: 'oval', status: 'draft', sortOrder: 0 });
+        if (kind === 'blank') return blank.id;
+        return (await catalog.addSize(fork, studio, blank.id, { label: 'S', outerWidthMm: 100, outerHeightMm: 100, areaWidthMm: 90, areaHeightMm: 90, orientation: 'either', priceMinor: 100, stock: 3, sku: '' })).id;
       },
     };
   });

@@ -11,6 +11,7 @@ import { Membership } from '../team/membership.entity.ts';
 import { User } from './user.entity.ts';
 import { queueEmail } from '../outbox/outbox.service.ts';
 import { verifyEmailMail } from './accounts-mail.ts';
+import { addMaterialLibrary } from '../catalog/catalog.service.ts';
 
 /** Addresses the app itself uses or might: never a studio's. */
 const RESERVED_SLUGS = new Set(['admin', 'api', 'app', 'auth', 'etchwell', 'help', 'invites', 'platform', 'settings', 'sign-in', 'sign-up', 'static', 'studio', 'studios', 'support', 'www']);
@@ -26,8 +27,8 @@ export async function checkSlug(em: EntityManager, slug: string): Promise<SlugAv
 const VERIFY_DAYS = 7;
 
 /**
- * Opens a studio: the studio, its first owner (a new account with a password) and the owner's
- * membership, in one transaction, with the e-mail that asks the owner to confirm the address.
+ * Opens a studio: the studio, its first owner (a new account with a password), the owner's
+ * membership and the studio's own copy of the materials library, in one transaction, with the e-mail that asks the owner to confirm the address.
  */
 export async function openStudio(em: EntityManager, input: OpenStudioInput, appUrl: string): Promise<{ studio: Studio; user: User }> {
   const availability = await checkSlug(em, input.slug);
@@ -44,6 +45,7 @@ export async function openStudio(em: EntityManager, input: OpenStudioInput, appU
     const user = tx.create(User, { email: input.email, name: input.ownerName, passwordHash });
     const studio = tx.create(Studio, { slug: input.slug, name: input.studioName, contactEmail: input.email });
     tx.create(Membership, { studio, user, role: 'owner' });
+    addMaterialLibrary(tx, studio);
     tx.create(VerificationToken, { identifier: `verify:${user.email}`, token: hash, expires: new Date(Date.now() + VERIFY_DAYS * 86_400_000) });
     const url = `${appUrl}/api/accounts/verify-email?token=${token}`;
     queueEmail(tx, { to: user.email, ...verifyEmailMail({ name: input.ownerName, studioName: studio.name, url }) });

@@ -1,0 +1,155 @@
+import { beforeAll, describe, expect, it } from 'vitest';
+import request from 'supertest';
+import { seedDemo } from '../../server/db/seed.ts';
+import { TENANT_FILTER } from '../../server/db/tenant.ts';
+import { Blank, BlankSize, Machine, Recipe } from '../../server/features/catalog/catalog.entity.ts';
+import { snapshotForOrder } from '../../server/features/catalog/catalog.service.ts';
+import { Studio } from '../../server/features/studios/studio.entity.ts';
+import { useTestApp } from '../support/test-app.ts';
+import { agentFor, createMember } from '../support/factories.ts';
+
+describe('catalog', () => {
+  const t = useTestApp();
+  let owner: ReturnType<typeof request.agent>;
+  let materials: Array<{ id: string; name: string; defaultTone: string; linesPerInchMin: number; linesPerInchMax: number; forbiddenOn: string[]; forbiddenReason: string }>;
+  const base = '/api/studios/copper-kiln/catalog';
+
+  beforeAll(async () => {
+    // A studio opened through the API, so it starts with the library as a real one does.
+    await request(t.app).post('/api/accounts/studios').send({ studioName: 'Copper Kiln', slug: 'copper-kiln', ownerName: 'Ada Kiln', email: 'ada@copper-kiln.test', password: 'a long password here' }).expect(201);
+    owner = request.agent(t.app);
+    const csrf = await owner.get('/api/auth/csrf');
+    await owner.post('/api/auth/callback/credentials').type('form').send({ csrfToken: csrf.body.csrfToken, email: 'ada@copper-kiln.test', password: 'a long password here' });
+    materials = (await owner.get(`${base}/materials`).expect(200)).body.materials;
+  });
+
+  const named = (name: string) => materials.find((m) => m.name === name)!;
+
+  it('starts every new studio with the materials library', () => {
+    for (const name of ['Black-backed (painted) glass', 'Clear glass', 'Slate', 'Black granite', 'Black marble', 'Maple', 'Walnut', 'Alder', 'Bamboo', 'Cork', 'Genuine leather', 'Black anodised aluminium', 'Powder-coated stainless (tumblers)', 'Cast acrylic', 'Mirror acrylic']) {
+      expect(named(name), name).toBeDefined();
+    }
+  });
+
+  it('uses trade defaults for tone and line density (common practice, no single source)', () => {
+    // Painted glass, slate, black granite and marble, dark anodised aluminium burn as negatives;
+    // wood burns dark: positive. Glass 300–360 lines per inch, granite about 250–260.
+    for (const name of ['Black-backed (painted) glass', 'Slate', 'Black granite', 'Black marble', 'Black anodised aluminium']) expect(named(name).defaultTone, name).toBe('negative');
+    for (const name of ['Maple', 'Walnut', 'Alder', 'Bamboo']) expect(named(name).defaultTone, name).toBe('positive');
+    expect(named('Black-backed (painted) glass')).toMatchObject({ linesPerInchMin: 300, linesPerInchMax: 360 });
+    expect(named('Black granite')).toMatchObject({ linesPerInchMin: 250, linesPerInchMax: 260 });
+  });
+
+  it('marks materials that must never go on a CO2 laser, with the reason', () => {
+    for (const name of ['PVC and vinyl', 'Faux leather', 'PTFE (Teflon)', 'ABS', 'Polycarbonate', 'Fibreglass', 'Carbon fibre']) {
+      expect(named(name).forbiddenOn, name).toContain('co2');
+      expect(named(name).forbiddenReason.length, name).toBeGreaterThan(10);
+    }
+    expect(named('PVC and vinyl').forbiddenReason).toMatch(/chlorine/);
+  });
+
+  it('refuses a recipe for a forbidden material on that laser kind, saying why', async () => {
+    const machine = (await owner.post(`${base}/machines`).send({ name: 'CO2 60 W', laserKind: 'co2', powerWatts: 60, bedWidthMm: 600, bedHeightMm: 400, speedUnit: 'mm/s' }).expect(201)).body;
+    const res = await owner
+      .post(`${base}/recipes`)
+      .send({ materialId: named('PVC and vinyl').id, machineId: machine.id, linesPerInch: 254, halftoneMethod: 'floyd-steinberg', tone: 'positive', speed: 200, powerMinPercent: 10, powerMaxPercent: 20, passes: 1 })
+      .expect(400);
+    expect(res.body.issues[0].path).toEqual(['materialId']);
+    expect(res.body.message).toMatch(/PVC and vinyl must never be engraved on a CO2 laser: .*chlorine/);
+    // The same machine takes painted glass; a second recipe for the same pair is a conflict.
+    const good = { materialId: named('Black-backed (painted) glass').id, machineId: machine.id, linesPerInch: 360, halftoneMethod: 'jarvis-judice-ninke', tone: 'negative', speed: 5, powerMinPercent: 10, powerMaxPercent: 14.5, passes: 1 };
+    await owner.post(`${base}/recipes`).send(good).expect(201);
+    expect((await owner.post(`${base}/recipes`).send(good).expect(409)).body.issues[0].path).toEqual(['machineId']);
+  });
+
+  // Validation matrix: each bad field answers 400 naming that field, nothing is written.
+  const goodMachine = { name: 'M', laserKind: 'co2', powerWatts: 40, bedWidthMm: 500, bedHeightMm: 300, speedUnit: 'mm/s' };
+  const goodSize = { label: '5 × 7 in', outerWidthMm: 127, outerHeightMm: 177.8, areaWidthMm: 114, areaHeightMm: 165, orientation: 'either', priceMinor: 4900, stock: 10 };
+  it.each([
+    ['machines', goodMachine, { laserKind: 'plasma' }, 'laserKind'],
+    ['machines', goodMachine, { powerWatts: -5 }, 'powerWatts'],
+    ['machines', goodMachine, { speedUnit: 'rpm' }, 'speedUnit'],
+    ['machines', goodMachine, { name: '' }, 'name'],
+    ['materials', { name: 'X', family: 'stone', surfaceColour: '#000000', markColour: '#ffffff', defaultTone: 'negative', linesPerInchMin: 250, linesPerInchMax: 300 }, { surfaceColour: 'black' }, 'surfaceColour'],
+    ['materials', { name: 'X', family: 'stone', surfaceColour: '#000000', markColour: '#ffffff', defaultTone: 'negative', linesPerInchMin: 250, linesPerInchMax: 300 }, { linesPerInchMax: 200 }, 'linesPerInchMax'],
+    ['materials', { name: 'X', family: 'stone', surfaceColour: '#000000', markColour: '#ffffff', defaultTone: 'negative', linesPerInchMin: 250, linesPerInchMax: 300 }, { forbiddenOn: ['co2'] }, 'forbiddenReason'],
+  ])('%s: a bad field (%j + %j) answers 400 on %s', async (resource, good, change, field) => {
+    await owner.post(`${base}/${resource}`).send(good).expect(201).catch(() => undefined);
+    const res = await owner.post(`${base}/${resource}`).send({ ...good, name: `${(good as { name: string }).name}-${Math.random()}`, ...change }).expect(400);
+    expect(res.body.issues.map((i: { path: string[] }) => i.path[0])).toEqual([field]);
+  });
+
+  it.each([
+    [{ linesPerInch: 90 }, 'linesPerInch'],
+    [{ linesPerInch: 1300 }, 'linesPerInch'],
+    [{ powerMaxPercent: 5 }, 'powerMaxPercent'],
+    [{ powerMinPercent: -1 }, 'powerMinPercent'],
+    [{ halftoneMethod: 'sparkles' }, 'halftoneMethod'],
+    [{ passes: 0 }, 'passes'],
+  ])('recipes: %j answers 400 on %s', async (change, field) => {
+    const machine = (await owner.post(`${base}/machines`).send(goodMachine).expect(201)).body;
+    const res = await owner
+      .post(`${base}/recipes`)
+      .send({ materialId: named('Slate').id, machineId: machine.id, linesPerInch: 300, halftoneMethod: 'stucki', tone: 'negative', speed: 100, powerMinPercent: 10, powerMaxPercent: 20, passes: 1, ...change })
+      .expect(400);
+    expect(res.body.issues.map((i: { path: string[] }) => i.path[0])).toEqual([field]);
+  });
+
+  it.each([
+    [{ areaWidthMm: 200 }, 'areaWidthMm'],
+    [{ priceMinor: 49.5 }, 'priceMinor'],
+    [{ priceMinor: -1 }, 'priceMinor'],
+    [{ stock: -2 }, 'stock'],
+    [{ orientation: 'sideways' }, 'orientation'],
+  ])('sizes: %j answers 400 on %s', async (change, field) => {
+    const blank = (await owner.post(`${base}/blanks`).send({ name: 'Glass', materialId: named('Clear glass').id, shape: 'oval' }).expect(201)).body;
+    const res = await owner.post(`${base}/blanks/${blank.id}/sizes`).send({ ...goodSize, ...change }).expect(400);
+    expect(res.body.issues.map((i: { path: string[] }) => i.path[0])).toEqual([field]);
+  });
+
+  it('shows buyers only active blanks, with prices in the studio’s currency and a stock state', async () => {
+    const active = (await owner.post(`${base}/blanks`).send({ name: 'Granite heart', materialId: named('Black granite').id, shape: 'circle', status: 'active' }).expect(201)).body;
+    await owner.post(`${base}/blanks/${active.id}/sizes`).send({ ...goodSize, priceMinor: 3500, stock: 2 }).expect(201);
+    await owner.post(`${base}/blanks`).send({ name: 'Hidden draft', materialId: named('Slate').id, shape: 'circle', status: 'draft' }).expect(201);
+    const listed = (await request(t.app).get('/api/storefront/copper-kiln/blanks').expect(200)).body;
+    expect(listed.open).toBe(true);
+    expect(listed.blanks.map((b: { name: string }) => b.name)).toEqual(['Granite heart']);
+    expect(listed.blanks[0].sizes[0]).toMatchObject({ price: '$35.00', stock: 'few-left', areaWidthMm: 114 });
+    expect(listed.blanks[0].material.notes).toMatch(/Stone dust/);
+  });
+
+  it('sells nothing while the studio is suspended', async () => {
+    const em = t.orm.em.fork();
+    await em.nativeUpdate(Studio, { slug: 'copper-kiln' }, { status: 'suspended' });
+    expect((await request(t.app).get('/api/storefront/copper-kiln/blanks').expect(200)).body).toEqual({ open: false, blanks: [] });
+    await em.nativeUpdate(Studio, { slug: 'copper-kiln' }, { status: 'active' });
+  });
+
+  it('keeps an order’s copy of blank, size and recipe when the catalog changes later', async () => {
+    const em = t.orm.em.fork();
+    const studio = await em.findOneOrFail(Studio, { slug: 'copper-kiln' });
+    em.setFilterParams(TENANT_FILTER, { studioId: studio.id });
+    const blank = await em.findOneOrFail(Blank, { name: 'Granite heart' }, { populate: ['material', 'sizes'] });
+    const size = blank.sizes.getItems()[0]!;
+    const recipe = await em.findOneOrFail(Recipe, { material: { name: 'Black-backed (painted) glass' } });
+    const snapshot = snapshotForOrder(blank, size, recipe);
+    await owner.put(`${base}/sizes/${size.id}`).send({ ...goodSize, label: 'Renamed', priceMinor: 9900, stock: 1 }).expect(200);
+    await owner.put(`${base}/recipes/${recipe.id}`).send({ materialId: named('Black-backed (painted) glass').id, machineId: (recipe.machine as Machine).id, linesPerInch: 300, halftoneMethod: 'stucki', tone: 'negative', speed: 9, powerMinPercent: 20, powerMaxPercent: 30, passes: 2 }).expect(200);
+    expect(snapshot.size).toMatchObject({ label: '5 × 7 in', priceMinor: 3500 });
+    expect(snapshot.recipe).toMatchObject({ linesPerInch: 360, speed: 5, powerMaxPercent: 14.5 });
+    const fresh = await t.orm.em.fork().findOneOrFail(BlankSize, { id: size.id }, { filters: { [TENANT_FILTER]: { studioId: studio.id } } });
+    expect(fresh.priceMinor).toBe(9900);
+  });
+
+  it('gives the demo studios the example recipe from trade practice: painted glass, 100 W CO2, speed 5, power 10–14.5 %', async () => {
+    await seedDemo(t.orm.em.fork());
+    const em = t.orm.em.fork();
+    const studio = await em.findOneOrFail(Studio, { slug: 'harbour-light' });
+    const recipe = await em.findOneOrFail(Recipe, { studio }, { populate: ['material', 'machine'], filters: { [TENANT_FILTER]: { studioId: studio.id } } });
+    expect(recipe.material.name).toBe('Black-backed (painted) glass');
+    expect(recipe.machine).toMatchObject({ laserKind: 'co2', powerWatts: 100 });
+    expect(recipe).toMatchObject({ linesPerInch: 360, halftoneMethod: 'jarvis-judice-ninke', tone: 'negative', speed: 5, powerMinPercent: 10, powerMaxPercent: 14.5 });
+    const staff = await agentFor(t.app, (await createMember(t.orm.em.fork(), studio, 'staff')).user);
+    expect((await staff.get('/api/studios/harbour-light/catalog/blanks').expect(200)).body.blanks.length).toBe(2);
+  });
+});
