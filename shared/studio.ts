@@ -16,5 +16,7 @@ export const publicStudioSchema = z.object({
   name: z.string(),
   accentColour: z.string().regex(/^#[0-9a-f]{6}$/i),
   status: studioStatusSchema,
+  currency: z.string().length(3),
+  units: z.enum(['in', 'mm']),
 });
 export type PublicStudio = z.infer<typeof publicStudioSchema>;

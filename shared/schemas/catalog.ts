@@ -86,3 +86,30 @@ export const sizeInputSchema = z
   .refine((s) => s.areaWidthMm <= s.outerWidthMm, { path: ['areaWidthMm'], message: 'The engraving area must fit inside the blank.' })
   .refine((s) => s.areaHeightMm <= s.outerHeightMm, { path: ['areaHeightMm'], message: 'The engraving area must fit inside the blank.' });
 export type SizeInput = z.infer<typeof sizeInputSchema>;
+
+/** What a storefront shows of a studio's catalog. */
+export const storefrontCatalogSchema = z.object({
+  open: z.boolean(),
+  blanks: z.array(
+    z.object({
+      id: z.uuid(),
+      name: z.string(),
+      description: z.string(),
+      shape: z.enum(BLANK_SHAPES),
+      material: z.object({ name: z.string(), family: z.string(), surfaceColour: z.string(), markColour: z.string(), notes: z.string() }),
+      sizes: z.array(
+        z.object({
+          id: z.uuid(),
+          label: z.string(),
+          areaWidthMm: z.number(),
+          areaHeightMm: z.number(),
+          orientation: z.enum(['portrait', 'landscape', 'either']),
+          priceMinor: z.number().int(),
+          price: z.string(),
+          stock: z.enum(['in-stock', 'few-left', 'sold-out']),
+        }),
+      ),
+    }),
+  ),
+});
+export type StorefrontCatalog = z.infer<typeof storefrontCatalogSchema>;

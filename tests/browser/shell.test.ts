@@ -28,7 +28,10 @@ describe('client shell in Chromium', () => {
     await expect.poll(() => page.getByRole('heading', { level: 1 }).textContent()).toBe('Harbour Light Engraving');
     const accent = await page.evaluate(() => getComputedStyle(document.querySelector('header')!).borderBottomColor);
     expect(accent).toBe('rgb(31, 111, 139)'); // #1f6f8b, the demo studio's accent
-    await page.screenshot({ path: join(screenshotDir, 'storefront.png') });
+    // The demo catalog: active blanks with sizes and prices in the studio's currency.
+    await expect.poll(() => page.getByRole('heading', { name: 'Black-backed glass portrait' }).count()).toBe(1);
+    expect(await page.getByText('$69.00').count()).toBe(1);
+    await page.screenshot({ path: join(screenshotDir, 'storefront.png'), fullPage: true });
     expect(problems).toEqual([]);
     await page.close();
   });

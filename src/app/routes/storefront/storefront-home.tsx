@@ -1,6 +1,8 @@
 import type { CSSProperties } from 'react';
 import { useParams } from 'react-router-dom';
 import { usePublicStudio } from '../../../features/storefront/api/get-studio.ts';
+import { useStorefrontCatalog } from '../../../features/storefront/api/get-catalog.ts';
+import { BlankList } from '../../../features/storefront/components/blank-list.tsx';
 import { Notice } from '../../../components/ui/notice.tsx';
 import { NotFoundPage } from '../not-found.tsx';
 import { AppError } from '../../../../shared/errors.ts';
@@ -9,6 +11,7 @@ import { AppError } from '../../../../shared/errors.ts';
 export function StorefrontHomePage() {
   const { studioSlug = '' } = useParams();
   const studio = usePublicStudio(studioSlug);
+  const catalog = useStorefrontCatalog(studioSlug);
 
   if (studio.isPending) return <p className="p-10 text-graphite-500">Opening the storefront…</p>;
   if (studio.error) {
@@ -22,7 +25,7 @@ export function StorefrontHomePage() {
     );
   }
 
-  const { name, accentColour, status } = studio.data;
+  const { name, accentColour, status, units } = studio.data;
   return (
     <div style={{ '--color-accent': accentColour } as CSSProperties} className="min-h-screen">
       <header className="border-b-4 border-accent bg-white">
@@ -37,10 +40,13 @@ export function StorefrontHomePage() {
           </Notice>
         ) : (
           <section aria-labelledby="for-sale">
-            <h2 id="for-sale" className="mb-2 text-xl font-bold">
+            <h2 id="for-sale" className="mb-6 text-xl font-bold">
               Photo engraving by {name}
             </h2>
-            <p className="text-graphite-600">This studio has nothing for sale yet. Please come back soon.</p>
+            {catalog.isPending && <p className="text-graphite-500">Loading what this studio makes…</p>}
+            {catalog.error && <Notice tone="error">{catalog.error.message}</Notice>}
+            {catalog.data && catalog.data.blanks.length === 0 && <p className="text-graphite-600">This studio has nothing for sale yet. Please come back soon.</p>}
+            {catalog.data && catalog.data.blanks.length > 0 && <BlankList blanks={catalog.data.blanks} units={units} />}
           </section>
         )}
       </main>

@@ -1,0 +1,51 @@
+import type { StorefrontCatalog } from '../../../../shared/schemas/catalog.ts';
+import { Card } from '../../../components/ui/card.tsx';
+
+const stockWords = { 'in-stock': 'In stock', 'few-left': 'Only a few left', 'sold-out': 'Sold out' } as const;
+const shapeRadius = { rectangle: '6px', 'rounded-rectangle': '18px', oval: '50% / 40%', circle: '50%' } as const;
+
+/** The blanks a studio sells, each with its material's colours, sizes and prices. */
+export function BlankList({ blanks, units }: { blanks: StorefrontCatalog['blanks']; units: 'in' | 'mm' }) {
+  const size = (mm: number) => (units === 'in' ? `${(mm / 25.4).toFixed(1)} in` : `${Math.round(mm)} mm`);
+  return (
+    <ul className="grid gap-5 sm:grid-cols-2 lg:grid-cols-3">
+      {blanks.map((blank) => (
+        <li key={blank.id}>
+          <Card className="flex h-full flex-col gap-4">
+            <div
+              aria-hidden
+              className="mx-auto flex h-32 w-28 items-center justify-center text-xs font-bold"
+              style={{ background: blank.material.surfaceColour, color: blank.material.markColour, borderRadius: shapeRadius[blank.shape] }}
+            >
+              {blank.material.name.split(' ')[0]}
+            </div>
+            <div>
+              <h3 className="text-lg font-bold">{blank.name}</h3>
+              <p className="text-sm text-graphite-500">{blank.material.name}</p>
+            </div>
+            {blank.description && <p className="text-sm text-graphite-700">{blank.description}</p>}
+            <table className="mt-auto w-full text-sm">
+              <caption className="sr-only">Sizes and prices of {blank.name}</caption>
+              <tbody>
+                {blank.sizes.map((s) => (
+                  <tr key={s.id} className="border-t border-graphite-100">
+                    <th scope="row" className="py-1.5 text-left font-semibold">
+                      {s.label}
+                      <span className="block text-xs font-normal text-graphite-500">
+                        engraving {size(s.areaWidthMm)} × {size(s.areaHeightMm)}
+                      </span>
+                    </th>
+                    <td className="py-1.5 text-right">
+                      <span className="font-bold">{s.price}</span>
+                      <span className={`block text-xs ${s.stock === 'sold-out' ? 'text-rust-600' : 'text-graphite-500'}`}>{stockWords[s.stock]}</span>
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </Card>
+        </li>
+      ))}
+    </ul>
+  );
+}
