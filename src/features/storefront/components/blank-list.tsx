@@ -14,7 +14,7 @@ export function BlankList({ blanks, units }: { blanks: StorefrontCatalog['blanks
           <Card className="flex h-full flex-col gap-4">
             <div
               aria-hidden
-              className="mx-auto flex h-32 w-28 items-center justify-center text-xs font-bold"
+              className={`mx-auto flex items-center justify-center text-xs font-bold ${blank.shape === 'circle' ? 'h-28 w-28' : 'h-32 w-28'}`}
               style={{ background: blank.material.surfaceColour, color: blank.material.markColour, borderRadius: shapeRadius[blank.shape] }}
             >
               {blank.material.name.split(' ')[0]}
