@@ -3,7 +3,7 @@ import express from 'express';
 import { SMTPServer } from 'smtp-server';
 import { simpleParser, type AddressObject } from 'mailparser';
 import { close, listen } from '../support/listen.ts';
-import { logLine, silentLogger, type RequestLogger } from '../support/request-log.ts';
+import { requestLogMiddleware, silentLogger, type RequestLogger } from '../support/request-log.ts';
 import { extractLinks, Mailbox } from './mailbox.ts';
 import { inboxPage, messagePage } from './inbox-page.ts';
 
@@ -66,11 +66,7 @@ export async function startMailFake(options: MailFakeOptions): Promise<MailFake>
 
   const app = express();
   app.disable('x-powered-by');
-  app.use((req, res, next) => {
-    const startedAt = Date.now();
-    res.on('finish', () => log(logLine(req.method, req.originalUrl, res.statusCode, startedAt)));
-    next();
-  });
+  app.use(requestLogMiddleware(log));
   // JSON API for tests
   app.get('/api/messages', (req, res) => res.json({ messages: mailbox.list(req.query.to as string | undefined) }));
   app.get('/api/messages/latest', (req, res) => {

@@ -2,7 +2,7 @@ import { createHash, timingSafeEqual } from 'node:crypto';
 import { createServer } from 'node:http';
 import express, { type NextFunction, type Request, type Response } from 'express';
 import { close, listen } from '../support/listen.ts';
-import { logLine, silentLogger, type RequestLogger } from '../support/request-log.ts';
+import { requestLogMiddleware, silentLogger, type RequestLogger } from '../support/request-log.ts';
 import { payPage } from './pay-page.ts';
 import {
   newId,
@@ -118,11 +118,7 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
 
   const app = express();
   app.disable('x-powered-by');
-  app.use((req, res, next) => {
-    const startedAt = Date.now();
-    res.on('finish', () => log(logLine(req.method, req.originalUrl, res.statusCode, startedAt)));
-    next();
-  });
+  app.use(requestLogMiddleware(log));
   app.use(express.urlencoded({ extended: true, limit: '1mb' }));
 
   // ---- API: secret key on every call ------------------------------------------------------

@@ -1,26 +1,15 @@
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { startMailFake, type MailFake } from '../../fakes/mail/server.ts';
-import type { StoredMessage } from '../../fakes/mail/mailbox.ts';
 import { screenshotDir, useBrowser } from '../support/browser.ts';
-import { eventually, temporaryDataDir } from '../support/fakes.ts';
+import { useMailFake } from '../support/mail.ts';
 
 describe('opening a studio and signing in by e-mailed link, in Chromium', () => {
-  const mailData = temporaryDataDir('mail-browser-open');
-  let mail: MailFake;
+  const mail = useMailFake();
   const b = useBrowser(async () => {
-    mail = await startMailFake({ dataDir: mailData.dir });
+    await mail.start();
     return { SMTP_URL: mail.smtpUrl };
   });
-  afterAll(async () => {
-    await mail?.stop();
-    mailData.remove();
-  });
-  const latestTo = (email: string) =>
-    eventually(async () => {
-      const res = await fetch(`${mail.url}/api/messages/latest?to=${encodeURIComponent(email)}`);
-      return res.ok ? ((await res.json()) as StoredMessage) : undefined;
-    });
+  const latestTo = (email: string) => mail.latestTo(email);
 
   it('opens a studio with a live address check and lands in its workspace', async () => {
     const { page, problems } = await b.newPage();

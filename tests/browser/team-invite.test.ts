@@ -1,27 +1,20 @@
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startMailFake, type MailFake } from '../../fakes/mail/server.ts';
-import type { StoredMessage } from '../../fakes/mail/mailbox.ts';
 import { seedDemo } from '../../server/db/seed.ts';
 import { DEMO_PASSWORD } from '../../server/db/demo-scenario.ts';
 import { screenshotDir, useBrowser } from '../support/browser.ts';
-import { eventually, temporaryDataDir } from '../support/fakes.ts';
+import { useMailFake } from '../support/mail.ts';
 
 describe('an owner invites a colleague, who joins from the e-mailed link', () => {
-  const mailData = temporaryDataDir('mail-browser-team');
-  let mail: MailFake;
+  const mail = useMailFake();
   // The app sends mail to a catcher started before it; its address is known only then.
   const b = useBrowser(async () => {
-    mail = await startMailFake({ dataDir: mailData.dir });
+    await mail.start();
     return { SMTP_URL: mail.smtpUrl };
   });
 
   beforeAll(async () => {
     await seedDemo(b.orm.em.fork());
-  });
-  afterAll(async () => {
-    await mail?.stop();
-    mailData.remove();
   });
 
   it('owner signs in with a password, invites; the new colleague joins and sees no owner-only pages', async () => {
@@ -38,10 +31,7 @@ describe('an owner invites a colleague, who joins from the e-mailed link', () =>
     await owner.page.screenshot({ path: join(screenshotDir, 'team-invited.png'), fullPage: true });
     expect(owner.problems).toEqual([]);
 
-    const invite = await eventually(async () => {
-      const res = await fetch(`${mail.url}/api/messages/latest?to=ola@harbour-light.test`);
-      return res.ok ? ((await res.json()) as StoredMessage) : undefined;
-    });
+    const invite = await mail.latestTo('ola@harbour-light.test');
     expect(invite.subject).toBe('Join Harbour Light Engraving on Etchwell');
     const link = new URL(invite.links.find((l) => l.includes('/invites/'))!);
 

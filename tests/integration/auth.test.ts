@@ -1,33 +1,24 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
-import { startMailFake, type MailFake } from '../../fakes/mail/server.ts';
 import type { StoredMessage } from '../../fakes/mail/mailbox.ts';
 import { User } from '../../server/features/accounts/user.entity.ts';
 import { buildTestApp, type TestApp } from '../support/test-app.ts';
-import { eventually, temporaryDataDir } from '../support/fakes.ts';
+import { useMailFake } from '../support/mail.ts';
 import { createUser, signIn, TEST_PASSWORD } from '../support/factories.ts';
 
 describe('sign-in', () => {
-  const mailData = temporaryDataDir('mail-auth');
-  let mail: MailFake;
+  const mail = useMailFake();
   let t: TestApp & { close(): Promise<void> };
 
   beforeAll(async () => {
-    mail = await startMailFake({ dataDir: mailData.dir });
+    await mail.start();
     t = await buildTestApp({ SMTP_URL: mail.smtpUrl });
   });
   afterAll(async () => {
     await t?.close();
-    await mail?.stop();
-    mailData.remove();
   });
 
-  /** E-mails leave through the outbox, a moment after the request: wait for the newest one. */
-  const latestMailTo = (email: string) =>
-    eventually(async () => {
-      const res = await fetch(`${mail.url}/api/messages/latest?to=${encodeURIComponent(email)}`);
-      return res.ok ? ((await res.json()) as StoredMessage) : undefined;
-    });
+  const latestMailTo = (email: string) => mail.latestTo(email);
   const me = async (agent: ReturnType<typeof request.agent>) => (await agent.get('/api/me').expect(200)).body;
 
   async function requestLink(agent: ReturnType<typeof request.agent>, email: string) {

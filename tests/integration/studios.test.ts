@@ -1,25 +1,20 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
-import { startMailFake, type MailFake } from '../../fakes/mail/server.ts';
-import type { StoredMessage } from '../../fakes/mail/mailbox.ts';
 import { User } from '../../server/features/accounts/user.entity.ts';
 import { buildTestApp, type TestApp } from '../support/test-app.ts';
-import { eventually, temporaryDataDir } from '../support/fakes.ts';
+import { useMailFake } from '../support/mail.ts';
 import { agentFor, createMember, createStudio, createUser, signIn } from '../support/factories.ts';
 
 describe('opening a studio, and platform admin', () => {
-  const mailData = temporaryDataDir('mail-studios');
-  let mail: MailFake;
+  const mail = useMailFake();
   let t: TestApp & { close(): Promise<void> };
 
   beforeAll(async () => {
-    mail = await startMailFake({ dataDir: mailData.dir });
+    await mail.start();
     t = await buildTestApp({ SMTP_URL: mail.smtpUrl });
   });
   afterAll(async () => {
     await t?.close();
-    await mail?.stop();
-    mailData.remove();
   });
 
   const valid = { studioName: 'Copper Finch Engraving', slug: 'copper-finch', ownerName: 'Rosa Vell', email: 'rosa@copper-finch.test', password: 'a very long password' };
@@ -47,10 +42,7 @@ describe('opening a studio, and platform admin', () => {
 
   it('opens the studio with its owner, sends the confirmation, and the owner signs in', async () => {
     expect((await request(t.app).post('/api/accounts/studios').send(valid).expect(201)).body).toEqual({ studioSlug: 'copper-finch' });
-    const message = await eventually(async () => {
-      const res = await fetch(`${mail.url}/api/messages/latest?to=rosa@copper-finch.test`);
-      return res.ok ? ((await res.json()) as StoredMessage) : undefined;
-    });
+    const message = await mail.latestTo('rosa@copper-finch.test');
     expect(message.subject).toBe('Confirm your e-mail address for Copper Finch Engraving');
     const link = new URL(message.links.find((l) => l.includes('verify-email'))!);
     expect((await request(t.app).get(`${link.pathname}${link.search}`).expect(303)).headers.location).toBe('/sign-in?verified=1');

@@ -1,26 +1,23 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
-import { startMailFake, type MailFake } from '../../fakes/mail/server.ts';
-import type { StoredMessage } from '../../fakes/mail/mailbox.ts';
 import { Invite } from '../../server/features/team/invite.entity.ts';
 import { Membership } from '../../server/features/team/membership.entity.ts';
 import { withoutTenantFilter } from '../../server/db/tenant.ts';
 import type { Studio } from '../../server/features/studios/studio.entity.ts';
 import type { User } from '../../server/features/accounts/user.entity.ts';
 import { buildTestApp, type TestApp } from '../support/test-app.ts';
-import { eventually, temporaryDataDir } from '../support/fakes.ts';
+import { useMailFake } from '../support/mail.ts';
 import { agentFor, createMember, createStudio, createUser, signIn } from '../support/factories.ts';
 
 describe('team: invites, roles and the last owner', () => {
-  const mailData = temporaryDataDir('mail-team');
-  let mail: MailFake;
+  const mail = useMailFake();
   let t: TestApp & { close(): Promise<void> };
   let studio: Studio;
   let owner: User;
   let ownerAgent: ReturnType<typeof request.agent>;
 
   beforeAll(async () => {
-    mail = await startMailFake({ dataDir: mailData.dir });
+    await mail.start();
     t = await buildTestApp({ SMTP_URL: mail.smtpUrl, APP_URL: 'http://127.0.0.1:3000' });
     const em = t.orm.em.fork();
     studio = await createStudio(em, { slug: 'team-studio', name: 'Team Studio' });
@@ -29,18 +26,10 @@ describe('team: invites, roles and the last owner', () => {
   });
   afterAll(async () => {
     await t?.close();
-    await mail?.stop();
-    mailData.remove();
   });
 
   const base = '/api/studios/team-studio';
-  const tokenFromMail = (email: string) =>
-    eventually(async () => {
-      const res = await fetch(`${mail.url}/api/messages/latest?to=${encodeURIComponent(email)}`);
-      if (!res.ok) return undefined;
-      const message = (await res.json()) as StoredMessage;
-      return message.links.map((l) => /\/invites\/([\w-]+)$/.exec(l)?.[1]).find(Boolean);
-    });
+  const tokenFromMail = async (email: string) => (await mail.latestTo(email)).links.map((l) => /\/invites\/([\w-]+)$/.exec(l)?.[1]).find(Boolean);
   const invite = async (email: string, role = 'staff') => {
     await ownerAgent.post(`${base}/team/invites`).send({ email, role }).expect(201);
     return tokenFromMail(email);
