@@ -31,7 +31,7 @@ export type AppDeps = {
 
 /** Every route under /api/studios/:studioSlug, from every feature. The isolation tests walk this list. */
 export function workspaceRoutes(deps: AppDeps): WorkspaceRoute[] {
-  return [...studioRoutes(), ...teamRoutes(deps), ...catalogRoutes(deps)];
+  return [...studioRoutes(deps), ...teamRoutes(deps), ...catalogRoutes(deps)];
 }
 
 /** Builds the Express app. It never listens: server/index.ts does, and tests use it directly. */

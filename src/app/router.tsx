@@ -7,6 +7,7 @@ import { NotFoundPage } from './routes/not-found.tsx';
 import { StorefrontHomePage } from './routes/storefront/storefront-home.tsx';
 import { WorkspaceOverviewPage } from './routes/workspace/overview.tsx';
 import { TeamPage } from './routes/workspace/team.tsx';
+import { SettingsPage } from './routes/workspace/settings.tsx';
 import { PlatformStudiosPage } from './routes/platform-studios.tsx';
 
 /** Platform pages, a studio's storefront (/s/…) and its workspace (/studio/…). */
@@ -20,5 +21,6 @@ export const router = createBrowserRouter([
   { path: '/s/:studioSlug', element: <StorefrontHomePage /> },
   { path: '/studio/:studioSlug', element: <WorkspaceOverviewPage /> },
   { path: '/studio/:studioSlug/team', element: <TeamPage /> },
+  { path: '/studio/:studioSlug/settings', element: <SettingsPage /> },
   { path: '*', element: <NotFoundPage /> },
 ]);

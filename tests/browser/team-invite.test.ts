@@ -29,6 +29,14 @@ describe('an owner invites a colleague, who joins from the e-mailed link', () =>
     await owner.page.getByRole('button', { name: 'Send invitation' }).click();
     await expect.poll(() => owner.page.getByRole('cell', { name: 'ola@harbour-light.test' }).count()).toBe(1);
     await owner.page.screenshot({ path: join(screenshotDir, 'team-invited.png'), fullPage: true });
+    // The owner also has the settings page: a new storefront colour shows on the storefront.
+    await owner.page.getByRole('link', { name: 'Settings' }).click();
+    await owner.page.getByLabel('Storefront colour', { exact: true }).fill('#2a7a50');
+    await owner.page.getByRole('button', { name: 'Save settings' }).click();
+    await expect.poll(() => owner.page.getByText('Settings saved.').count()).toBe(1);
+    await owner.page.screenshot({ path: join(screenshotDir, 'settings.png'), fullPage: true });
+    await owner.page.goto(`${b.baseUrl}/s/harbour-light`);
+    await expect.poll(() => owner.page.evaluate(() => getComputedStyle(document.querySelector('header')!).borderBottomColor)).toBe('rgb(42, 122, 80)');
     expect(owner.problems).toEqual([]);
 
     const invite = await mail.latestTo('ola@harbour-light.test');
@@ -46,6 +54,7 @@ describe('an owner invites a colleague, who joins from the e-mailed link', () =>
     const workspaceNav = colleague.page.getByRole('navigation', { name: 'Workspace' });
     expect(await workspaceNav.getByRole('link', { name: 'Overview' }).count()).toBe(1);
     expect(await workspaceNav.getByRole('link', { name: 'Team' }).count()).toBe(0);
+    expect(await workspaceNav.getByRole('link', { name: 'Settings' }).count()).toBe(0);
     await colleague.page.screenshot({ path: join(screenshotDir, 'workspace-staff.png'), fullPage: true });
     // Typing the owner-only address by hand shows a refusal, not the page.
     await colleague.page.goto(`${b.baseUrl}/studio/harbour-light/team`);

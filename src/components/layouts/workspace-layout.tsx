@@ -23,6 +23,7 @@ function WorkspaceFrame({ children }: { children: (workspace: Workspace) => Reac
   const nav = [
     { to: `/studio/${studioSlug}`, label: 'Overview', end: true, show: true },
     { to: `/studio/${studioSlug}/team`, label: 'Team', end: false, show: can(workspace.data?.role, 'team:manage') },
+    { to: `/studio/${studioSlug}/settings`, label: 'Settings', end: false, show: can(workspace.data?.role, 'studio:settings') },
   ];
   return (
     <div className="min-h-screen">

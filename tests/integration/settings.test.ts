@@ -1,0 +1,37 @@
+import { beforeAll, describe, expect, it } from 'vitest';
+import request from 'supertest';
+import type { Studio } from '../../server/features/studios/studio.entity.ts';
+import { useTestApp } from '../support/test-app.ts';
+import { agentFor, createMember, createStudio } from '../support/factories.ts';
+
+describe('studio settings', () => {
+  const t = useTestApp();
+  let studio: Studio;
+  let owner: ReturnType<typeof request.agent>;
+  const valid = { name: 'Willow & Flint', accentColour: '#2a7a50', currency: 'eur', units: 'mm', contactEmail: 'Hello@Willow.test' };
+
+  beforeAll(async () => {
+    const em = t.orm.em.fork();
+    studio = await createStudio(em, { slug: 'willow-flint' });
+    owner = await agentFor(t.app, (await createMember(em, studio, 'owner')).user);
+  });
+
+  it('saves branding, currency, units and contact; the storefront shows them', async () => {
+    const res = await owner.put('/api/studios/willow-flint/settings').send(valid).expect(200);
+    expect(res.body.studio).toMatchObject({ name: 'Willow & Flint', accentColour: '#2a7a50', currency: 'EUR', units: 'mm', contactEmail: 'hello@willow.test' });
+    expect((await request(t.app).get('/api/storefront/willow-flint').expect(200)).body).toMatchObject({ name: 'Willow & Flint', accentColour: '#2a7a50', currency: 'EUR', units: 'mm' });
+  });
+
+  it.each([
+    [{ name: '' }, 'name'],
+    [{ accentColour: 'green' }, 'accentColour'],
+    [{ currency: 'XYZW' }, 'currency'],
+    [{ currency: 'QQQ' }, 'currency'],
+    [{ units: 'cubits' }, 'units'],
+    [{ contactEmail: 'not-an-address' }, 'contactEmail'],
+  ])('refuses %j with a message on %s, changing nothing', async (change, field) => {
+    const res = await owner.put('/api/studios/willow-flint/settings').send({ ...valid, ...change }).expect(400);
+    expect(res.body.issues.map((i: { path: string[] }) => i.path[0])).toEqual([field]);
+    expect((await request(t.app).get('/api/storefront/willow-flint')).body.name).toBe('Willow & Flint');
+  });
+});
