@@ -1,22 +1,14 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import type { StoredMessage } from '../../fakes/mail/mailbox.ts';
 import { User } from '../../server/features/accounts/user.entity.ts';
-import { buildTestApp, type TestApp } from '../support/test-app.ts';
+import { buildTestApp, useTestApp } from '../support/test-app.ts';
 import { useMailFake } from '../support/mail.ts';
 import { createUser, signIn, TEST_PASSWORD } from '../support/factories.ts';
 
 describe('sign-in', () => {
   const mail = useMailFake();
-  let t: TestApp & { close(): Promise<void> };
-
-  beforeAll(async () => {
-    await mail.start();
-    t = await buildTestApp({ SMTP_URL: mail.smtpUrl });
-  });
-  afterAll(async () => {
-    await t?.close();
-  });
+  const t = useTestApp(async () => ({ SMTP_URL: (await mail.start()).smtpUrl }));
 
   const latestMailTo = (email: string) => mail.latestTo(email);
   const me = async (agent: ReturnType<typeof request.agent>) => (await agent.get('/api/me').expect(200)).body;

@@ -1,21 +1,13 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { User } from '../../server/features/accounts/user.entity.ts';
-import { buildTestApp, type TestApp } from '../support/test-app.ts';
+import { useTestApp } from '../support/test-app.ts';
 import { useMailFake } from '../support/mail.ts';
 import { agentFor, createMember, createStudio, createUser, signIn } from '../support/factories.ts';
 
 describe('opening a studio, and platform admin', () => {
   const mail = useMailFake();
-  let t: TestApp & { close(): Promise<void> };
-
-  beforeAll(async () => {
-    await mail.start();
-    t = await buildTestApp({ SMTP_URL: mail.smtpUrl });
-  });
-  afterAll(async () => {
-    await t?.close();
-  });
+  const t = useTestApp(async () => ({ SMTP_URL: (await mail.start()).smtpUrl }));
 
   const valid = { studioName: 'Copper Finch Engraving', slug: 'copper-finch', ownerName: 'Rosa Vell', email: 'rosa@copper-finch.test', password: 'a very long password' };
 

@@ -1,31 +1,27 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { Invite } from '../../server/features/team/invite.entity.ts';
 import { Membership } from '../../server/features/team/membership.entity.ts';
 import { withoutTenantFilter } from '../../server/db/tenant.ts';
 import type { Studio } from '../../server/features/studios/studio.entity.ts';
 import type { User } from '../../server/features/accounts/user.entity.ts';
-import { buildTestApp, type TestApp } from '../support/test-app.ts';
+import { useTestApp } from '../support/test-app.ts';
 import { useMailFake } from '../support/mail.ts';
 import { agentFor, createMember, createStudio, createUser, signIn } from '../support/factories.ts';
 
 describe('team: invites, roles and the last owner', () => {
   const mail = useMailFake();
-  let t: TestApp & { close(): Promise<void> };
   let studio: Studio;
   let owner: User;
   let ownerAgent: ReturnType<typeof request.agent>;
 
+  const t = useTestApp(async () => ({ SMTP_URL: (await mail.start()).smtpUrl, APP_URL: 'http://127.0.0.1:3000' }));
+
   beforeAll(async () => {
-    await mail.start();
-    t = await buildTestApp({ SMTP_URL: mail.smtpUrl, APP_URL: 'http://127.0.0.1:3000' });
     const em = t.orm.em.fork();
     studio = await createStudio(em, { slug: 'team-studio', name: 'Team Studio' });
     owner = (await createMember(em, studio, 'owner')).user;
     ownerAgent = await agentFor(t.app, owner);
-  });
-  afterAll(async () => {
-    await t?.close();
   });
 
   const base = '/api/studios/team-studio';

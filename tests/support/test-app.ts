@@ -46,11 +46,14 @@ export async function buildTestApp(
   };
 }
 
-/** For a test file: one app and database, built before its tests and dropped after them. */
-export function useTestApp(overrides: Record<string, string> = {}): TestApp {
+/**
+ * For a test file: one app and database, built before its tests and dropped after them.
+ * `overrides` may be a function run first (to start a stand-in and hand over its address).
+ */
+export function useTestApp(overrides: Record<string, string> | (() => Promise<Record<string, string>>) = {}): TestApp {
   const holder = {} as TestApp & { close(): Promise<void> };
   beforeAll(async () => {
-    Object.assign(holder, await buildTestApp(overrides));
+    Object.assign(holder, await buildTestApp(typeof overrides === 'function' ? await overrides() : overrides));
   });
   afterAll(async () => {
     await holder.close?.();

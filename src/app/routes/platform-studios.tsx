@@ -1,6 +1,6 @@
 import { Navigate } from 'react-router-dom';
 import { SiteLayout } from '../../components/layouts/site-layout.tsx';
-import { Table, TBody, TD, TH, THead, TR } from '../../components/ui/table.tsx';
+import { Table, TBody, TD, TH, THActions, THead, TR } from '../../components/ui/table.tsx';
 import { Button } from '../../components/ui/button.tsx';
 import { Notice } from '../../components/ui/notice.tsx';
 import { useToast } from '../../components/ui/toast.tsx';
@@ -39,9 +39,7 @@ function PlatformStudios() {
               <TH>Team members</TH>
               <TH>Opened</TH>
               <TH>Status</TH>
-              <TH className="text-right">
-                <span className="sr-only">Actions</span>
-              </TH>
+              <THActions />
             </tr>
           </THead>
           <TBody>

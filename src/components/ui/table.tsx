@@ -24,3 +24,12 @@ export function TH({ className, ...rest }: ThHTMLAttributes<HTMLTableCellElement
 export function TD({ className, ...rest }: TdHTMLAttributes<HTMLTableCellElement>) {
   return <td className={cx('px-4 py-3 align-middle text-graphite-800', className)} {...rest} />;
 }
+
+/** The header of a row-actions column: named for screen readers, empty on screen. */
+export function THActions() {
+  return (
+    <TH className="text-right">
+      <span className="sr-only">Actions</span>
+    </TH>
+  );
+}

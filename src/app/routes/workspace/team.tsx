@@ -8,7 +8,7 @@ import { TextField } from '../../../components/ui/text-field.tsx';
 import { Button } from '../../../components/ui/button.tsx';
 import { Notice } from '../../../components/ui/notice.tsx';
 import { Dialog } from '../../../components/ui/dialog.tsx';
-import { Table, TBody, TD, TH, THead, TR } from '../../../components/ui/table.tsx';
+import { Table, TBody, TD, TH, THActions, THead, TR } from '../../../components/ui/table.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { useChangeRole, useInvite, useRemoveMember, useTeam, useWithdrawInvite } from '../../../features/team/api/team.ts';
 import { useFieldErrors } from '../../../lib/use-field-errors.ts';
@@ -102,9 +102,7 @@ function Team({ slug }: { slug: string }) {
                   <TH>Name</TH>
                   <TH>E-mail</TH>
                   <TH>Role</TH>
-                  <TH className="text-right">
-                    <span className="sr-only">Actions</span>
-                  </TH>
+                  <THActions />
                 </tr>
               </THead>
               <TBody>
@@ -157,9 +155,7 @@ function Team({ slug }: { slug: string }) {
                     <TH>E-mail</TH>
                     <TH>Role</TH>
                     <TH>Expires</TH>
-                    <TH className="text-right">
-                      <span className="sr-only">Actions</span>
-                    </TH>
+                    <THActions />
                   </tr>
                 </THead>
                 <TBody>
