@@ -9,14 +9,31 @@ const byField = (issues: FieldIssue[] | undefined): Errors =>
 
 /**
  * Field-level messages for a form checked with a shared schema: the same messages whether the
- * browser or the server found the problem.
+ * browser or the server found the problem. `run` does a submission: busy while it lasts, and a
+ * failure shown on the form.
  */
 export function useFieldErrors() {
   const [errors, setErrors] = useState<Errors>({});
   const [formError, setFormError] = useState<string>();
+  const [busy, setBusy] = useState(false);
+  const show = (error: unknown) => {
+    if (error instanceof AppError && error.issues?.length) setErrors(byField(error.issues));
+    setFormError((error as Error).message);
+  };
   return {
     errors,
     formError,
+    busy,
+    async run(work: () => Promise<void>): Promise<void> {
+      setBusy(true);
+      try {
+        await work();
+      } catch (error) {
+        show(error);
+      } finally {
+        setBusy(false);
+      }
+    },
     /** Parses the values; shows the schema's messages and returns undefined when they fail. */
     check<S extends z.ZodType>(schema: S, values: unknown): z.infer<S> | undefined {
       const result = schema.safeParse(values);
@@ -29,10 +46,7 @@ export function useFieldErrors() {
       return undefined;
     },
     /** Shows a failed call: its field issues beside the fields, the rest above the form. */
-    show(error: unknown) {
-      if (error instanceof AppError && error.issues?.length) setErrors(byField(error.issues));
-      setFormError((error as Error).message);
-    },
+    show,
     clear() {
       setErrors({});
       setFormError(undefined);

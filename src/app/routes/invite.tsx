@@ -1,4 +1,4 @@
-import { useState, type FormEvent } from 'react';
+import type { FormEvent } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
 import { acceptWithAccountInputSchema } from '../../../shared/schemas/team.ts';
@@ -28,38 +28,23 @@ export function InvitePage() {
   const navigate = useNavigate();
   const queryClient = useQueryClient();
   const form = useFieldErrors();
-  const [busy, setBusy] = useState(false);
 
   const joined = async (studioSlug: string) => {
     await queryClient.invalidateQueries({ queryKey: meQueries.all });
     navigate(`/studio/${studioSlug}`, { replace: true });
   };
 
-  async function onJoin() {
-    setBusy(true);
-    try {
-      await joined((await acceptInvite(token)).studioSlug);
-    } catch (error) {
-      form.show(error);
-    } finally {
-      setBusy(false);
-    }
-  }
+  const onJoin = () => form.run(async () => joined((await acceptInvite(token)).studioSlug));
 
   async function onCreateAccount(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
     const values = form.check(acceptWithAccountInputSchema, Object.fromEntries(new FormData(event.currentTarget)));
     if (!values) return;
-    setBusy(true);
-    try {
+    await form.run(async () => {
       const result = await acceptInviteWithAccount(token, values);
       await signInWithPassword(result.email, values.password);
       await joined(result.studioSlug);
-    } catch (error) {
-      form.show(error);
-    } finally {
-      setBusy(false);
-    }
+    });
   }
 
   let body;
@@ -79,7 +64,7 @@ export function InvitePage() {
       body = (
         <>
           {intro}
-          <Button onClick={onJoin} busy={busy}>
+          <Button onClick={onJoin} busy={form.busy}>
             Join {invite.studioName}
           </Button>
         </>
@@ -108,7 +93,7 @@ export function InvitePage() {
             <p className="text-sm text-graphite-600">Create your account to join.</p>
             <TextField label="Your name" name="name" autoComplete="name" error={form.errors.name} />
             <TextField label="Choose a password" name="password" type="password" autoComplete="new-password" hint="At least 10 characters." error={form.errors.password} />
-            <Button type="submit" busy={busy}>
+            <Button type="submit" busy={form.busy}>
               Create my account and join
             </Button>
           </form>

@@ -27,7 +27,6 @@ export function OpenStudioPage() {
   const navigate = useNavigate();
   const queryClient = useQueryClient();
   const form = useFieldErrors();
-  const [busy, setBusy] = useState(false);
   const [studioName, setStudioName] = useState('');
   const [slug, setSlug] = useState('');
   const [slugTouched, setSlugTouched] = useState(false);
@@ -45,17 +44,12 @@ export function OpenStudioPage() {
     const data = Object.fromEntries(new FormData(event.currentTarget));
     const values = form.check(openStudioInputSchema, { ...data, slug: shownSlug });
     if (!values) return;
-    setBusy(true);
-    try {
+    await form.run(async () => {
       const { studioSlug } = await openStudio(values);
       await signInWithPassword(values.email, values.password);
       await queryClient.invalidateQueries({ queryKey: meQueries.all });
       navigate(`/studio/${studioSlug}`, { replace: true });
-    } catch (error) {
-      form.show(error);
-    } finally {
-      setBusy(false);
-    }
+    });
   }
 
   return (
@@ -81,7 +75,7 @@ export function OpenStudioPage() {
             <TextField label="Your name" name="ownerName" autoComplete="name" error={form.errors.ownerName} />
             <TextField label="Your e-mail address" name="email" type="email" autoComplete="email" error={form.errors.email} />
             <TextField label="Password" name="password" type="password" autoComplete="new-password" hint="At least 10 characters." error={form.errors.password} />
-            <Button type="submit" busy={busy} className="mt-2">
+            <Button type="submit" busy={form.busy} className="mt-2">
               Open the studio
             </Button>
           </form>

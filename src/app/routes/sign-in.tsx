@@ -32,7 +32,6 @@ export function SignInPage() {
   const navigate = useNavigate();
   const queryClient = useQueryClient();
   const [mode, setMode] = useState<'password' | 'link'>('password');
-  const [busy, setBusy] = useState(false);
   const form = useFieldErrors();
   const next = safeNext(params.get('next'));
   const notice = Object.entries(notices).find(([key]) => {
@@ -44,32 +43,22 @@ export function SignInPage() {
     event.preventDefault();
     const values = form.check(passwordFormSchema, Object.fromEntries(new FormData(event.currentTarget)));
     if (!values) return;
-    setBusy(true);
-    try {
+    await form.run(async () => {
       await signInWithPassword(values.email, values.password);
       const me = await queryClient.fetchQuery({ ...meQueries.current(), queryFn: ({ signal }) => getMe(signal), staleTime: 0 });
       const home = me.memberships[0] ? `/studio/${me.memberships[0].studioSlug}` : me.user?.isPlatformAdmin ? '/platform/studios' : '/';
       navigate(next ?? home, { replace: true });
-    } catch (error) {
-      form.show(error);
-    } finally {
-      setBusy(false);
-    }
+    });
   }
 
   async function onLink(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
     const values = form.check(linkFormSchema, Object.fromEntries(new FormData(event.currentTarget)));
     if (!values) return;
-    setBusy(true);
-    try {
+    await form.run(async () => {
       await requestSignInLink(values.email, next ?? '/');
       navigate(`/sign-in/link-sent?to=${encodeURIComponent(values.email)}`);
-    } catch (error) {
-      form.show(error);
-    } finally {
-      setBusy(false);
-    }
+    });
   }
 
   return (
@@ -107,7 +96,7 @@ export function SignInPage() {
             ) : (
               <p className="text-sm text-graphite-600">We will e-mail you a link that signs you in. It works once and for 30 minutes.</p>
             )}
-            <Button type="submit" busy={busy} className="mt-2">
+            <Button type="submit" busy={form.busy} className="mt-2">
               {mode === 'password' ? 'Sign in' : 'E-mail me a link'}
             </Button>
           </form>
