@@ -22,13 +22,3 @@ export function grayF(width: number, height: number, fill = 0): GrayF {
 export function toGrayF(image: Gray8): GrayF {
   return { width: image.width, height: image.height, data: Float32Array.from(image.data) };
 }
-
-/** Rounds and clamps to 8 bits. */
-export function toGray8(image: GrayF): Gray8 {
-  const out = new Uint8Array(image.data.length);
-  for (let i = 0; i < out.length; i++) {
-    const v = Math.round(image.data[i]!);
-    out[i] = v < 0 ? 0 : v > 255 ? 255 : v;
-  }
-  return { width: image.width, height: image.height, data: out };
-}

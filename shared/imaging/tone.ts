@@ -53,12 +53,6 @@ export function adjustTone(image: GrayF, options: ToneOptions): GrayF {
  * Auto-levels: stretches the values so that `clip` of the pixels (e.g. 0.005 = 0.5 %) at each end
  * become pure black and white. Pixels where `mask` is 0 are not counted.
  */
-/** Auto-levels in place. */
-export function autoLevels(image: GrayF, clip = 0.005, mask?: Uint8Array): GrayF {
-  const levels = levelsFor(image, clip, mask);
-  return levels ? applyLevels(image, levels) : image;
-}
-
 export type Levels = { low: number; high: number };
 
 /** The black and white points that clip `clip` of the counted pixels at each end; undefined when flat. */

@@ -1,5 +1,5 @@
 import { resolve } from 'node:path';
-import { dropDatabase, ensureDatabase, withDatabaseName } from '../../db/database-admin.ts';
+import { dropDatabase, ensureDatabase } from '../../db/database-admin.ts';
 import { initOrm, migrate } from '../../db/orm.ts';
 import { seedDemo } from '../../db/seed.ts';
 import { loadEnv } from '../../env.ts';
@@ -101,4 +101,3 @@ async function prepareDatabase(databaseUrl: string, { seed }: { seed: boolean })
   }
 }
 
-export { withDatabaseName };
