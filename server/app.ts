@@ -10,6 +10,7 @@ import type { Logger } from './logger.ts';
 import type { Orm } from './db/orm.ts';
 import { apiNotFound, errorHandler } from './middleware/error-handler.ts';
 import type { Auth } from './auth/auth.ts';
+import type { Storage } from './adapters/storage.ts';
 import { workspaceRouter, type WorkspaceRoute } from './middleware/workspace-routes.ts';
 import { healthRouter } from './features/health/health.router.ts';
 import { storefrontRouter } from './features/studios/storefront.router.ts';
@@ -27,6 +28,7 @@ export type AppDeps = {
   logger: Logger;
   version: string;
   auth: Auth;
+  storage: Storage;
 };
 
 /** Every route under /api/studios/:studioSlug, from every feature. The isolation tests walk this list. */
@@ -78,7 +80,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/health', healthRouter({ orm, version: deps.version }));
   app.use('/api/auth', deps.auth.router);
   app.use('/api/storefront', storefrontRouter({ orm }));
-  app.use('/api/storefront', storefrontCatalogRouter({ orm }));
+  app.use('/api/storefront', storefrontCatalogRouter(deps));
   app.use('/api', accountsRouter(deps));
   app.use('/api/invites', invitesRouter(deps));
   app.use('/api/platform', platformRouter(deps));

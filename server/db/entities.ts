@@ -5,7 +5,7 @@ import { Invite } from '../features/team/invite.entity.ts';
 import { VerificationToken } from '../auth/verification-token.entity.ts';
 import { OutboxEmail } from '../features/outbox/outbox-email.entity.ts';
 import { SignInLimit } from '../auth/sign-in-limit.entity.ts';
-import { Blank, BlankSize, Machine, Material, Recipe } from '../features/catalog/catalog.entity.ts';
+import { Blank, BlankPhoto, BlankSize, Machine, Material, Recipe } from '../features/catalog/catalog.entity.ts';
 
 /** Every entity the ORM knows, listed by hand: discovery by folder scan needs compiled files. */
-export const entities = [Studio, User, Membership, Invite, VerificationToken, OutboxEmail, SignInLimit, Material, Machine, Recipe, Blank, BlankSize];
+export const entities = [Studio, User, Membership, Invite, VerificationToken, OutboxEmail, SignInLimit, Material, Machine, Recipe, Blank, BlankSize, BlankPhoto];

@@ -41,7 +41,10 @@ function toPhotoError(error: unknown): AppError {
 export type PhotoFacts = { format: PhotoFormat; width: number; height: number; hasAlpha: boolean; orientation: number };
 
 /** Checks a photo without decoding its pixels: type, damage, pixel limit, smallest size. */
-export async function inspectPhoto(bytes: Buffer): Promise<PhotoFacts> {
+export async function inspectPhoto(
+  bytes: Buffer,
+  { minSide = MIN_SIDE, tooSmall = (w: number, h: number) => `This image is only ${w} × ${h} pixels: too small to engrave. Please send the original photo.` } = {},
+): Promise<PhotoFacts> {
   const format = sniffFormat(bytes);
   if (format === 'heic') throw new AppError('UNSUPPORTED_MEDIA_TYPE', HEIC);
   if (!format) throw new AppError('UNSUPPORTED_MEDIA_TYPE', UNSUPPORTED);
@@ -53,7 +56,7 @@ export async function inspectPhoto(bytes: Buffer): Promise<PhotoFacts> {
   }
   const orientation = meta.orientation ?? 1;
   const [width, height] = orientation >= 5 ? [meta.height ?? 0, meta.width ?? 0] : [meta.width ?? 0, meta.height ?? 0];
-  if (Math.min(width, height) < MIN_SIDE) throw new AppError('BAD_REQUEST', `This image is only ${width} × ${height} pixels: too small to engrave. Please send the original photo.`);
+  if (Math.min(width, height) < minSide) throw new AppError('BAD_REQUEST', tooSmall(width, height));
   return { format, width, height, hasAlpha: Boolean(meta.hasAlpha), orientation };
 }
 

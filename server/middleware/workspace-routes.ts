@@ -27,7 +27,9 @@ export type WorkspaceFixtures = {
   makeMember(): Promise<string>;
   makeInvite(): Promise<string>;
   /** A fresh catalog record of the studio under test; returns its id. */
-  catalog(kind: 'material' | 'machine' | 'recipe' | 'blank' | 'size'): Promise<string>;
+  catalog(kind: 'material' | 'machine' | 'recipe' | 'blank' | 'size' | 'photo'): Promise<string>;
+  /** The key of a small photo uploaded to storage as a browser would, under this purpose. */
+  upload(purpose: 'blank-photos'): Promise<string>;
 };
 
 export function workspaceRouter({ auth, orm, routes }: { auth: Auth; orm: Orm; routes: WorkspaceRoute[] }): Router {

@@ -1,5 +1,6 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
+import sharp from 'sharp';
 import { seedDemo } from '../../server/db/seed.ts';
 import { TENANT_FILTER } from '../../server/db/tenant.ts';
 import { Blank, BlankSize, Machine, Recipe } from '../../server/features/catalog/catalog.entity.ts';
@@ -151,5 +152,64 @@ describe('catalog', () => {
     expect(recipe).toMatchObject({ linesPerInch: 360, halftoneMethod: 'jarvis-judice-ninke', tone: 'negative', speed: 5, powerMinPercent: 10, powerMaxPercent: 14.5 });
     const staff = await agentFor(t.app, (await createMember(t.orm.em.fork(), studio, 'staff')).user);
     expect((await staff.get('/api/studios/harbour-light/catalog/blanks').expect(200)).body.blanks.length).toBe(2);
+  });
+
+  describe('product photos', () => {
+    const jpeg = (width: number, height: number) => sharp({ create: { width, height, channels: 3, background: '#7b5e3f' } }).jpeg().toBuffer();
+    /** Uploads as the browser does: ask for a ticket, PUT the bytes to storage with its headers. */
+    async function upload(blankId: string, bytes: Buffer, contentType = 'image/jpeg') {
+      const ticket = (await owner.post(`${base}/blanks/${blankId}/photo-uploads`).send({ contentType, contentLength: bytes.length }).expect(201)).body;
+      const put = await fetch(ticket.url, { method: 'PUT', headers: ticket.headers, body: new Uint8Array(bytes) });
+      expect(put.status).toBe(200);
+      return ticket.key as string;
+    }
+
+    it('takes an uploaded photo, stores a web copy and shows it once the blank is active', async () => {
+      const blank = (await owner.post(`${base}/blanks`).send({ name: 'Photo tile', materialId: named('Slate').id, shape: 'rectangle' }).expect(201)).body;
+      const key = await upload(blank.id, await jpeg(2400, 1800));
+      const photo = (await owner.post(`${base}/blanks/${blank.id}/photos`).send({ key }).expect(201)).body;
+      // Scaled to fit 1600 px on the long side, never enlarged; the original upload is gone.
+      expect(photo).toMatchObject({ width: 1600, height: 1200 });
+      expect(await t.storage.head(key)).toBeUndefined();
+      const image = await owner.get(photo.url).expect(200).expect('content-type', 'image/webp');
+      expect((await sharp(image.body).metadata()).format).toBe('webp');
+      // A draft's photo is not public; once active, the storefront lists and serves it.
+      await request(t.app).get(`/api/storefront/copper-kiln/photos/${photo.id}`).expect(404);
+      await owner.put(`${base}/blanks/${blank.id}`).send({ name: 'Photo tile', materialId: named('Slate').id, shape: 'rectangle', status: 'active' }).expect(200);
+      const listed = (await request(t.app).get('/api/storefront/copper-kiln/blanks').expect(200)).body.blanks.find((b: { id: string }) => b.id === blank.id);
+      expect(listed.photos).toHaveLength(1);
+      await request(t.app).get(listed.photos[0].url).expect(200).expect('content-type', 'image/webp');
+      await owner.delete(`${base}/photos/${photo.id}`).expect(204);
+      await request(t.app).get(listed.photos[0].url).expect(404);
+    });
+
+    it('refuses what is not a usable photo, with a message to act on', async () => {
+      const blank = (await owner.post(`${base}/blanks`).send({ name: 'Refusals', materialId: named('Slate').id, shape: 'oval' }).expect(201)).body;
+      expect((await owner.post(`${base}/blanks/${blank.id}/photo-uploads`).send({ contentType: 'application/pdf', contentLength: 10 }).expect(400)).body.issues[0].path).toEqual(['contentType']);
+      expect((await owner.post(`${base}/blanks/${blank.id}/photo-uploads`).send({ contentType: 'image/png', contentLength: 26 * 1024 * 1024 }).expect(400)).body.issues[0].path).toEqual(['contentLength']);
+      const text = await upload(blank.id, Buffer.from('this is not an image at all, only words'));
+      expect((await owner.post(`${base}/blanks/${blank.id}/photos`).send({ key: text }).expect(415)).body.message).toMatch(/JPEG, PNG, WebP/);
+      const tiny = await upload(blank.id, await jpeg(200, 150));
+      expect((await owner.post(`${base}/blanks/${blank.id}/photos`).send({ key: tiny }).expect(400)).body.message).toMatch(/200 × 150 pixels/);
+      // A key outside this studio's uploads is never read.
+      await owner.post(`${base}/blanks/${blank.id}/photos`).send({ key: 'uploads/another-studio/blank-photos/x' }).expect(404);
+      expect((await owner.get(`${base}/blanks/${blank.id}`).expect(200)).body.photos).toEqual([]);
+    });
+  });
+
+  it('deletes a material only when no blank uses it, naming the blanks that do', async () => {
+    const res = await owner.delete(`${base}/materials/${named('Black granite').id}`).expect(409);
+    expect(res.body.message).toMatch(/Granite heart/);
+    const spare = (await owner.post(`${base}/materials`).send({ name: 'Spare cork', family: 'cork', surfaceColour: '#b08a5a', markColour: '#5a3d22', defaultTone: 'positive', linesPerInchMin: 200, linesPerInchMax: 250 }).expect(201)).body;
+    await owner.delete(`${base}/materials/${spare.id}`).expect(204);
+    await owner.delete(`${base}/materials/${spare.id}`).expect(404);
+  });
+
+  it('deletes a machine with the recipes written for it', async () => {
+    const machine = (await owner.post(`${base}/machines`).send(goodMachine).expect(201)).body;
+    const recipe = (await owner.post(`${base}/recipes`).send({ materialId: named('Maple').id, machineId: machine.id, linesPerInch: 254, halftoneMethod: 'floyd-steinberg', tone: 'positive', speed: 300, powerMinPercent: 15, powerMaxPercent: 40, passes: 1 }).expect(201)).body;
+    await owner.delete(`${base}/machines/${machine.id}`).expect(204);
+    const recipes = (await owner.get(`${base}/recipes`).expect(200)).body.recipes;
+    expect(recipes.map((r: { id: string }) => r.id)).not.toContain(recipe.id);
   });
 });

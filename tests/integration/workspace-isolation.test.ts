@@ -1,3 +1,5 @@
+import { randomUUID } from 'node:crypto';
+import sharp from 'sharp';
 import { beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { can, ROLES } from '../../shared/permissions.ts';
@@ -44,6 +46,12 @@ describe('workspace isolation matrix', () => {
         await fork.flush();
         return invite.id;
       },
+      upload: async (purpose) => {
+        const key = `uploads/${studioA.id}/${purpose}/${randomUUID()}`;
+        const jpeg = await sharp({ create: { width: 400, height: 300, channels: 3, background: '#8a6d4b' } }).jpeg().toBuffer();
+        await t.storage.put(key, jpeg, 'image/jpeg');
+        return key;
+      },
       catalog: async (kind) => {
         const fork = t.orm.em.fork();
         fork.setFilterParams(TENANT_FILTER, { studioId: studioA.id });
@@ -59,6 +67,7 @@ describe('workspace isolation matrix', () => {
         }
         const blank = await catalog.createBlank(fork, studio, { name: 'B', description: '', materialId: (await material()).id, shape: 'oval', status: 'draft', sortOrder: 0 });
         if (kind === 'blank') return blank.id;
+        if (kind === 'photo') return (await catalog.addPhoto(fork, t.storage, studio, blank.id, await fixtures.upload('blank-photos'))).id;
         return (await catalog.addSize(fork, studio, blank.id, { label: 'S', outerWidthMm: 100, outerHeightMm: 100, areaWidthMm: 90, areaHeightMm: 90, orientation: 'either', priceMinor: 100, stock: 3, sku: '' })).id;
       },
     };

@@ -8,8 +8,9 @@ import { createTestDatabase } from './test-database.ts';
 import { createMailer } from '../../server/adapters/mailer.ts';
 import { startOutboxSender } from '../../server/features/outbox/outbox.service.ts';
 import { createAuth, type Auth } from '../../server/auth/auth.ts';
+import { createStorage, type Storage } from '../../server/adapters/storage.ts';
 
-export type TestApp = { app: Express; orm: Orm; env: Env; databaseUrl: string; auth: Auth };
+export type TestApp = { app: Express; orm: Orm; env: Env; databaseUrl: string; auth: Auth; storage: Storage };
 
 /**
  * Builds the app as the server does, on a database of its own. `databasePort` makes the app
@@ -22,11 +23,14 @@ export async function buildTestApp(
   const database = await createTestDatabase();
   const url = new URL(database.url);
   if (databasePort) url.port = String(databasePort);
-  const env = loadEnv({ NODE_ENV: 'test', LOG_LEVEL: process.env.TEST_LOG_LEVEL ?? 'silent', DATABASE_URL: url.toString(), CLIENT_DIST: 'dist', ...overrides });
+  // The test stack's stand-ins (storage, payments, mail), unless a test brings its own.
+  const services = Object.fromEntries(['S3_ENDPOINT', 'STRIPE_API_URL', 'SMTP_URL'].flatMap((name) => (process.env[name] ? [[name, process.env[name]!]] : [])));
+  const env = loadEnv({ ...services, NODE_ENV: 'test', LOG_LEVEL: process.env.TEST_LOG_LEVEL ?? 'silent', DATABASE_URL: url.toString(), CLIENT_DIST: 'dist', ...overrides });
   const orm = await initOrm(env.DATABASE_URL);
   const logger = createLogger(env);
   const auth = createAuth({ orm, env, logger });
-  const app = createApp({ env, orm, logger, version: 'test', auth });
+  const storage = createStorage(env);
+  const app = createApp({ env, orm, logger, version: 'test', auth, storage });
   // As in the server: e-mails go out through the outbox, here checked often.
   const mailer = createMailer(env);
   const outbox = startOutboxSender(orm, mailer, logger, 100);
@@ -35,6 +39,7 @@ export async function buildTestApp(
     orm,
     env,
     auth,
+    storage,
     databaseUrl: database.url,
     async close() {
       await outbox.stop();

@@ -66,6 +66,19 @@ export class Blank extends BaseEntity {
   @Enum({ items: ['draft', 'active', 'archived'], type: 'string' }) status!: 'draft' | 'active' | 'archived';
   @Property({ type: 'integer' }) sortOrder!: number;
   @OneToMany(() => BlankSize, (size) => size.blank) sizes = new Collection<BlankSize>(this);
+  @OneToMany(() => BlankPhoto, (photo) => photo.blank) photos = new Collection<BlankPhoto>(this);
+}
+
+/** A product photo of a blank, stored web-ready in object storage under `key`. */
+@Entity({ tableName: 'blank_photo' })
+@Filter(tenantFilter)
+export class BlankPhoto extends BaseEntity {
+  @ManyToOne(() => Studio, { deleteRule: 'cascade' }) studio!: Studio;
+  @ManyToOne(() => Blank, { deleteRule: 'cascade' }) blank!: Blank;
+  @Property({ type: 'string', length: 300 }) key!: string;
+  @Property({ type: 'integer' }) width!: number;
+  @Property({ type: 'integer' }) height!: number;
+  @Property({ type: 'integer' }) sortOrder!: number;
 }
 
 @Entity({ tableName: 'blank_size' })

@@ -1,8 +1,13 @@
+import type { Request } from 'express';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { blankInputSchema, machineInputSchema, materialInputSchema, recipeInputSchema, sizeInputSchema } from '../../../shared/schemas/catalog.ts';
+import { claimUploadSchema, imageUploadRequestSchema } from '../../../shared/schemas/uploads.ts';
+import type { Storage } from '../../adapters/storage.ts';
 import type { Orm } from '../../db/orm.ts';
 import type { WorkspaceRoute } from '../../middleware/workspace-routes.ts';
+import { Blank, BlankPhoto, type Material } from './catalog.entity.ts';
 import * as catalog from './catalog.service.ts';
+import { blankView, machineView, materialView, photoView, recipeView, sizeView } from './catalog.views.ts';
 
 /**
  * The catalog's workspace API: staff read it, owners change it (catalog:read / catalog:write).
@@ -14,76 +19,135 @@ const blank = (materialId: string) => ({ name: 'Test tile', materialId, shape: '
 const size = { label: '4 × 4 in', outerWidthMm: 101.6, outerHeightMm: 101.6, areaWidthMm: 90, areaHeightMm: 90, orientation: 'either', priceMinor: 2500, stock: null };
 const recipe = (materialId: string, machineId: string) => ({ materialId, machineId, linesPerInch: 300, halftoneMethod: 'jarvis-judice-ninke', tone: 'negative', speed: 300, powerMinPercent: 10, powerMaxPercent: 20, passes: 1 });
 
-export function catalogRoutes({ orm }: { orm: Orm }): WorkspaceRoute[] {
+/** Where the workspace loads a product photo from. */
+export const workspacePhotoUrl = (req: Request) => (photo: BlankPhoto) => `/api/studios/${req.studio!.slug}/catalog/photos/${photo.id}`;
+
+export function catalogRoutes({ orm, storage }: { orm: Orm; storage: Storage }): WorkspaceRoute[] {
   const em = () => orm.em as EntityManager;
+  const withCount = async (req: Request, m: Material) => materialView(m, await em().count(Blank, { studio: req.studio!, material: m }));
+  const id = (req: Request, name: string) => String(req.params[name]);
   return [
-    { method: 'get', path: '/catalog/materials', permission: 'catalog:read', handler: async (req, res) => void res.json({ materials: await catalog.listMaterials(em(), req.studio!) }) },
+    {
+      method: 'get', path: '/catalog/materials', permission: 'catalog:read',
+      handler: async (req, res) => void res.json({ materials: (await catalog.listMaterials(em(), req.studio!)).map(({ material: m, blankCount }) => materialView(m, blankCount)) }),
+    },
     {
       method: 'post', path: '/catalog/materials', permission: 'catalog:write',
       sample: () => ({ body: { ...material, name: `Material ${Math.random()}` } }),
-      handler: async (req, res) => void res.status(201).json(await catalog.createMaterial(em(), req.studio!, materialInputSchema.parse(req.body))),
+      handler: async (req, res) => void res.status(201).json(materialView(await catalog.createMaterial(em(), req.studio!, materialInputSchema.parse(req.body)), 0)),
     },
     {
       method: 'put', path: '/catalog/materials/:materialId', permission: 'catalog:write',
       sample: async (f) => ({ params: { materialId: await f.catalog('material') }, body: { ...material, name: `Material ${Math.random()}` } }),
-      handler: async (req, res) => void res.json(await catalog.updateMaterial(em(), req.studio!, String(req.params.materialId), materialInputSchema.parse(req.body))),
+      handler: async (req, res) => void res.json(await withCount(req, await catalog.updateMaterial(em(), req.studio!, id(req, 'materialId'), materialInputSchema.parse(req.body)))),
     },
-    { method: 'get', path: '/catalog/machines', permission: 'catalog:read', handler: async (req, res) => void res.json({ machines: await catalog.listMachines(em(), req.studio!) }) },
+    {
+      method: 'delete', path: '/catalog/materials/:materialId', permission: 'catalog:write',
+      sample: async (f) => ({ params: { materialId: await f.catalog('material') } }),
+      handler: async (req, res) => {
+        await catalog.deleteMaterial(em(), req.studio!, id(req, 'materialId'));
+        res.status(204).end();
+      },
+    },
+    { method: 'get', path: '/catalog/machines', permission: 'catalog:read', handler: async (req, res) => void res.json({ machines: (await catalog.listMachines(em(), req.studio!)).map(machineView) }) },
     {
       method: 'post', path: '/catalog/machines', permission: 'catalog:write',
       sample: () => ({ body: machine }),
-      handler: async (req, res) => void res.status(201).json(await catalog.createMachine(em(), req.studio!, machineInputSchema.parse(req.body))),
+      handler: async (req, res) => void res.status(201).json(machineView(await catalog.createMachine(em(), req.studio!, machineInputSchema.parse(req.body)))),
     },
     {
       method: 'put', path: '/catalog/machines/:machineId', permission: 'catalog:write',
       sample: async (f) => ({ params: { machineId: await f.catalog('machine') }, body: machine }),
-      handler: async (req, res) => void res.json(await catalog.updateMachine(em(), req.studio!, String(req.params.machineId), machineInputSchema.parse(req.body))),
+      handler: async (req, res) => void res.json(machineView(await catalog.updateMachine(em(), req.studio!, id(req, 'machineId'), machineInputSchema.parse(req.body)))),
     },
-    { method: 'get', path: '/catalog/recipes', permission: 'catalog:read', handler: async (req, res) => void res.json({ recipes: await catalog.listRecipes(em(), req.studio!) }) },
+    {
+      method: 'delete', path: '/catalog/machines/:machineId', permission: 'catalog:write',
+      sample: async (f) => ({ params: { machineId: await f.catalog('machine') } }),
+      handler: async (req, res) => {
+        await catalog.deleteMachine(em(), req.studio!, id(req, 'machineId'));
+        res.status(204).end();
+      },
+    },
+    { method: 'get', path: '/catalog/recipes', permission: 'catalog:read', handler: async (req, res) => void res.json({ recipes: (await catalog.listRecipes(em(), req.studio!)).map(recipeView) }) },
     {
       method: 'post', path: '/catalog/recipes', permission: 'catalog:write',
       sample: async (f) => ({ body: recipe(await f.catalog('material'), await f.catalog('machine')) }),
-      handler: async (req, res) => void res.status(201).json(await catalog.createRecipe(em(), req.studio!, recipeInputSchema.parse(req.body))),
+      handler: async (req, res) => void res.status(201).json(recipeView(await catalog.createRecipe(em(), req.studio!, recipeInputSchema.parse(req.body)))),
     },
     {
       method: 'put', path: '/catalog/recipes/:recipeId', permission: 'catalog:write',
       sample: async (f) => ({ params: { recipeId: await f.catalog('recipe') }, body: recipe(await f.catalog('material'), await f.catalog('machine')) }),
-      handler: async (req, res) => void res.json(await catalog.updateRecipe(em(), req.studio!, String(req.params.recipeId), recipeInputSchema.parse(req.body))),
+      handler: async (req, res) => void res.json(recipeView(await catalog.updateRecipe(em(), req.studio!, id(req, 'recipeId'), recipeInputSchema.parse(req.body)))),
     },
     {
       method: 'delete', path: '/catalog/recipes/:recipeId', permission: 'catalog:write',
       sample: async (f) => ({ params: { recipeId: await f.catalog('recipe') } }),
       handler: async (req, res) => {
-        await catalog.deleteRecipe(em(), req.studio!, String(req.params.recipeId));
+        await catalog.deleteRecipe(em(), req.studio!, id(req, 'recipeId'));
         res.status(204).end();
       },
     },
-    { method: 'get', path: '/catalog/blanks', permission: 'catalog:read', handler: async (req, res) => void res.json({ blanks: await catalog.listBlanks(em(), req.studio!) }) },
+    { method: 'get', path: '/catalog/blanks', permission: 'catalog:read', handler: async (req, res) => void res.json({ blanks: (await catalog.listBlanks(em(), req.studio!)).map((b) => blankView(b, workspacePhotoUrl(req))) }) },
+    {
+      method: 'get', path: '/catalog/blanks/:blankId', permission: 'catalog:read',
+      sample: async (f) => ({ params: { blankId: await f.catalog('blank') } }),
+      handler: async (req, res) => void res.json(blankView(await catalog.getBlank(em(), req.studio!, id(req, 'blankId')), workspacePhotoUrl(req))),
+    },
     {
       method: 'post', path: '/catalog/blanks', permission: 'catalog:write',
       sample: async (f) => ({ body: blank(await f.catalog('material')) }),
-      handler: async (req, res) => void res.status(201).json(await catalog.createBlank(em(), req.studio!, blankInputSchema.parse(req.body))),
+      handler: async (req, res) => void res.status(201).json(blankView(await catalog.createBlank(em(), req.studio!, blankInputSchema.parse(req.body)), workspacePhotoUrl(req))),
     },
     {
       method: 'put', path: '/catalog/blanks/:blankId', permission: 'catalog:write',
       sample: async (f) => ({ params: { blankId: await f.catalog('blank') }, body: blank(await f.catalog('material')) }),
-      handler: async (req, res) => void res.json(await catalog.updateBlank(em(), req.studio!, String(req.params.blankId), blankInputSchema.parse(req.body))),
+      handler: async (req, res) => void res.json(blankView(await catalog.updateBlank(em(), req.studio!, id(req, 'blankId'), blankInputSchema.parse(req.body)), workspacePhotoUrl(req))),
     },
     {
       method: 'post', path: '/catalog/blanks/:blankId/sizes', permission: 'catalog:write',
       sample: async (f) => ({ params: { blankId: await f.catalog('blank') }, body: size }),
-      handler: async (req, res) => void res.status(201).json(await catalog.addSize(em(), req.studio!, String(req.params.blankId), sizeInputSchema.parse(req.body))),
+      handler: async (req, res) => void res.status(201).json(sizeView(await catalog.addSize(em(), req.studio!, id(req, 'blankId'), sizeInputSchema.parse(req.body)))),
     },
     {
       method: 'put', path: '/catalog/sizes/:sizeId', permission: 'catalog:write',
       sample: async (f) => ({ params: { sizeId: await f.catalog('size') }, body: size }),
-      handler: async (req, res) => void res.json(await catalog.updateSize(em(), req.studio!, String(req.params.sizeId), sizeInputSchema.parse(req.body))),
+      handler: async (req, res) => void res.json(sizeView(await catalog.updateSize(em(), req.studio!, id(req, 'sizeId'), sizeInputSchema.parse(req.body)))),
     },
     {
       method: 'delete', path: '/catalog/sizes/:sizeId', permission: 'catalog:write',
       sample: async (f) => ({ params: { sizeId: await f.catalog('size') } }),
       handler: async (req, res) => {
-        await catalog.removeSize(em(), req.studio!, String(req.params.sizeId));
+        await catalog.removeSize(em(), req.studio!, id(req, 'sizeId'));
+        res.status(204).end();
+      },
+    },
+    {
+      method: 'post', path: '/catalog/blanks/:blankId/photo-uploads', permission: 'catalog:write',
+      sample: async (f) => ({ params: { blankId: await f.catalog('blank') }, body: { contentType: 'image/jpeg', contentLength: 1000 } }),
+      handler: async (req, res) => void res.status(201).json(await catalog.startPhotoUpload(em(), storage, req.studio!, id(req, 'blankId'), imageUploadRequestSchema.parse(req.body))),
+    },
+    {
+      method: 'post', path: '/catalog/blanks/:blankId/photos', permission: 'catalog:write',
+      sample: async (f) => ({ params: { blankId: await f.catalog('blank') }, body: { key: await f.upload('blank-photos') } }),
+      handler: async (req, res) => {
+        const { key } = claimUploadSchema.parse(req.body);
+        res.status(201).json(photoView(await catalog.addPhoto(em(), storage, req.studio!, id(req, 'blankId'), key), workspacePhotoUrl(req)));
+      },
+    },
+    {
+      method: 'get', path: '/catalog/photos/:photoId', permission: 'catalog:read',
+      sample: async (f) => ({ params: { photoId: await f.catalog('photo') } }),
+      handler: async (req, res) => {
+        const photo = await catalog.findIn(em(), BlankPhoto, req.studio!, id(req, 'photoId'), 'photo');
+        const object = await storage.get(photo.key);
+        res.set({ 'content-type': 'image/webp', 'cache-control': 'private, max-age=86400, immutable' }).end(Buffer.from(object.body));
+      },
+    },
+    {
+      method: 'delete', path: '/catalog/photos/:photoId', permission: 'catalog:write',
+      sample: async (f) => ({ params: { photoId: await f.catalog('photo') } }),
+      handler: async (req, res) => {
+        await catalog.removePhoto(em(), storage, req.studio!, id(req, 'photoId'));
         res.status(204).end();
       },
     },

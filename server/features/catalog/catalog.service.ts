@@ -4,12 +4,16 @@ import { AppError } from '../../../shared/errors.ts';
 import type { BlankInput, MachineInput, MaterialInput, RecipeInput, SizeInput } from '../../../shared/schemas/catalog.ts';
 import { isUuid } from '../../lib/tokens.ts';
 import type { Studio } from '../studios/studio.entity.ts';
-import { Blank, BlankSize, Machine, Material, Recipe } from './catalog.entity.ts';
+import { Blank, BlankPhoto, BlankSize, Machine, Material, Recipe } from './catalog.entity.ts';
 import { MATERIAL_LIBRARY } from './material-library.ts';
+import type { Storage } from '../../adapters/storage.ts';
+import { MAX_IMAGE_UPLOAD_BYTES, type ImageUploadRequest, type UploadTicket } from '../../../shared/schemas/uploads.ts';
+import { issueUpload, readUpload } from '../uploads/uploads.service.ts';
+import { toWebPhoto } from '../../imaging/web-photo.ts';
 
 /** Catalog rules. Every query runs under the tenant filter and names the studio as well. */
 
-async function findIn<T extends Material | Machine | Recipe | Blank | BlankSize>(
+export async function findIn<T extends Material | Machine | Recipe | Blank | BlankSize | BlankPhoto>(
   em: EntityManager,
   entity: new () => T,
   studio: Studio,
@@ -36,12 +40,29 @@ export function addMaterialLibrary(em: EntityManager, studio: Studio): Material[
   return MATERIAL_LIBRARY.map(({ suggestedLinesPerInch: _l, suggestedHalftone: _h, ...material }) => em.create(Material, { ...material, studio }));
 }
 
-export const listMaterials = (em: EntityManager, studio: Studio) => em.find(Material, { studio }, { orderBy: { name: 'asc' } });
+/** The studio's materials, each with how many blanks use it (a material in use cannot be deleted). */
+export async function listMaterials(em: EntityManager, studio: Studio): Promise<Array<{ material: Material; blankCount: number }>> {
+  const materials = await em.find(Material, { studio }, { orderBy: { name: 'asc' } });
+  const blanks = await em.find(Blank, { studio }, { fields: ['material'] });
+  const counts = new Map<string, number>();
+  for (const blank of blanks) counts.set(blank.material.id, (counts.get(blank.material.id) ?? 0) + 1);
+  return materials.map((material) => ({ material, blankCount: counts.get(material.id) ?? 0 }));
+}
 
 export async function createMaterial(em: EntityManager, studio: Studio, input: MaterialInput): Promise<Material> {
   const material = em.create(Material, { ...input, studio });
   await flushUnique(em, 'name', 'The studio already has a material with this name.');
   return material;
+}
+
+/** A material no blank uses may go; its recipes go with it. One in use is refused, naming the blanks. */
+export async function deleteMaterial(em: EntityManager, studio: Studio, id: string): Promise<void> {
+  const material = await findIn(em, Material, studio, id, 'material');
+  const blanks = await em.find(Blank, { studio, material }, { fields: ['name'], orderBy: { name: 'asc' } });
+  if (blanks.length) throw new AppError('CONFLICT', `${material.name} is used by ${blanks.map((b) => b.name).join(', ')}. Choose another material for those blanks first.`);
+  await em.nativeDelete(Recipe, { studio, material });
+  em.remove(material);
+  await em.flush();
 }
 
 export async function updateMaterial(em: EntityManager, studio: Studio, id: string, input: MaterialInput): Promise<Material> {
@@ -64,6 +85,14 @@ export async function updateMachine(em: EntityManager, studio: Studio, id: strin
   em.assign(machine, input);
   await em.flush();
   return machine;
+}
+
+/** Removes a machine and the recipes written for it. */
+export async function deleteMachine(em: EntityManager, studio: Studio, id: string): Promise<void> {
+  const machine = await findIn(em, Machine, studio, id, 'machine');
+  await em.nativeDelete(Recipe, { studio, machine });
+  em.remove(machine);
+  await em.flush();
 }
 
 /** A material the machine's laser kind must never touch is refused, with the reason. */
@@ -102,14 +131,20 @@ export async function deleteRecipe(em: EntityManager, studio: Studio, id: string
 }
 
 export const listBlanks = (em: EntityManager, studio: Studio) =>
-  em.find(Blank, { studio }, { populate: ['material', 'sizes'], orderBy: { sortOrder: 'asc', name: 'asc' } });
+  em.find(Blank, { studio }, { populate: ['material', 'sizes', 'photos'], orderBy: { sortOrder: 'asc', name: 'asc' } });
+
+export async function getBlank(em: EntityManager, studio: Studio, id: string): Promise<Blank> {
+  const blank = await findIn(em, Blank, studio, id, 'blank');
+  await em.populate(blank, ['material', 'sizes', 'photos']);
+  return blank;
+}
 
 export async function createBlank(em: EntityManager, studio: Studio, input: BlankInput): Promise<Blank> {
   const material = await findIn(em, Material, studio, input.materialId, 'material');
   const { materialId: _m, ...values } = input;
   const blank = em.create(Blank, { ...values, material, studio });
   await em.flush();
-  return blank;
+  return getBlank(em, studio, blank.id);
 }
 
 /** Blanks are never deleted: archiving keeps them for the orders that name them. */
@@ -119,7 +154,7 @@ export async function updateBlank(em: EntityManager, studio: Studio, id: string,
   const { materialId: _m, ...values } = input;
   em.assign(blank, { ...values, material });
   await em.flush();
-  return blank;
+  return getBlank(em, studio, blank.id);
 }
 
 export async function addSize(em: EntityManager, studio: Studio, blankId: string, input: SizeInput): Promise<BlankSize> {
@@ -139,6 +174,39 @@ export async function updateSize(em: EntityManager, studio: Studio, id: string, 
 export async function removeSize(em: EntityManager, studio: Studio, id: string): Promise<void> {
   em.remove(await findIn(em, BlankSize, studio, id, 'size'));
   await em.flush();
+}
+
+export const MAX_PHOTOS_PER_BLANK = 8;
+const photoUploadPrefix = (studio: Studio) => `uploads/${studio.id}/blank-photos`;
+
+/** A ticket for the browser to upload one product photo of a blank to storage. */
+export async function startPhotoUpload(em: EntityManager, storage: Storage, studio: Studio, blankId: string, request: ImageUploadRequest): Promise<UploadTicket> {
+  await findIn(em, Blank, studio, blankId, 'blank');
+  return issueUpload(storage, photoUploadPrefix(studio), request);
+}
+
+/**
+ * Takes an uploaded product photo: checks it is a photo, stores a web-ready copy beside the
+ * blank and drops the original upload. At most MAX_PHOTOS_PER_BLANK photos per blank.
+ */
+export async function addPhoto(em: EntityManager, storage: Storage, studio: Studio, blankId: string, key: string): Promise<BlankPhoto> {
+  const blank = await getBlank(em, studio, blankId);
+  if (blank.photos.length >= MAX_PHOTOS_PER_BLANK) throw new AppError('CONFLICT', `A blank shows at most ${MAX_PHOTOS_PER_BLANK} photos. Remove one first.`);
+  const web = await toWebPhoto(await readUpload(storage, photoUploadPrefix(studio), key, MAX_IMAGE_UPLOAD_BYTES));
+  const photo = em.create(BlankPhoto, { studio, blank, key: '', width: web.width, height: web.height, sortOrder: blank.photos.length });
+  photo.key = `studios/${studio.id}/blank-photos/${photo.id}.webp`;
+  await storage.put(photo.key, web.data, 'image/webp');
+  await em.flush();
+  await storage.remove(key);
+  return photo;
+}
+
+export async function removePhoto(em: EntityManager, storage: Storage, studio: Studio, id: string): Promise<void> {
+  const photo = await findIn(em, BlankPhoto, studio, id, 'photo');
+  em.remove(photo);
+  await em.flush();
+  // The row goes first: a stray object costs storage, a row without its object breaks a page.
+  await storage.remove(photo.key);
 }
 
 /**

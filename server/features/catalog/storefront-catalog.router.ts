@@ -1,27 +1,40 @@
 import { Router } from 'express';
 import type { EntityManager } from '@mikro-orm/postgresql';
+import { AppError } from '../../../shared/errors.ts';
 import { formatMoney } from '../../../shared/money.ts';
+import type { StorefrontCatalog } from '../../../shared/schemas/catalog.ts';
+import type { Storage } from '../../adapters/storage.ts';
 import type { Orm } from '../../db/orm.ts';
 import { TENANT_FILTER } from '../../db/tenant.ts';
+import { isUuid } from '../../lib/tokens.ts';
 import { findStudioBySlug } from '../studios/studios.service.ts';
-import { Blank } from './catalog.entity.ts';
+import { Blank, BlankPhoto } from './catalog.entity.ts';
+import { byPosition, photoView } from './catalog.views.ts';
 
 /** Low stock: few enough left that a buyer should know. */
-const LOW_STOCK = 3;
+export const LOW_STOCK = 3;
+
+export const stockState = (stock: number | null) => (stock === null ? 'in-stock' : stock === 0 ? 'sold-out' : stock <= LOW_STOCK ? 'few-left' : 'in-stock');
 
 /**
- * `GET /api/storefront/:studioSlug/blanks`: what a studio sells, for anyone. Active blanks only,
- * prices formatted in the studio's currency, the material's notes and a stock state; a
- * suspended studio sells nothing.
+ * What a studio sells, for anyone: `GET /api/storefront/:studioSlug/blanks` lists active blanks,
+ * prices formatted in the studio's currency, the material's notes and a stock state;
+ * `GET …/photos/:photoId` serves an active blank's photo. A suspended studio sells nothing.
  */
-export function storefrontCatalogRouter({ orm }: { orm: Orm }): Router {
+export function storefrontCatalogRouter({ orm, storage }: { orm: Orm; storage: Storage }): Router {
   const router = Router();
+  const openStudio = async (em: EntityManager, slug: string) => {
+    const studio = await findStudioBySlug(em, slug);
+    em.setFilterParams(TENANT_FILTER, { studioId: studio.id });
+    return studio;
+  };
+
   router.get('/:studioSlug/blanks', async (req, res) => {
     const em = orm.em as EntityManager;
-    const studio = await findStudioBySlug(em, req.params.studioSlug);
-    if (studio.status !== 'active') return void res.json({ open: false, blanks: [] });
-    em.setFilterParams(TENANT_FILTER, { studioId: studio.id });
-    const blanks = await em.find(Blank, { studio, status: 'active' }, { populate: ['material', 'sizes'], orderBy: { sortOrder: 'asc', name: 'asc' } });
+    const studio = await openStudio(em, req.params.studioSlug);
+    if (studio.status !== 'active') return void res.json({ open: false, blanks: [] } satisfies StorefrontCatalog);
+    const blanks = await em.find(Blank, { studio, status: 'active' }, { populate: ['material', 'sizes', 'photos'], orderBy: { sortOrder: 'asc', name: 'asc' } });
+    const photoUrl = (photo: BlankPhoto) => `/api/storefront/${studio.slug}/photos/${photo.id}`;
     res.json({
       open: true,
       blanks: blanks.map((b) => ({
@@ -30,6 +43,7 @@ export function storefrontCatalogRouter({ orm }: { orm: Orm }): Router {
         description: b.description,
         shape: b.shape,
         material: { name: b.material.name, family: b.material.family, surfaceColour: b.material.surfaceColour, markColour: b.material.markColour, notes: b.material.safetyNotes },
+        photos: b.photos.getItems().sort(byPosition).map((p) => photoView(p, photoUrl)),
         sizes: b.sizes
           .getItems()
           .sort((x, y) => x.priceMinor - y.priceMinor)
@@ -41,10 +55,20 @@ export function storefrontCatalogRouter({ orm }: { orm: Orm }): Router {
             orientation: s.orientation,
             priceMinor: s.priceMinor,
             price: formatMoney(s.priceMinor, studio.currency),
-            stock: s.stock === null ? 'in-stock' : s.stock === 0 ? 'sold-out' : s.stock <= LOW_STOCK ? 'few-left' : 'in-stock',
+            stock: stockState(s.stock),
           })),
       })),
-    });
+    } satisfies StorefrontCatalog);
+  });
+
+  router.get('/:studioSlug/photos/:photoId', async (req, res) => {
+    const em = orm.em as EntityManager;
+    const studio = await openStudio(em, req.params.studioSlug);
+    const photo = isUuid(req.params.photoId) ? await em.findOne(BlankPhoto, { id: req.params.photoId, studio, blank: { status: 'active' } }) : null;
+    if (!photo || studio.status !== 'active') throw new AppError('NOT_FOUND', 'There is no such photo.');
+    const object = await storage.get(photo.key);
+    // A photo's id names its content for good: a replaced photo gets a new id.
+    res.set({ 'content-type': 'image/webp', 'cache-control': 'public, max-age=604800, immutable' }).end(Buffer.from(object.body));
   });
   return router;
 }

@@ -1,0 +1,25 @@
+import sharp from 'sharp';
+import { inspectPhoto, MAX_INPUT_PIXELS } from './photo-decode.ts';
+
+/** Longest side of a product photo as shown on the storefront: sharp on large, high-density screens. */
+export const WEB_PHOTO_SIDE = 1600;
+/** Below this a product photo looks blurred even as a thumbnail. */
+export const MIN_PRODUCT_PHOTO_SIDE = 300;
+
+/**
+ * A product photo made ready for the web: checked like any photo, turned upright, scaled to fit
+ * WEB_PHOTO_SIDE (never enlarged), converted to sRGB WebP without its metadata (no GPS in EXIF).
+ */
+export async function toWebPhoto(bytes: Buffer): Promise<{ data: Buffer; width: number; height: number }> {
+  await inspectPhoto(bytes, {
+    minSide: MIN_PRODUCT_PHOTO_SIDE,
+    tooSmall: (w, h) => `This photo is only ${w} × ${h} pixels. Product photos need at least ${MIN_PRODUCT_PHOTO_SIDE} pixels on the short side.`,
+  });
+  const { data, info } = await sharp(bytes, { limitInputPixels: MAX_INPUT_PIXELS })
+    .rotate()
+    .resize({ width: WEB_PHOTO_SIDE, height: WEB_PHOTO_SIDE, fit: 'inside', withoutEnlargement: true })
+    .toColourspace('srgb')
+    .webp({ quality: 82 })
+    .toBuffer({ resolveWithObject: true });
+  return { data, width: info.width, height: info.height };
+}
