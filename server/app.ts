@@ -36,6 +36,12 @@ export function workspaceRoutes(deps: AppDeps): WorkspaceRoute[] {
   return [...studioRoutes(deps), ...teamRoutes(deps), ...catalogRoutes(deps)];
 }
 
+/** Where presigned upload URLs point: the endpoint itself, or the bucket's own host. */
+function storageOrigins(env: Env): string[] {
+  const endpoint = new URL(env.S3_ENDPOINT);
+  return env.S3_FORCE_PATH_STYLE ? [endpoint.origin] : [`${endpoint.protocol}//${env.S3_BUCKET}.${endpoint.host}`];
+}
+
 /** Builds the Express app. It never listens: server/index.ts does, and tests use it directly. */
 export function createApp(deps: AppDeps): Express {
   const { env, orm, logger } = deps;
@@ -50,7 +56,8 @@ export function createApp(deps: AppDeps): Express {
           // The built client has no inline script; styles come from our own bundle.
           'script-src': ["'self'"],
           'img-src': ["'self'", 'data:', 'blob:'],
-          'connect-src': ["'self'"],
+          // Browsers PUT uploads straight to object storage with presigned URLs.
+          'connect-src': ["'self'", ...storageOrigins(env)],
           'upgrade-insecure-requests': null,
         },
       },

@@ -17,7 +17,7 @@ export const LOW_STOCK = 3;
 export const stockState = (stock: number | null) => (stock === null ? 'in-stock' : stock === 0 ? 'sold-out' : stock <= LOW_STOCK ? 'few-left' : 'in-stock');
 
 /**
- * What a studio sells, for anyone: `GET /api/storefront/:studioSlug/blanks` lists active blanks,
+ * What a studio sells, for anyone: `GET /api/storefront/:studioSlug/blanks` lists active blanks with sizes,
  * prices formatted in the studio's currency, the material's notes and a stock state;
  * `GET …/photos/:photoId` serves an active blank's photo. A suspended studio sells nothing.
  */
@@ -37,7 +37,8 @@ export function storefrontCatalogRouter({ orm, storage }: { orm: Orm; storage: S
     const photoUrl = (photo: BlankPhoto) => `/api/storefront/${studio.slug}/photos/${photo.id}`;
     res.json({
       open: true,
-      blanks: blanks.map((b) => ({
+      // A blank on sale without a size has nothing to buy yet.
+      blanks: blanks.filter((b) => b.sizes.length > 0).map((b) => ({
         id: b.id,
         name: b.name,
         description: b.description,

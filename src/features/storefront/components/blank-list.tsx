@@ -1,24 +1,28 @@
 import type { StorefrontCatalog } from '../../../../shared/schemas/catalog.ts';
+import { formatSize, type LengthUnit } from '../../../../shared/units.ts';
 import { Card } from '../../../components/ui/card.tsx';
 
 const stockWords = { 'in-stock': 'In stock', 'few-left': 'Only a few left', 'sold-out': 'Sold out' } as const;
 const shapeRadius = { rectangle: '6px', 'rounded-rectangle': '18px', oval: '50% / 40%', circle: '50%' } as const;
 
 /** The blanks a studio sells, each with its material's colours, sizes and prices. */
-export function BlankList({ blanks, units }: { blanks: StorefrontCatalog['blanks']; units: 'in' | 'mm' }) {
-  const size = (mm: number) => (units === 'in' ? `${(mm / 25.4).toFixed(1)} in` : `${Math.round(mm)} mm`);
+export function BlankList({ blanks, units }: { blanks: StorefrontCatalog['blanks']; units: LengthUnit }) {
   return (
     <ul className="grid gap-5 sm:grid-cols-2 lg:grid-cols-3">
       {blanks.map((blank) => (
         <li key={blank.id}>
           <Card className="flex h-full flex-col gap-4">
-            <div
-              aria-hidden
-              className={`mx-auto flex items-center justify-center text-xs font-bold ${blank.shape === 'circle' ? 'h-28 w-28' : 'h-32 w-28'}`}
-              style={{ background: blank.material.surfaceColour, color: blank.material.markColour, borderRadius: shapeRadius[blank.shape] }}
-            >
-              {blank.material.name.split(' ')[0]}
-            </div>
+            {blank.photos[0] ? (
+              <img src={blank.photos[0].url} alt={blank.name} width={blank.photos[0].width} height={blank.photos[0].height} loading="lazy" className="-mx-6 -mt-6 aspect-[4/3] w-[calc(100%+3rem)] max-w-none rounded-t-card object-cover" />
+            ) : (
+              <div
+                aria-hidden
+                className={`mx-auto flex items-center justify-center text-xs font-bold ${blank.shape === 'circle' ? 'h-28 w-28' : 'h-32 w-28'}`}
+                style={{ background: blank.material.surfaceColour, color: blank.material.markColour, borderRadius: shapeRadius[blank.shape] }}
+              >
+                {blank.material.name.split(' ')[0]}
+              </div>
+            )}
             <div>
               <h3 className="text-lg font-bold">{blank.name}</h3>
               <p className="text-sm text-graphite-500">{blank.material.name}</p>
@@ -32,7 +36,7 @@ export function BlankList({ blanks, units }: { blanks: StorefrontCatalog['blanks
                     <th scope="row" className="py-1.5 text-left font-semibold">
                       {s.label}
                       <span className="block text-xs font-normal text-graphite-500">
-                        engraving {size(s.areaWidthMm)} × {size(s.areaHeightMm)}
+                        engraving area {formatSize(s.areaWidthMm, s.areaHeightMm, units)}
                       </span>
                     </th>
                     <td className="py-1.5 text-right">

@@ -1,0 +1,18 @@
+import { inchesToMm, mmToInches } from './imaging/sizing.ts';
+
+/**
+ * Lengths are stored in mm and shown in the studio's unit. Display values are rounded to what a
+ * person types: hundredths of an inch (0.254 mm), tenths of a millimetre.
+ */
+export type LengthUnit = 'in' | 'mm';
+export const LENGTH_UNIT_DECIMALS: Record<LengthUnit, number> = { in: 2, mm: 1 };
+
+const round = (value: number, decimals: number) => Math.round(value * 10 ** decimals) / 10 ** decimals;
+
+export const mmToUnit = (mm: number, unit: LengthUnit) => round(unit === 'in' ? mmToInches(mm) : mm, LENGTH_UNIT_DECIMALS[unit]);
+export const unitToMm = (value: number, unit: LengthUnit) => (unit === 'in' ? inchesToMm(value) : value);
+
+/** "8 × 10 in", "210 × 297 mm". */
+export function formatSize(widthMm: number, heightMm: number, unit: LengthUnit): string {
+  return `${mmToUnit(widthMm, unit)} × ${mmToUnit(heightMm, unit)} ${unit}`;
+}
