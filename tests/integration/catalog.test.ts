@@ -112,6 +112,8 @@ describe('catalog', () => {
     const active = (await owner.post(`${base}/blanks`).send({ name: 'Granite heart', materialId: named('Black granite').id, shape: 'circle', status: 'active' }).expect(201)).body;
     await owner.post(`${base}/blanks/${active.id}/sizes`).send({ ...goodSize, priceMinor: 3500, stock: 2 }).expect(201);
     await owner.post(`${base}/blanks`).send({ name: 'Hidden draft', materialId: named('Slate').id, shape: 'circle', status: 'draft' }).expect(201);
+    // On sale but with no size yet: nothing to buy, so not listed.
+    await owner.post(`${base}/blanks`).send({ name: 'No sizes yet', materialId: named('Slate').id, shape: 'circle', status: 'active' }).expect(201);
     const listed = (await request(t.app).get('/api/storefront/copper-kiln/blanks').expect(200)).body;
     expect(listed.open).toBe(true);
     expect(listed.blanks.map((b: { name: string }) => b.name)).toEqual(['Granite heart']);
@@ -175,6 +177,7 @@ describe('catalog', () => {
       expect((await sharp(image.body).metadata()).format).toBe('webp');
       // A draft's photo is not public; once active, the storefront lists and serves it.
       await request(t.app).get(`/api/storefront/copper-kiln/photos/${photo.id}`).expect(404);
+      await owner.post(`${base}/blanks/${blank.id}/sizes`).send(goodSize).expect(201);
       await owner.put(`${base}/blanks/${blank.id}`).send({ name: 'Photo tile', materialId: named('Slate').id, shape: 'rectangle', status: 'active' }).expect(200);
       const listed = (await request(t.app).get('/api/storefront/copper-kiln/blanks').expect(200)).body.blanks.find((b: { id: string }) => b.id === blank.id);
       expect(listed.photos).toHaveLength(1);
