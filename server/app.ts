@@ -11,6 +11,9 @@ import type { Orm } from './db/orm.ts';
 import { apiNotFound, errorHandler } from './middleware/error-handler.ts';
 import type { Auth } from './auth/auth.ts';
 import type { Storage } from './adapters/storage.ts';
+import type { Payments } from './adapters/payments.ts';
+import { paymentsWebhookRouter } from './features/orders/payments-webhook.router.ts';
+import { storefrontOrdersRouter } from './features/orders/storefront-orders.router.ts';
 import { workspaceRouter, type WorkspaceRoute } from './middleware/workspace-routes.ts';
 import { healthRouter } from './features/health/health.router.ts';
 import { storefrontRouter } from './features/studios/storefront.router.ts';
@@ -21,6 +24,7 @@ import { invitesRouter } from './features/team/invites.router.ts';
 import { platformRouter } from './features/platform/platform.router.ts';
 import { catalogRoutes } from './features/catalog/catalog.routes.ts';
 import { storefrontCatalogRouter } from './features/catalog/storefront-catalog.router.ts';
+import { storefrontPhotosRouter } from './features/photos/storefront-photos.router.ts';
 
 export type AppDeps = {
   env: Env;
@@ -29,6 +33,7 @@ export type AppDeps = {
   version: string;
   auth: Auth;
   storage: Storage;
+  payments: Payments;
 };
 
 /** Every route under /api/studios/:studioSlug, from every feature. The isolation tests walk this list. */
@@ -80,6 +85,8 @@ export function createApp(deps: AppDeps): Express {
       customLogLevel: (_req, res, error) => (error || res.statusCode >= 500 ? 'error' : 'info'),
     }),
   );
+  // The payment provider's signature covers the raw body: this route reads it before any parser.
+  app.use('/api/payments/webhook', paymentsWebhookRouter(deps));
   app.use('/api', express.json({ limit: env.JSON_BODY_LIMIT }));
   // Each request gets its own identity map, so entities never leak between requests.
   app.use((_req, _res, next) => RequestContext.create(orm.em, next));
@@ -88,6 +95,8 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/auth', deps.auth.router);
   app.use('/api/storefront', storefrontRouter({ orm }));
   app.use('/api/storefront', storefrontCatalogRouter(deps));
+  app.use('/api/storefront', storefrontPhotosRouter(deps));
+  app.use('/api/storefront', storefrontOrdersRouter(deps));
   app.use('/api', accountsRouter(deps));
   app.use('/api/invites', invitesRouter(deps));
   app.use('/api/platform', platformRouter(deps));

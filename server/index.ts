@@ -8,6 +8,7 @@ import { createMailer } from './adapters/mailer.ts';
 import { startOutboxSender } from './features/outbox/outbox.service.ts';
 import { createAuth } from './auth/auth.ts';
 import { createStorage } from './adapters/storage.ts';
+import { createPayments } from './adapters/payments.ts';
 
 /** The only place that listens. Started by the stack scripts, the Docker image and `npm run dev`. */
 async function main(): Promise<void> {
@@ -15,7 +16,7 @@ async function main(): Promise<void> {
   const logger = createLogger(env);
   const orm = await initOrm(env.DATABASE_URL);
   const auth = createAuth({ orm, env, logger });
-  const app = createApp({ env, orm, logger, version: appVersion, auth, storage: createStorage(env) });
+  const app = createApp({ env, orm, logger, version: appVersion, auth, storage: createStorage(env), payments: createPayments(env) });
   // E-mails leave through the outbox; this process sends what is due (any number may).
   const outbox = startOutboxSender(orm, createMailer(env), logger);
   const server = createServer(app);

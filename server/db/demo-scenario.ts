@@ -30,6 +30,11 @@ export const demoPeople: DemoPerson[] = [
 /** Each demo studio's machine, glass or stone blanks and sizes (prices in the studio's minor units). */
 export const demoCatalog = {
   'harbour-light': {
+    shipping: [
+      { name: 'Tracked post, 3–5 working days', priceMinor: 895 },
+      { name: 'Express courier, next working day', priceMinor: 1950 },
+    ],
+    pickup: 'Collect from 14 Quay Lane, Port Alder, Tuesday to Saturday, 10:00–17:00.',
     machine: { name: 'Workshop CO2, 100 W', laserKind: 'co2', powerWatts: 100, bedWidthMm: 900, bedHeightMm: 600, speedUnit: 'in/s', notes: 'Lens 2.0 in; air assist on for glass.' },
     recipeMaterial: 'Black-backed (painted) glass',
     blanks: [
@@ -53,6 +58,8 @@ export const demoCatalog = {
     ],
   },
   'fernhill-stone': {
+    shipping: [{ name: 'Tracked parcel, 2–4 days', priceMinor: 695 }],
+    pickup: '',
     machine: { name: 'Stone room CO2, 80 W', laserKind: 'co2', powerWatts: 80, bedWidthMm: 700, bedHeightMm: 500, speedUnit: 'mm/s', notes: '' },
     recipeMaterial: 'Black granite',
     blanks: [

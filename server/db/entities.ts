@@ -7,5 +7,10 @@ import { OutboxEmail } from '../features/outbox/outbox-email.entity.ts';
 import { SignInLimit } from '../auth/sign-in-limit.entity.ts';
 import { Blank, BlankPhoto, BlankSize, Machine, Material, Recipe } from '../features/catalog/catalog.entity.ts';
 
+import { BuyerPhoto } from '../features/photos/buyer-photo.entity.ts';
+
+import { ShippingRate } from '../features/shipping/shipping-rate.entity.ts';
+import { Order, OrderEvent, OrderItem, PaymentEvent } from '../features/orders/order.entity.ts';
+
 /** Every entity the ORM knows, listed by hand: discovery by folder scan needs compiled files. */
-export const entities = [Studio, User, Membership, Invite, VerificationToken, OutboxEmail, SignInLimit, Material, Machine, Recipe, Blank, BlankSize, BlankPhoto];
+export const entities = [Studio, User, Membership, Invite, VerificationToken, OutboxEmail, SignInLimit, Material, Machine, Recipe, Blank, BlankSize, BlankPhoto, BuyerPhoto, ShippingRate, Order, OrderItem, OrderEvent, PaymentEvent];

@@ -7,6 +7,7 @@ import { withoutTenantFilter } from './tenant.ts';
 import { DEMO_PASSWORD, demoCatalog, demoPeople, demoStudios } from './demo-scenario.ts';
 import { Blank, BlankSize, Machine, Material, Recipe } from '../features/catalog/catalog.entity.ts';
 import { addMaterialLibrary } from '../features/catalog/catalog.service.ts';
+import { ShippingRate } from '../features/shipping/shipping-rate.entity.ts';
 import { EXAMPLE_GLASS_RECIPE, MATERIAL_LIBRARY } from '../features/catalog/material-library.ts';
 import { TENANT_FILTER } from './tenant.ts';
 
@@ -70,6 +71,9 @@ async function seedDemoCatalog(em: EntityManager, studio: Studio): Promise<numbe
       : { linesPerInch: suggestion.suggestedLinesPerInch, halftoneMethod: suggestion.suggestedHalftone, tone: suggestion.defaultTone, speed: 300, powerMinPercent: 20, powerMaxPercent: 35, passes: 1, notes: '' };
   em.create(Recipe, { ...recipe, material: recipeMaterial, machine, studio });
   added += 2;
+  plan.shipping.forEach((rate, index) => em.create(ShippingRate, { ...rate, sortOrder: index, studio }));
+  added += plan.shipping.length;
+  if (plan.pickup) Object.assign(studio, { pickupEnabled: true, pickupNote: plan.pickup });
   plan.blanks.forEach((b, index) => {
     const blank = em.create(Blank, { name: b.name, description: b.description, material: byName(b.material), shape: b.shape, status: 'active', sortOrder: index, studio });
     for (const size of b.sizes) em.create(BlankSize, { ...size, stock: size.stock, blank, studio });

@@ -31,7 +31,7 @@ export function sniffFormat(bytes: Uint8Array): PhotoFormat | undefined {
 const UNSUPPORTED = 'This file is not a photo we can use. Please send a JPEG, PNG, WebP, TIFF or AVIF image.';
 const HEIC = 'This photo is in HEIC format, which we cannot read here. Choose "Most Compatible" (JPEG) in your phone’s camera settings, or upload it from our page, which converts it for you.';
 
-function toPhotoError(error: unknown): AppError {
+export function toPhotoError(error: unknown): AppError {
   const message = (error as Error).message ?? '';
   if (/pixel limit/i.test(message)) return new AppError('PAYLOAD_TOO_LARGE', `This photo has more pixels than we accept (${MAX_INPUT_PIXELS / 1_000_000} megapixels). Please send a smaller version.`);
   if (/unsupported image format/i.test(message)) return new AppError('UNSUPPORTED_MEDIA_TYPE', UNSUPPORTED);

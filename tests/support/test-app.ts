@@ -9,8 +9,9 @@ import { createMailer } from '../../server/adapters/mailer.ts';
 import { startOutboxSender } from '../../server/features/outbox/outbox.service.ts';
 import { createAuth, type Auth } from '../../server/auth/auth.ts';
 import { createStorage, type Storage } from '../../server/adapters/storage.ts';
+import { createPayments, type Payments } from '../../server/adapters/payments.ts';
 
-export type TestApp = { app: Express; orm: Orm; env: Env; databaseUrl: string; auth: Auth; storage: Storage };
+export type TestApp = { app: Express; orm: Orm; env: Env; databaseUrl: string; auth: Auth; storage: Storage; payments: Payments };
 
 /**
  * Builds the app as the server does, on a database of its own. `databasePort` makes the app
@@ -30,7 +31,8 @@ export async function buildTestApp(
   const logger = createLogger(env);
   const auth = createAuth({ orm, env, logger });
   const storage = createStorage(env);
-  const app = createApp({ env, orm, logger, version: 'test', auth, storage });
+  const payments = createPayments(env);
+  const app = createApp({ env, orm, logger, version: 'test', auth, storage, payments });
   // As in the server: e-mails go out through the outbox, here checked often.
   const mailer = createMailer(env);
   const outbox = startOutboxSender(orm, mailer, logger, 100);
@@ -40,6 +42,7 @@ export async function buildTestApp(
     env,
     auth,
     storage,
+    payments,
     databaseUrl: database.url,
     async close() {
       await outbox.stop();

@@ -1,4 +1,4 @@
-const escapeHtml = (s: string) => s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
+import { escapeHtml } from '../../lib/html.ts';
 
 export function verifyEmailMail(input: { name: string; studioName: string; url: string }) {
   return {

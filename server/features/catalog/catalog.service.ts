@@ -215,7 +215,7 @@ export async function removePhoto(em: EntityManager, storage: Storage, studio: S
  */
 export function snapshotForOrder(blank: Blank, size: BlankSize, recipe: Recipe | null) {
   return structuredClone({
-    blank: { id: blank.id, name: blank.name, shape: blank.shape, material: { id: blank.material.id, name: blank.material.name, surfaceColour: blank.material.surfaceColour, markColour: blank.material.markColour } },
+    blank: { id: blank.id, name: blank.name, shape: blank.shape, material: { id: blank.material.id, name: blank.material.name, surfaceColour: blank.material.surfaceColour, markColour: blank.material.markColour, defaultTone: blank.material.defaultTone, linesPerInchMax: blank.material.linesPerInchMax } },
     size: { id: size.id, label: size.label, areaWidthMm: size.areaWidthMm, areaHeightMm: size.areaHeightMm, outerWidthMm: size.outerWidthMm, outerHeightMm: size.outerHeightMm, priceMinor: size.priceMinor, sku: size.sku },
     recipe: recipe && { id: recipe.id, linesPerInch: recipe.linesPerInch, halftoneMethod: recipe.halftoneMethod, tone: recipe.tone, speed: recipe.speed, powerMinPercent: recipe.powerMinPercent, powerMaxPercent: recipe.powerMaxPercent, passes: recipe.passes },
   });

@@ -5,9 +5,8 @@ import { formatMoney } from '../../../shared/money.ts';
 import type { StorefrontCatalog } from '../../../shared/schemas/catalog.ts';
 import type { Storage } from '../../adapters/storage.ts';
 import type { Orm } from '../../db/orm.ts';
-import { TENANT_FILTER } from '../../db/tenant.ts';
 import { isUuid } from '../../lib/tokens.ts';
-import { findStudioBySlug } from '../studios/studios.service.ts';
+import { storefrontStudio } from '../studios/studios.service.ts';
 import { Blank, BlankPhoto } from './catalog.entity.ts';
 import { byPosition, photoView } from './catalog.views.ts';
 
@@ -23,15 +22,9 @@ export const stockState = (stock: number | null) => (stock === null ? 'in-stock'
  */
 export function storefrontCatalogRouter({ orm, storage }: { orm: Orm; storage: Storage }): Router {
   const router = Router();
-  const openStudio = async (em: EntityManager, slug: string) => {
-    const studio = await findStudioBySlug(em, slug);
-    em.setFilterParams(TENANT_FILTER, { studioId: studio.id });
-    return studio;
-  };
-
   router.get('/:studioSlug/blanks', async (req, res) => {
     const em = orm.em as EntityManager;
-    const studio = await openStudio(em, req.params.studioSlug);
+    const studio = await storefrontStudio(em, req.params.studioSlug);
     if (studio.status !== 'active') return void res.json({ open: false, blanks: [] } satisfies StorefrontCatalog);
     const blanks = await em.find(Blank, { studio, status: 'active' }, { populate: ['material', 'sizes', 'photos'], orderBy: { sortOrder: 'asc', name: 'asc' } });
     const photoUrl = (photo: BlankPhoto) => `/api/storefront/${studio.slug}/photos/${photo.id}`;
@@ -64,7 +57,7 @@ export function storefrontCatalogRouter({ orm, storage }: { orm: Orm; storage: S
 
   router.get('/:studioSlug/photos/:photoId', async (req, res) => {
     const em = orm.em as EntityManager;
-    const studio = await openStudio(em, req.params.studioSlug);
+    const studio = await storefrontStudio(em, req.params.studioSlug);
     const photo = isUuid(req.params.photoId) ? await em.findOne(BlankPhoto, { id: req.params.photoId, studio, blank: { status: 'active' } }) : null;
     if (!photo || studio.status !== 'active') throw new AppError('NOT_FOUND', 'There is no such photo.');
     const object = await storage.get(photo.key);

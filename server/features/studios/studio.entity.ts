@@ -4,7 +4,7 @@ import { BaseEntity } from '../../db/base.entity.ts';
 
 /** A tenant: one engraving studio with its own storefront and workspace. */
 @Entity({ tableName: 'studio' })
-export class Studio extends BaseEntity<'accentColour' | 'status' | 'currency' | 'units' | 'contactEmail' | 'logoKey'> {
+export class Studio extends BaseEntity<'accentColour' | 'status' | 'currency' | 'units' | 'contactEmail' | 'logoKey' | 'lowResolutionPolicy' | 'pickupEnabled' | 'pickupNote' | 'nextOrderNumber'> {
   @Property({ type: 'string', length: 40 })
   @Unique()
   slug!: string;
@@ -33,4 +33,19 @@ export class Studio extends BaseEntity<'accentColour' | 'status' | 'currency' | 
 
   @Enum({ items: ['active', 'suspended'], type: 'string' })
   status: StudioStatus = 'active';
+
+  /** Whether a photo too low in resolution for its size is refused, or ordered once the buyer confirms. */
+  @Enum({ items: ['confirm', 'refuse'], type: 'string' })
+  lowResolutionPolicy: 'confirm' | 'refuse' = 'confirm';
+
+  @Property({ type: 'boolean' })
+  pickupEnabled: boolean = false;
+
+  /** Where and when buyers collect, shown at checkout. */
+  @Property({ type: 'string', length: 300 })
+  pickupNote: string = '';
+
+  /** Order numbers count up per studio, taken with a row lock. */
+  @Property({ type: 'integer' })
+  nextOrderNumber: number = 1001;
 }

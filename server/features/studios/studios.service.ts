@@ -2,6 +2,7 @@ import type { EntityManager } from '@mikro-orm/postgresql';
 import { AppError } from '../../../shared/errors.ts';
 import { type PublicStudio, studioSlugSchema } from '../../../shared/studio.ts';
 import { Studio } from './studio.entity.ts';
+import { TENANT_FILTER } from '../../db/tenant.ts';
 
 /** A studio by its public slug; NOT_FOUND for unknown and malformed slugs alike. */
 export async function findStudioBySlug(em: EntityManager, slug: string): Promise<Studio> {
@@ -13,4 +14,15 @@ export async function findStudioBySlug(em: EntityManager, slug: string): Promise
 
 export function toPublicStudio(studio: Studio): PublicStudio {
   return { slug: studio.slug, name: studio.name, accentColour: studio.accentColour, status: studio.status, currency: studio.currency, units: studio.units };
+}
+
+/**
+ * The studio behind a storefront request, with the tenant filter set to it. `open` refuses a
+ * suspended studio: it shows its page but takes no photos and no orders.
+ */
+export async function storefrontStudio(em: EntityManager, slug: string, { open = false } = {}): Promise<Studio> {
+  const studio = await findStudioBySlug(em, slug);
+  em.setFilterParams(TENANT_FILTER, { studioId: studio.id });
+  if (open && studio.status !== 'active') throw new AppError('CONFLICT', `${studio.name} is closed for now and is not taking orders.`);
+  return studio;
 }

@@ -1,0 +1,33 @@
+import { escapeHtml } from '../../lib/html.ts';
+
+type Line = { name: string; quantity: number; price: string };
+
+const list = (lines: Line[]) => lines.map((l) => `${l.quantity} × ${l.name}: ${l.price}`).join('\n');
+const htmlList = (lines: Line[]) => `<ul>${lines.map((l) => `<li>${l.quantity} × ${escapeHtml(l.name)}: ${escapeHtml(l.price)}</li>`).join('')}</ul>`;
+
+/** To the buyer once payment is in: what was ordered and the private link to follow it. */
+export function orderReceivedMail(input: { studioName: string; number: number; buyerName: string; lines: Line[]; total: string; url: string }) {
+  return {
+    subject: `Your order ${input.number} at ${input.studioName}`,
+    text: `Hello ${input.buyerName},\n\nThank you: ${input.studioName} has your order ${input.number} and your payment of ${input.total}.\n\n${list(input.lines)}\n\nWe check every photo before engraving and will write if we need anything from you. Follow your order here:\n${input.url}\n\nKeep this link to yourself: it opens your order.`,
+    html: `<p>Hello ${escapeHtml(input.buyerName)},</p><p>Thank you: ${escapeHtml(input.studioName)} has your order <strong>${input.number}</strong> and your payment of ${escapeHtml(input.total)}.</p>${htmlList(input.lines)}<p>We check every photo before engraving and will write if we need anything from you.</p><p><a href="${escapeHtml(input.url)}">Follow your order</a></p><p>Keep this link to yourself: it opens your order.</p>`,
+  };
+}
+
+/** To the studio: a paid order waiting for its photo review. */
+export function newOrderMail(input: { studioName: string; number: number; buyerName: string; lines: Line[]; total: string; url: string }) {
+  return {
+    subject: `New order ${input.number} from ${input.buyerName}`,
+    text: `${input.buyerName} has ordered and paid ${input.total} at ${input.studioName}:\n\n${list(input.lines)}\n\nThe photos are waiting for review:\n${input.url}`,
+    html: `<p>${escapeHtml(input.buyerName)} has ordered and paid ${escapeHtml(input.total)} at ${escapeHtml(input.studioName)}:</p>${htmlList(input.lines)}<p><a href="${escapeHtml(input.url)}">Open the workspace</a></p>`,
+  };
+}
+
+/** To the buyer when stock ran out between checkout and payment: refunded, nothing to do. */
+export function soldOutMail(input: { studioName: string; number: number; buyerName: string; what: string; total: string }) {
+  return {
+    subject: `Order ${input.number} at ${input.studioName}: refunded, sold out`,
+    text: `Hello ${input.buyerName},\n\nWe are sorry: ${input.what} sold out while you were paying, so ${input.studioName} could not take order ${input.number}. Your payment of ${input.total} has been refunded in full; it shows on your statement within a few days.`,
+    html: `<p>Hello ${escapeHtml(input.buyerName)},</p><p>We are sorry: ${escapeHtml(input.what)} sold out while you were paying, so ${escapeHtml(input.studioName)} could not take order ${input.number}. Your payment of ${escapeHtml(input.total)} has been refunded in full; it shows on your statement within a few days.</p>`,
+  };
+}

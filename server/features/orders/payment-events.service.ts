@@ -1,0 +1,126 @@
+import { LockMode } from '@mikro-orm/core';
+import type { EntityManager } from '@mikro-orm/postgresql';
+import type Stripe from 'stripe';
+import { formatMoney } from '../../../shared/money.ts';
+import { assertMove } from '../../../shared/orders/stages.ts';
+import { ITEM_TRANSITIONS, ORDER_TRANSITIONS } from '../../../shared/orders/stages.ts';
+import type { Payments } from '../../adapters/payments.ts';
+import type { Env } from '../../env.ts';
+import type { Orm } from '../../db/orm.ts';
+import { TENANT_FILTER } from '../../db/tenant.ts';
+import { BlankSize } from '../catalog/catalog.entity.ts';
+import { queueEmail } from '../outbox/outbox.service.ts';
+import { Membership } from '../team/membership.entity.ts';
+import { newOrderMail, orderReceivedMail, soldOutMail } from './order-mail.ts';
+import { Order, OrderEvent } from './order.entity.ts';
+
+export type EventOutcome = 'handled' | 'duplicate' | 'ignored';
+
+/**
+ * Acts on one payment event, once: its id is recorded in the same transaction as what it
+ * changes, so a second delivery (or a retry after a crash) finds it and does nothing. A failure
+ * rolls everything back, the webhook answers 500, and the provider delivers it again.
+ */
+export async function handlePaymentEvent(orm: Orm, deps: { payments: Payments; env: Env }, event: Stripe.Event): Promise<EventOutcome> {
+  return (orm.em.fork() as EntityManager).transactional(async (em) => {
+    const claimed = await em.execute<Array<{ id: string }>>('insert into "payment_event" ("id", "type") values (?, ?) on conflict do nothing returning "id"', [event.id, event.type]);
+    if (!claimed.length) return 'duplicate';
+    switch (event.type) {
+      case 'checkout.session.completed':
+        return sessionCompleted(em, deps, event.data.object);
+      case 'checkout.session.expired':
+        return sessionExpired(em, event.data.object);
+      case 'payment_intent.payment_failed':
+        return paymentFailed(em, event.data.object);
+      default:
+        return 'ignored';
+    }
+  });
+}
+
+async function orderFor(em: EntityManager, orderId: string | undefined): Promise<Order | null> {
+  if (!orderId) return null;
+  const order = await em.findOne(Order, { id: orderId }, { filters: { [TENANT_FILTER]: false }, populate: ['studio'], lockMode: LockMode.PESSIMISTIC_WRITE });
+  if (order) em.setFilterParams(TENANT_FILTER, { studioId: order.studio.id });
+  return order;
+}
+
+async function sessionCompleted(em: EntityManager, deps: { payments: Payments; env: Env }, session: Stripe.Checkout.Session): Promise<EventOutcome> {
+  const order = await orderFor(em, session.metadata?.orderId);
+  if (!order || order.checkoutSessionId !== session.id || session.payment_status !== 'paid') return 'ignored';
+  if (order.status !== 'awaiting_payment') return 'ignored';
+  const studio = order.studio;
+  await em.populate(order, ['items']);
+  const items = order.items.getItems();
+  const paymentIntentId = typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
+  order.paymentIntentId = paymentIntentId;
+  const total = formatMoney(order.totalMinor, order.currency);
+
+  // Stock is taken when the money is in, under row locks, all or nothing.
+  const sizeIds = [...new Set(items.flatMap((i) => (i.size ? [i.size.id] : [])))];
+  const sizes = sizeIds.length ? await em.find(BlankSize, { id: { $in: sizeIds }, studio }, { lockMode: LockMode.PESSIMISTIC_WRITE }) : [];
+  const short = items.find((item) => {
+    const size = sizes.find((s) => s.id === item.size?.id);
+    const wanted = items.filter((i) => i.size?.id === item.size?.id).reduce((n, i) => n + i.quantity, 0);
+    return size && size.stock !== null && size.stock < wanted;
+  });
+  if (short) {
+    const what = `${short.snapshot.blank.name}, ${short.snapshot.size.label}`;
+    if (paymentIntentId) await deps.payments.stripe.refunds.create({ payment_intent: paymentIntentId, reason: 'requested_by_customer', metadata: { orderId: order.id } }, { idempotencyKey: `sold-out-${order.id}` });
+    assertMove('order', ORDER_TRANSITIONS, order.status, 'cancelled');
+    order.status = 'cancelled';
+    order.note = `${what} sold out while you were paying. Your payment of ${total} was refunded in full.`;
+    for (const item of items) item.stage = 'cancelled';
+    em.create(OrderEvent, { studio, order, type: 'sold_out', actor: 'payments', text: `Paid, but ${what} had sold out: refunded ${total} and cancelled.` });
+    queueEmail(em, { to: order.buyerEmail, ...soldOutMail({ studioName: studio.name, number: order.number, buyerName: order.buyerName, what, total }) });
+    return 'handled';
+  }
+  for (const size of sizes) {
+    if (size.stock === null) continue;
+    size.stock -= items.filter((i) => i.size?.id === size.id).reduce((n, i) => n + i.quantity, 0);
+  }
+  assertMove('order', ORDER_TRANSITIONS, order.status, 'paid');
+  order.status = 'paid';
+  order.paidAt = new Date();
+  for (const item of items) {
+    assertMove('item', ITEM_TRANSITIONS, item.stage, 'photo_review');
+    item.stage = 'photo_review';
+  }
+  em.create(OrderEvent, { studio, order, type: 'paid', actor: 'payments', text: `Payment of ${total} received. The photos are waiting for review.` });
+
+  const lines = items.map((i) => ({ name: `${i.snapshot.blank.name}, ${i.snapshot.size.label}`, quantity: i.quantity, price: formatMoney(i.unitPriceMinor * i.quantity, order.currency) }));
+  const mail = { studioName: studio.name, number: order.number, buyerName: order.buyerName, lines, total };
+  // The private link was sent to the pay page as its return address; the e-mail carries it too.
+  const key = new URL(session.success_url ?? 'http://x/').searchParams.get('key');
+  const orderUrl = `${deps.env.APP_URL}/s/${studio.slug}/orders/${order.id}${key ? `?key=${key}` : ''}`;
+  queueEmail(em, { to: order.buyerEmail, ...orderReceivedMail({ ...mail, url: orderUrl }) });
+  for (const to of await studioAddresses(em, order)) queueEmail(em, { to, ...newOrderMail({ ...mail, url: `${deps.env.APP_URL}/studio/${studio.slug}` }) });
+  return 'handled';
+}
+
+/** The studio's contact address, or else its owners'. */
+async function studioAddresses(em: EntityManager, order: Order): Promise<string[]> {
+  if (order.studio.contactEmail) return [order.studio.contactEmail];
+  const owners = await em.find(Membership, { studio: order.studio, role: 'owner' }, { populate: ['user'], filters: { [TENANT_FILTER]: false } });
+  return owners.map((m) => m.user.email);
+}
+
+async function sessionExpired(em: EntityManager, session: Stripe.Checkout.Session): Promise<EventOutcome> {
+  const order = await orderFor(em, session.metadata?.orderId);
+  // An expiry that arrives after the payment (events may come in any order) changes nothing.
+  if (!order || order.checkoutSessionId !== session.id || order.status !== 'awaiting_payment') return 'ignored';
+  await em.populate(order, ['items']);
+  order.status = 'cancelled';
+  order.note = 'The time to pay ran out, so the order was not placed. Nothing was charged.';
+  for (const item of order.items) item.stage = 'cancelled';
+  em.create(OrderEvent, { studio: order.studio, order, type: 'expired', actor: 'payments', text: 'The time to pay ran out; the order was released. Nothing was charged.' });
+  return 'handled';
+}
+
+async function paymentFailed(em: EntityManager, intent: Stripe.PaymentIntent): Promise<EventOutcome> {
+  const order = await orderFor(em, intent.metadata?.orderId);
+  if (!order || order.status !== 'awaiting_payment') return 'ignored';
+  const reason = intent.last_payment_error?.message ?? 'The payment was declined.';
+  em.create(OrderEvent, { studio: order.studio, order, type: 'payment_failed', actor: 'payments', text: `A payment attempt failed: ${reason}` });
+  return 'handled';
+}

@@ -1,0 +1,81 @@
+import { AppError } from '../errors.ts';
+
+/**
+ * The one state machine for orders and their items, used by the server to move them and by the
+ * client to show what may happen next. Money moves per order, work per item.
+ */
+export const ORDER_STATUSES = ['awaiting_payment', 'paid', 'fulfilled', 'cancelled', 'refunded'] as const;
+export type OrderStatus = (typeof ORDER_STATUSES)[number];
+
+export const ORDER_TRANSITIONS: Record<OrderStatus, readonly OrderStatus[]> = {
+  awaiting_payment: ['paid', 'cancelled'],
+  paid: ['fulfilled', 'cancelled', 'refunded'],
+  fulfilled: ['refunded'],
+  cancelled: [],
+  refunded: [],
+};
+
+/** `unpaid` until the order is paid; `cancelled` when its order is. */
+export const ITEM_STAGES = [
+  'unpaid',
+  'photo_review',
+  'needs_new_photo',
+  'prep',
+  'proof_sent',
+  'changes_requested',
+  'approved',
+  'in_production',
+  'burned',
+  'shipped',
+  'picked_up',
+  'cancelled',
+] as const;
+export type ItemStage = (typeof ITEM_STAGES)[number];
+
+export const ITEM_TRANSITIONS: Record<ItemStage, readonly ItemStage[]> = {
+  unpaid: ['photo_review', 'cancelled'],
+  photo_review: ['needs_new_photo', 'prep', 'cancelled'],
+  needs_new_photo: ['photo_review', 'cancelled'],
+  prep: ['proof_sent', 'approved', 'cancelled'],
+  proof_sent: ['approved', 'changes_requested', 'cancelled'],
+  changes_requested: ['prep', 'cancelled'],
+  approved: ['in_production', 'prep', 'cancelled'],
+  in_production: ['burned', 'approved'],
+  burned: ['shipped', 'picked_up'],
+  shipped: [],
+  picked_up: [],
+  cancelled: [],
+};
+
+/** How the buyer and the studio read each stage. */
+export const ITEM_STAGE_LABELS: Record<ItemStage, string> = {
+  unpaid: 'Waiting for payment',
+  photo_review: 'Photo being checked',
+  needs_new_photo: 'New photo needed',
+  prep: 'Being prepared',
+  proof_sent: 'Proof sent',
+  changes_requested: 'Changes requested',
+  approved: 'Approved for engraving',
+  in_production: 'Being engraved',
+  burned: 'Engraved',
+  shipped: 'Shipped',
+  picked_up: 'Picked up',
+  cancelled: 'Cancelled',
+};
+
+export const ORDER_STATUS_LABELS: Record<OrderStatus, string> = {
+  awaiting_payment: 'Waiting for payment',
+  paid: 'Paid',
+  fulfilled: 'Complete',
+  cancelled: 'Cancelled',
+  refunded: 'Refunded',
+};
+
+export const canMove = <S extends string>(transitions: Record<S, readonly S[]>, from: S, to: S) => transitions[from].includes(to);
+
+/** Refuses an illegal move with 409 and the moves that are allowed from here. */
+export function assertMove<S extends string>(what: string, transitions: Record<S, readonly S[]>, from: S, to: S): void {
+  if (canMove(transitions, from, to)) return;
+  const allowed = transitions[from];
+  throw new AppError('CONFLICT', `This ${what} is ${from.replaceAll('_', ' ')} and cannot become ${to.replaceAll('_', ' ')}. ${allowed.length ? `It can become: ${allowed.map((s) => s.replaceAll('_', ' ')).join(', ')}.` : 'It cannot change any more.'}`);
+}
