@@ -18,6 +18,7 @@ export const publicStudioSchema = z.object({
   status: studioStatusSchema,
   currency: z.string().length(3),
   units: z.enum(['in', 'mm']),
+  lowResolutionPolicy: z.enum(['confirm', 'refuse']),
 });
 export type PublicStudio = z.infer<typeof publicStudioSchema>;
 

@@ -148,6 +148,8 @@ export const storefrontCatalogSchema = z.object({
       description: z.string(),
       shape: z.enum(BLANK_SHAPES),
       material: z.object({ name: z.string(), family: z.string(), surfaceColour: z.string(), markColour: z.string(), notes: z.string() }),
+      /** How the studio burns this blank, for the mock-up: its recipe, or the material's usual tone. */
+      look: z.object({ tone: toneSchema, halftoneMethod: halftoneMethodSchema, linesPerInch: z.number() }),
       photos: z.array(blankPhotoSchema),
       sizes: z.array(
         z.object({

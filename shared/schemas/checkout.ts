@@ -9,11 +9,15 @@ import { BLANK_SHAPES, halftoneMethodSchema, toneSchema } from './catalog.ts';
  */
 const text = (max: number) => z.string().trim().max(max, `Use at most ${max} characters.`);
 
-/** A crop of the upright original in its own pixels, a rotation in degrees (clockwise) and a flip. */
+/**
+ * Where the photo sits: a window of the engraving area's proportions over the upright original,
+ * in its pixels (it may reach past the photo's edges, which stay empty); the photo is mirrored if
+ * asked and turned by `rotation` degrees clockwise about the window's centre.
+ */
 export const placementSchema = z.object({
   crop: z.object({
-    left: z.number().min(0),
-    top: z.number().min(0),
+    left: z.number(),
+    top: z.number(),
     width: z.number().positive(),
     height: z.number().positive(),
   }),

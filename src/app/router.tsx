@@ -5,6 +5,9 @@ import { OpenStudioPage } from './routes/open-a-studio.tsx';
 import { InvitePage } from './routes/invite.tsx';
 import { NotFoundPage } from './routes/not-found.tsx';
 import { StorefrontHomePage } from './routes/storefront/storefront-home.tsx';
+import { BlankPage as StorefrontBlankPage } from './routes/storefront/blank-page.tsx';
+import { CartPage } from './routes/storefront/cart.tsx';
+import { OrderPage } from './routes/storefront/order.tsx';
 import { WorkspaceOverviewPage } from './routes/workspace/overview.tsx';
 import { TeamPage } from './routes/workspace/team.tsx';
 import { SettingsPage } from './routes/workspace/settings.tsx';
@@ -24,6 +27,9 @@ export const router = createBrowserRouter([
   { path: '/invites/:token', element: <InvitePage /> },
   { path: '/platform/studios', element: <PlatformStudiosPage /> },
   { path: '/s/:studioSlug', element: <StorefrontHomePage /> },
+  { path: '/s/:studioSlug/blanks/:blankId', element: <StorefrontBlankPage /> },
+  { path: '/s/:studioSlug/cart', element: <CartPage /> },
+  { path: '/s/:studioSlug/orders/:orderId', element: <OrderPage /> },
   { path: '/studio/:studioSlug', element: <WorkspaceOverviewPage /> },
   { path: '/studio/:studioSlug/team', element: <TeamPage /> },
   { path: '/studio/:studioSlug/settings', element: <SettingsPage /> },

@@ -23,7 +23,7 @@ export type BrowserContext = TestApp & {
   baseUrl: string;
   browser: Browser;
   /** A new page that records console errors and failed requests in `problems`. */
-  newPage(): Promise<{ page: Page; problems: string[] }>;
+  newPage(options?: { bypassCSP?: boolean }): Promise<{ page: Page; problems: string[] }>;
 };
 
 /**
@@ -37,12 +37,15 @@ export function useBrowser(prepare?: () => Promise<Record<string, string>>): Bro
     mkdirSync(screenshotDir, { recursive: true });
     Object.assign(context, await buildTestApp((await prepare?.()) ?? {}));
     context.server = createServer(context.app);
-    await new Promise<void>((resolve) => context.server.listen(0, '127.0.0.1', resolve));
+    // An APP_URL from `prepare` names the port (links in e-mails and payment returns use it).
+    const port = context.env.APP_URL && new URL(context.env.APP_URL).port ? Number(new URL(context.env.APP_URL).port) : 0;
+    await new Promise<void>((resolve) => context.server.listen(port, '127.0.0.1', resolve));
     const address = context.server.address();
     context.baseUrl = `http://127.0.0.1:${typeof address === 'object' && address ? address.port : 0}`;
     context.browser = await chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', args: CHROMIUM_ARGS });
-    context.newPage = async () => {
-      const page = await context.browser.newPage({ viewport: { width: 1280, height: 860 } });
+    // bypassCSP only for pages that inject a checker (axe-core); the app's own pages keep the CSP.
+    context.newPage = async ({ bypassCSP = false } = {}) => {
+      const page = await context.browser.newPage({ viewport: { width: 1280, height: 860 }, bypassCSP });
       const problems: string[] = [];
       page.on('console', (message) => {
         if (message.type() === 'error') problems.push(`console: ${message.text()}`);
@@ -57,4 +60,23 @@ export function useBrowser(prepare?: () => Promise<Record<string, string>>): Bro
     await context.close?.();
   });
   return context;
+}
+
+/** A port free on loopback now, for an app whose own address must be known before it starts. */
+export async function freePort(): Promise<number> {
+  const probe = createServer();
+  await new Promise<void>((resolve) => probe.listen(0, '127.0.0.1', resolve));
+  const address = probe.address();
+  await new Promise((resolve) => probe.close(resolve));
+  return typeof address === 'object' && address ? address.port : 0;
+}
+
+/** Runs axe-core (from npm) in the page; answers the serious and critical violations. */
+export async function seriousA11yViolations(page: Page): Promise<string[]> {
+  await page.addScriptTag({ path: join(import.meta.dirname, '..', '..', 'node_modules', 'axe-core', 'axe.min.js') });
+  const violations = await page.evaluate(async () => {
+    const axe = (globalThis as unknown as { axe: { run(): Promise<{ violations: Array<{ id: string; impact: string; nodes: Array<{ target: string[] }> }> }> } }).axe;
+    return (await axe.run()).violations;
+  });
+  return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);
 }

@@ -7,7 +7,9 @@ import type { Storage } from '../../adapters/storage.ts';
 import type { Orm } from '../../db/orm.ts';
 import { isUuid } from '../../lib/tokens.ts';
 import { storefrontStudio } from '../studios/studios.service.ts';
-import { Blank, BlankPhoto } from './catalog.entity.ts';
+import { Blank, BlankPhoto, Recipe } from './catalog.entity.ts';
+import type { HalftoneMethod } from '../../../shared/imaging/halftone/halftone.ts';
+import { DEFAULT_LOOK_METHOD } from '../orders/order.views.ts';
 import { byPosition, photoView } from './catalog.views.ts';
 
 /** Low stock: few enough left that a buyer should know. */
@@ -28,6 +30,14 @@ export function storefrontCatalogRouter({ orm, storage }: { orm: Orm; storage: S
     if (studio.status !== 'active') return void res.json({ open: false, blanks: [] } satisfies StorefrontCatalog);
     const blanks = await em.find(Blank, { studio, status: 'active' }, { populate: ['material', 'sizes', 'photos'], orderBy: { sortOrder: 'asc', name: 'asc' } });
     const photoUrl = (photo: BlankPhoto) => `/api/storefront/${studio.slug}/photos/${photo.id}`;
+    // Each material burns with its first recipe, as orders do (checkout.service recipeFor).
+    const recipes = await em.find(Recipe, { studio }, { orderBy: { createdAt: 'asc' } });
+    const lookOf = (b: Blank) => {
+      const recipe = recipes.find((r) => r.material.id === b.material.id);
+      return recipe
+        ? { tone: recipe.tone, halftoneMethod: recipe.halftoneMethod as HalftoneMethod, linesPerInch: recipe.linesPerInch }
+        : { tone: b.material.defaultTone, halftoneMethod: DEFAULT_LOOK_METHOD, linesPerInch: b.material.linesPerInchMax };
+    };
     res.json({
       open: true,
       // A blank on sale without a size has nothing to buy yet.
@@ -37,6 +47,7 @@ export function storefrontCatalogRouter({ orm, storage }: { orm: Orm; storage: S
         description: b.description,
         shape: b.shape,
         material: { name: b.material.name, family: b.material.family, surfaceColour: b.material.surfaceColour, markColour: b.material.markColour, notes: b.material.safetyNotes },
+        look: lookOf(b),
         photos: b.photos.getItems().sort(byPosition).map((p) => photoView(p, photoUrl)),
         sizes: b.sizes
           .getItems()

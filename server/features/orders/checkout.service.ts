@@ -55,7 +55,8 @@ export async function placeOrder(em: EntityManager, deps: { env: Env; payments: 
     }
     const photo = await findBuyerPhoto(em, studio, item.photoId);
     const { crop } = item.placement;
-    if (crop.left + crop.width > photo.width + 1 || crop.top + crop.height > photo.height + 1) refuse(at('placement'), 'The photo’s placement does not fit the photo. Please place it again.');
+    const overlaps = crop.left < photo.width && crop.top < photo.height && crop.left + crop.width > 0 && crop.top + crop.height > 0;
+    if (!overlaps || crop.width > 4 * Math.max(photo.width, photo.height)) refuse(at('placement'), 'The photo is placed outside the engraving area. Please place it again.');
     const area = orientedArea(size, item.orientation);
     const ppi = effectivePpi(crop, area);
     if (verdictFor(ppi) === 'too-low') {

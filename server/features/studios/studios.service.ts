@@ -13,7 +13,7 @@ export async function findStudioBySlug(em: EntityManager, slug: string): Promise
 }
 
 export function toPublicStudio(studio: Studio): PublicStudio {
-  return { slug: studio.slug, name: studio.name, accentColour: studio.accentColour, status: studio.status, currency: studio.currency, units: studio.units };
+  return { slug: studio.slug, name: studio.name, accentColour: studio.accentColour, status: studio.status, currency: studio.currency, units: studio.units, lowResolutionPolicy: studio.lowResolutionPolicy };
 }
 
 /**

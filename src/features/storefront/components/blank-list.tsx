@@ -1,17 +1,19 @@
 import type { StorefrontCatalog } from '../../../../shared/schemas/catalog.ts';
 import { formatSize, type LengthUnit } from '../../../../shared/units.ts';
+import { Link } from 'react-router-dom';
 import { Card } from '../../../components/ui/card.tsx';
+import { buttonClasses } from '../../../components/ui/button.tsx';
 
 const stockWords = { 'in-stock': 'In stock', 'few-left': 'Only a few left', 'sold-out': 'Sold out' } as const;
 const shapeRadius = { rectangle: '6px', 'rounded-rectangle': '18px', oval: '50% / 40%', circle: '50%' } as const;
 
 /** The blanks a studio sells, each with its material's colours, sizes and prices. */
-export function BlankList({ blanks, units }: { blanks: StorefrontCatalog['blanks']; units: LengthUnit }) {
+export function BlankList({ studioSlug, blanks, units }: { studioSlug: string; blanks: StorefrontCatalog['blanks']; units: LengthUnit }) {
   return (
     <ul className="grid gap-5 sm:grid-cols-2 lg:grid-cols-3">
       {blanks.map((blank) => (
         <li key={blank.id}>
-          <Card className="flex h-full flex-col gap-4">
+          <Card className="relative flex h-full flex-col gap-4 transition hover:shadow-md">
             {blank.photos[0] ? (
               <img src={blank.photos[0].url} alt={blank.name} width={blank.photos[0].width} height={blank.photos[0].height} loading="lazy" className="-mx-6 -mt-6 aspect-[4/3] w-[calc(100%+3rem)] max-w-none rounded-t-card object-cover" />
             ) : (
@@ -24,7 +26,11 @@ export function BlankList({ blanks, units }: { blanks: StorefrontCatalog['blanks
               </div>
             )}
             <div>
-              <h3 className="text-lg font-bold">{blank.name}</h3>
+              <h3 className="text-lg font-bold">
+                <Link to={`/s/${studioSlug}/blanks/${blank.id}`} className="after:absolute after:inset-0 hover:underline">
+                  {blank.name}
+                </Link>
+              </h3>
               <p className="text-sm text-graphite-500">{blank.material.name}</p>
             </div>
             {blank.description && <p className="text-sm text-graphite-700">{blank.description}</p>}
@@ -47,6 +53,9 @@ export function BlankList({ blanks, units }: { blanks: StorefrontCatalog['blanks
                 ))}
               </tbody>
             </table>
+            <span aria-hidden className={buttonClasses('primary', 'md')}>
+              Design yours
+            </span>
           </Card>
         </li>
       ))}

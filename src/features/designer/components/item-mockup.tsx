@@ -1,0 +1,24 @@
+import { useEffect, useRef } from 'react';
+import type { OrderView } from '../../../../shared/schemas/checkout.ts';
+import { useMockup } from '../use-mockup.ts';
+
+type Item = OrderView['items'][number];
+
+/** An ordered item drawn again as it will burn, from its stored placement and recipe. */
+export function ItemMockup({ item, width = 220 }: { item: Item; width?: number }) {
+  const { look, placement, photo } = item;
+  const size = { width, height: Math.round((width * look.areaHeightMm) / look.areaWidthMm) };
+  const mockup = useMockup(photo);
+  const canvas = useRef<HTMLCanvasElement>(null);
+  useEffect(() => {
+    if (mockup.ready) mockup.render({ size, placement, look, view: 'burn' });
+  }, [mockup.ready]); // eslint-disable-line react-hooks/exhaustive-deps
+  useEffect(() => {
+    if (mockup.result) canvas.current?.getContext('2d')?.drawImage(mockup.result.image, 0, 0);
+  }, [mockup.result]);
+  return (
+    <div className="inline-flex rounded-lg p-3" style={{ background: look.surfaceColour }}>
+      <canvas ref={canvas} width={size.width} height={size.height} role="img" aria-label={`${item.blankName} as it will burn`} />
+    </div>
+  );
+}

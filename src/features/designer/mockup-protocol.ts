@@ -1,0 +1,20 @@
+import type { HalftoneMethod } from '../../../shared/imaging/halftone/halftone.ts';
+import type { BlankShape } from '../../../shared/schemas/catalog.ts';
+import type { Placement } from '../../../shared/schemas/checkout.ts';
+import type { ToneOptions } from '../../../shared/imaging/tone.ts';
+
+/** Messages between the page and the mock-up worker. */
+export type MockupLook = { shape: BlankShape; surfaceColour: string; markColour: string; tone: 'positive' | 'negative'; halftoneMethod: HalftoneMethod; linesPerInch: number };
+
+export type MockupJob = {
+  id: number;
+  /** Screen pixels of the engraving area. */
+  size: { width: number; height: number };
+  placement: Placement;
+  look: MockupLook;
+  tone?: ToneOptions;
+  view: 'photo' | 'burn';
+};
+
+export type MockupRequest = { type: 'photo'; bitmap: ImageBitmap; previewScale: number } | { type: 'render'; job: MockupJob };
+export type MockupReply = { type: 'rendered'; id: number; image: ImageBitmap; ms: number } | { type: 'failed'; id: number; message: string };
