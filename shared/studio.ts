@@ -35,3 +35,23 @@ export const studioSettingsInputSchema = z.object({
   contactEmail: z.union([z.literal(''), z.string().trim().toLowerCase().pipe(z.email('Enter a valid e-mail address.'))]).transform((v) => v || null),
 });
 export type StudioSettingsInput = z.infer<typeof studioSettingsInputSchema>;
+
+/** How a studio takes orders: low-resolution photos, and collection in person. */
+export const orderSettingsInputSchema = z
+  .object({
+    lowResolutionPolicy: z.enum(['confirm', 'refuse']),
+    pickupEnabled: z.boolean(),
+    pickupNote: z.string().trim().max(300, 'Use at most 300 characters.'),
+  })
+  .refine((s) => !s.pickupEnabled || s.pickupNote.length > 0, { path: ['pickupNote'], message: 'Say where and when buyers collect.' });
+export type OrderSettingsInput = z.infer<typeof orderSettingsInputSchema>;
+
+/** A flat shipping rate; the price is in the studio's currency's minor unit. */
+export const shippingRateInputSchema = z.object({
+  name: z.string().trim().min(1, 'Name the method, such as “Tracked post, 3–5 days”.').max(80, 'Use at most 80 characters.'),
+  priceMinor: z.number({ error: 'Enter a price.' }).int('Prices are whole minor units (cents).').min(0, 'A price cannot be negative.').max(10_000_000, 'That price is too high.'),
+  sortOrder: z.number({ error: 'Enter a position.' }).int().min(0).max(1000).default(0),
+});
+export type ShippingRateInput = z.infer<typeof shippingRateInputSchema>;
+export const shippingRateSchema = shippingRateInputSchema.extend({ id: z.uuid() });
+export type ShippingRateView = z.infer<typeof shippingRateSchema>;

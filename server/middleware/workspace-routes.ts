@@ -30,6 +30,7 @@ export type WorkspaceFixtures = {
   catalog(kind: 'material' | 'machine' | 'recipe' | 'blank' | 'size' | 'photo'): Promise<string>;
   /** The key of a small photo uploaded to storage as a browser would, under this purpose. */
   upload(purpose: 'blank-photos'): Promise<string>;
+  shippingRate(): Promise<string>;
 };
 
 export function workspaceRouter({ auth, orm, routes }: { auth: Auth; orm: Orm; routes: WorkspaceRoute[] }): Router {

@@ -1,43 +1,33 @@
 import { createBrowserRouter, Navigate } from 'react-router-dom';
-import { HomePage } from './routes/home.tsx';
-import { LinkSentPage, SignInPage } from './routes/sign-in.tsx';
-import { OpenStudioPage } from './routes/open-a-studio.tsx';
-import { InvitePage } from './routes/invite.tsx';
-import { NotFoundPage } from './routes/not-found.tsx';
 import { StorefrontHomePage } from './routes/storefront/storefront-home.tsx';
-import { BlankPage as StorefrontBlankPage } from './routes/storefront/blank-page.tsx';
-import { CartPage } from './routes/storefront/cart.tsx';
-import { OrderPage } from './routes/storefront/order.tsx';
-import { WorkspaceOverviewPage } from './routes/workspace/overview.tsx';
-import { TeamPage } from './routes/workspace/team.tsx';
-import { SettingsPage } from './routes/workspace/settings.tsx';
-import { PlatformStudiosPage } from './routes/platform-studios.tsx';
-import { BlanksPage } from './routes/workspace/catalog/blanks.tsx';
-import { BlankPage } from './routes/workspace/catalog/blank.tsx';
-import { MaterialsPage } from './routes/workspace/catalog/materials.tsx';
-import { MachinesPage } from './routes/workspace/catalog/machines.tsx';
-import { RecipesPage } from './routes/workspace/catalog/recipes.tsx';
+import { NotFoundPage } from './routes/not-found.tsx';
 
-/** Platform pages, a studio's storefront (/s/…) and its workspace (/studio/…). */
+/**
+ * Platform pages, a studio's storefront (/s/…) and its workspace (/studio/…). The storefront
+ * home is in the first bundle; every other page loads its own code when first opened, so a
+ * buyer never downloads the workspace.
+ */
+const page = <K extends string>(load: () => Promise<Record<K, React.ComponentType>>, name: K) => async () => ({ Component: (await load())[name] });
+
 export const router = createBrowserRouter([
-  { path: '/', element: <HomePage /> },
-  { path: '/sign-in', element: <SignInPage /> },
-  { path: '/sign-in/link-sent', element: <LinkSentPage /> },
-  { path: '/open-a-studio', element: <OpenStudioPage /> },
-  { path: '/invites/:token', element: <InvitePage /> },
-  { path: '/platform/studios', element: <PlatformStudiosPage /> },
+  { path: '/', lazy: page(() => import('./routes/home.tsx'), 'HomePage') },
+  { path: '/sign-in', lazy: page(() => import('./routes/sign-in.tsx'), 'SignInPage') },
+  { path: '/sign-in/link-sent', lazy: page(() => import('./routes/sign-in.tsx'), 'LinkSentPage') },
+  { path: '/open-a-studio', lazy: page(() => import('./routes/open-a-studio.tsx'), 'OpenStudioPage') },
+  { path: '/invites/:token', lazy: page(() => import('./routes/invite.tsx'), 'InvitePage') },
+  { path: '/platform/studios', lazy: page(() => import('./routes/platform-studios.tsx'), 'PlatformStudiosPage') },
   { path: '/s/:studioSlug', element: <StorefrontHomePage /> },
-  { path: '/s/:studioSlug/blanks/:blankId', element: <StorefrontBlankPage /> },
-  { path: '/s/:studioSlug/cart', element: <CartPage /> },
-  { path: '/s/:studioSlug/orders/:orderId', element: <OrderPage /> },
-  { path: '/studio/:studioSlug', element: <WorkspaceOverviewPage /> },
-  { path: '/studio/:studioSlug/team', element: <TeamPage /> },
-  { path: '/studio/:studioSlug/settings', element: <SettingsPage /> },
+  { path: '/s/:studioSlug/blanks/:blankId', lazy: page(() => import('./routes/storefront/blank-page.tsx'), 'BlankPage') },
+  { path: '/s/:studioSlug/cart', lazy: page(() => import('./routes/storefront/cart.tsx'), 'CartPage') },
+  { path: '/s/:studioSlug/orders/:orderId', lazy: page(() => import('./routes/storefront/order.tsx'), 'OrderPage') },
+  { path: '/studio/:studioSlug', lazy: page(() => import('./routes/workspace/overview.tsx'), 'WorkspaceOverviewPage') },
+  { path: '/studio/:studioSlug/team', lazy: page(() => import('./routes/workspace/team.tsx'), 'TeamPage') },
+  { path: '/studio/:studioSlug/settings', lazy: page(() => import('./routes/workspace/settings.tsx'), 'SettingsPage') },
   { path: '/studio/:studioSlug/catalog', element: <Navigate to="blanks" replace /> },
-  { path: '/studio/:studioSlug/catalog/blanks', element: <BlanksPage /> },
-  { path: '/studio/:studioSlug/catalog/blanks/:blankId', element: <BlankPage /> },
-  { path: '/studio/:studioSlug/catalog/materials', element: <MaterialsPage /> },
-  { path: '/studio/:studioSlug/catalog/machines', element: <MachinesPage /> },
-  { path: '/studio/:studioSlug/catalog/recipes', element: <RecipesPage /> },
+  { path: '/studio/:studioSlug/catalog/blanks', lazy: page(() => import('./routes/workspace/catalog/blanks.tsx'), 'BlanksPage') },
+  { path: '/studio/:studioSlug/catalog/blanks/:blankId', lazy: page(() => import('./routes/workspace/catalog/blank.tsx'), 'BlankPage') },
+  { path: '/studio/:studioSlug/catalog/materials', lazy: page(() => import('./routes/workspace/catalog/materials.tsx'), 'MaterialsPage') },
+  { path: '/studio/:studioSlug/catalog/machines', lazy: page(() => import('./routes/workspace/catalog/machines.tsx'), 'MachinesPage') },
+  { path: '/studio/:studioSlug/catalog/recipes', lazy: page(() => import('./routes/workspace/catalog/recipes.tsx'), 'RecipesPage') },
   { path: '*', element: <NotFoundPage /> },
 ]);

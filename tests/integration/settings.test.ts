@@ -34,4 +34,25 @@ describe('studio settings', () => {
     expect(res.body.issues.map((i: { path: string[] }) => i.path[0])).toEqual([field]);
     expect((await request(t.app).get('/api/storefront/willow-flint')).body.name).toBe('Willow & Flint');
   });
+
+  it('saves how orders are taken; the storefront and checkout follow', async () => {
+    await owner.put('/api/studios/willow-flint/settings/orders').send({ lowResolutionPolicy: 'refuse', pickupEnabled: true, pickupNote: '' }).expect(400);
+    const res = await owner.put('/api/studios/willow-flint/settings/orders').send({ lowResolutionPolicy: 'refuse', pickupEnabled: true, pickupNote: 'The workshop, Fridays 2–6 pm.' }).expect(200);
+    expect(res.body.orders).toEqual({ lowResolutionPolicy: 'refuse', pickupEnabled: true, pickupNote: 'The workshop, Fridays 2–6 pm.' });
+    expect((await request(t.app).get('/api/storefront/willow-flint').expect(200)).body.lowResolutionPolicy).toBe('refuse');
+    expect((await request(t.app).get('/api/storefront/willow-flint/delivery').expect(200)).body.pickup).toEqual({ note: 'The workshop, Fridays 2–6 pm.' });
+  });
+
+  it('keeps shipping rates, each checked; checkout lists them formatted in the currency', async () => {
+    for (const [change, field] of [[{ name: '' }, 'name'], [{ priceMinor: 8.5 }, 'priceMinor'], [{ priceMinor: -1 }, 'priceMinor']] as const) {
+      const bad = await owner.post('/api/studios/willow-flint/shipping-rates').send({ name: 'Post', priceMinor: 500, ...change }).expect(400);
+      expect(bad.body.issues.map((i: { path: string[] }) => i.path[0])).toEqual([field]);
+    }
+    const rate = (await owner.post('/api/studios/willow-flint/shipping-rates').send({ name: 'Tracked post', priceMinor: 650 }).expect(201)).body;
+    await owner.put(`/api/studios/willow-flint/shipping-rates/${rate.id}`).send({ name: 'Tracked post, 2 days', priceMinor: 700 }).expect(200);
+    const listed = (await request(t.app).get('/api/storefront/willow-flint/delivery').expect(200)).body.rates;
+    expect(listed).toEqual([{ id: rate.id, name: 'Tracked post, 2 days', priceMinor: 700, price: '€7.00' }]);
+    await owner.delete(`/api/studios/willow-flint/shipping-rates/${rate.id}`).expect(204);
+    await owner.delete(`/api/studios/willow-flint/shipping-rates/${rate.id}`).expect(404);
+  });
 });

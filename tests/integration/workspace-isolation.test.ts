@@ -10,6 +10,7 @@ import { Studio } from '../../server/features/studios/studio.entity.ts';
 import { useTestApp } from '../support/test-app.ts';
 import * as catalog from '../../server/features/catalog/catalog.service.ts';
 import { TENANT_FILTER } from '../../server/db/tenant.ts';
+import { ShippingRate } from '../../server/features/shipping/shipping-rate.entity.ts';
 import { agentFor, createMember, createStudio, createUser } from '../support/factories.ts';
 
 /**
@@ -45,6 +46,12 @@ describe('workspace isolation matrix', () => {
         const invite = fork.create(Invite, { studio: studioA.id, email: `i-${Math.random()}@example.com`, role: 'staff', tokenHash: Math.random().toString(16).slice(2).padEnd(64, '0'), expiresAt: new Date(Date.now() + 86_400_000), invitedBy: null });
         await fork.flush();
         return invite.id;
+      },
+      shippingRate: async () => {
+        const fork = t.orm.em.fork();
+        const created = fork.create(ShippingRate, { name: `Rate ${Math.random()}`, priceMinor: 500, sortOrder: 0, studio: studioA.id });
+        await fork.flush();
+        return created.id;
       },
       upload: async (purpose) => {
         const key = `uploads/${studioA.id}/${purpose}/${randomUUID()}`;

@@ -10,13 +10,19 @@ import { useToast } from '../../../components/ui/toast.tsx';
 import type { Workspace } from '../../../features/workspace/api/get-workspace.ts';
 import { useUpdateSettings } from '../../../features/workspace/api/update-settings.ts';
 import { useFieldErrors } from '../../../lib/use-field-errors.ts';
+import { OrderSettingsCard, ShippingRatesCard } from '../../../features/workspace/components/order-settings.tsx';
 
 export function SettingsPage() {
   return (
     <WorkspaceLayout>
       {(workspace) =>
         can(workspace.role, 'studio:settings') ? (
-          <SettingsForm workspace={workspace} />
+          <div className="flex max-w-2xl flex-col gap-6">
+            <h1 className="text-3xl font-extrabold">Settings</h1>
+            <SettingsForm workspace={workspace} />
+            <OrderSettingsCard workspace={workspace} />
+            <ShippingRatesCard workspace={workspace} />
+          </div>
         ) : (
           <Notice tone="error" title="Owners only">
             Your role in this studio does not allow changing its settings. Ask an owner.
@@ -47,8 +53,7 @@ function SettingsForm({ workspace }: { workspace: Workspace }) {
   }
 
   return (
-    <div className="flex max-w-2xl flex-col gap-6">
-      <h1 className="text-3xl font-extrabold">Settings</h1>
+    <>
       <Card>
         <CardTitle>Studio and storefront</CardTitle>
         <form onSubmit={onSubmit} className="flex flex-col gap-4" noValidate>
@@ -77,6 +82,6 @@ function SettingsForm({ workspace }: { workspace: Workspace }) {
           </Button>
         </form>
       </Card>
-    </div>
+    </>
   );
 }

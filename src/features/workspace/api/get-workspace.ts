@@ -13,6 +13,7 @@ export const workspaceSchema = z.object({
     contactEmail: z.string().nullable(),
     status: z.enum(['active', 'suspended']),
   }),
+  orders: z.object({ lowResolutionPolicy: z.enum(['confirm', 'refuse']), pickupEnabled: z.boolean(), pickupNote: z.string() }),
   role: z.enum(ROLES),
   permissions: z.array(z.enum(PERMISSIONS)),
 });

@@ -1,0 +1,59 @@
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { AppError } from '../../../shared/errors.ts';
+import { shippingRateInputSchema, type ShippingRateView } from '../../../shared/studio.ts';
+import type { Orm } from '../../db/orm.ts';
+import { isUuid } from '../../lib/tokens.ts';
+import type { WorkspaceRoute } from '../../middleware/workspace-routes.ts';
+import type { Studio } from '../studios/studio.entity.ts';
+import { ShippingRate } from './shipping-rate.entity.ts';
+
+const view = (r: ShippingRate): ShippingRateView => ({ id: r.id, name: r.name, priceMinor: r.priceMinor, sortOrder: r.sortOrder });
+const rate = { name: 'Tracked post', priceMinor: 895, sortOrder: 0 };
+
+async function findRate(em: EntityManager, studio: Studio, id: string): Promise<ShippingRate> {
+  const found = isUuid(id) ? await em.findOne(ShippingRate, { id, studio }) : null;
+  if (!found) throw new AppError('NOT_FOUND', 'There is no such shipping rate.');
+  return found;
+}
+
+/**
+ * A studio's flat shipping rates (owners set them; checkout offers them). An order keeps a copy
+ * of the rate it was placed with, so rates may change or go at any time.
+ */
+export function shippingRoutes({ orm }: { orm: Orm }): WorkspaceRoute[] {
+  const em = () => orm.em as EntityManager;
+  return [
+    {
+      method: 'get', path: '/shipping-rates', permission: 'studio:read',
+      handler: async (req, res) => void res.json({ rates: (await em().find(ShippingRate, { studio: req.studio! }, { orderBy: { sortOrder: 'asc', priceMinor: 'asc' } })).map(view) }),
+    },
+    {
+      method: 'post', path: '/shipping-rates', permission: 'studio:settings',
+      sample: () => ({ body: rate }),
+      handler: async (req, res) => {
+        const created = em().create(ShippingRate, { ...shippingRateInputSchema.parse(req.body), studio: req.studio! });
+        await em().flush();
+        res.status(201).json(view(created));
+      },
+    },
+    {
+      method: 'put', path: '/shipping-rates/:rateId', permission: 'studio:settings',
+      sample: async (f) => ({ params: { rateId: await f.shippingRate() }, body: rate }),
+      handler: async (req, res) => {
+        const found = await findRate(em(), req.studio!, String(req.params.rateId));
+        em().assign(found, shippingRateInputSchema.parse(req.body));
+        await em().flush();
+        res.json(view(found));
+      },
+    },
+    {
+      method: 'delete', path: '/shipping-rates/:rateId', permission: 'studio:settings',
+      sample: async (f) => ({ params: { rateId: await f.shippingRate() } }),
+      handler: async (req, res) => {
+        em().remove(await findRate(em(), req.studio!, String(req.params.rateId)));
+        await em().flush();
+        res.status(204).end();
+      },
+    },
+  ];
+}
