@@ -25,7 +25,7 @@ describe('client shell in Chromium', () => {
   it('opens a demo storefront in the studio’s own colour', async () => {
     const { page, problems } = await b.newPage();
     await page.goto(`${b.baseUrl}/s/harbour-light`);
-    await expect.poll(() => page.getByRole('heading', { level: 1 }).textContent()).toBe('Harbour Light Engraving');
+    await expect.poll(() => page.getByRole('heading', { level: 1 }).textContent()).toBe('Your photo, engraved by Harbour Light Engraving');
     const accent = await page.evaluate(() => getComputedStyle(document.querySelector('header')!).borderBottomColor);
     expect(accent).toBe('rgb(31, 111, 139)'); // #1f6f8b, the demo studio's accent
     // The demo catalog: active blanks with sizes and prices in the studio's currency.

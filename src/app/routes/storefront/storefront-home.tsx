@@ -12,9 +12,9 @@ export function StorefrontHomePage() {
     <StorefrontLayout>
       {({ name, units }) => (
         <section aria-labelledby="for-sale">
-          <h2 id="for-sale" className="mb-2 text-2xl font-extrabold">
+          <h1 id="for-sale" className="mb-2 text-3xl font-extrabold">
             Your photo, engraved by {name}
-          </h2>
+          </h1>
           <p className="mb-8 max-w-2xl text-graphite-600">Choose a piece, upload a photo and see how it will look once burned, before you pay.</p>
           {catalog.isPending && <p className="text-graphite-500">Loading what this studio makes…</p>}
           {catalog.error && <Notice tone="error">{catalog.error.message}</Notice>}
