@@ -14,6 +14,7 @@ import type { Storage } from './adapters/storage.ts';
 import type { Payments } from './adapters/payments.ts';
 import { paymentsWebhookRouter } from './features/orders/payments-webhook.router.ts';
 import { storefrontOrdersRouter } from './features/orders/storefront-orders.router.ts';
+import { myOrdersRouter } from './features/orders/my-orders.router.ts';
 import { workspaceRouter, type WorkspaceRoute } from './middleware/workspace-routes.ts';
 import { healthRouter } from './features/health/health.router.ts';
 import { storefrontRouter } from './features/studios/storefront.router.ts';
@@ -99,6 +100,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/storefront', storefrontPhotosRouter(deps));
   app.use('/api/storefront', storefrontOrdersRouter(deps));
   app.use('/api', accountsRouter(deps));
+  app.use('/api', myOrdersRouter(deps));
   app.use('/api/invites', invitesRouter(deps));
   app.use('/api/platform', platformRouter(deps));
   app.use('/api/studios/:studioSlug', workspaceRouter({ auth: deps.auth, orm, routes: workspaceRoutes(deps) }));

@@ -48,7 +48,7 @@ export async function seedDemo(em: EntityManager): Promise<number> {
         added++;
       }
     }
-    for (const studio of studios.values()) added += await seedDemoCatalog(tx, studio);
+    for (const studio of studios.values()) added += (await seedDemoCatalog(tx, studio)) + (await seedDemoDelivery(tx, studio));
   });
   return added;
 }
@@ -71,13 +71,19 @@ async function seedDemoCatalog(em: EntityManager, studio: Studio): Promise<numbe
       : { linesPerInch: suggestion.suggestedLinesPerInch, halftoneMethod: suggestion.suggestedHalftone, tone: suggestion.defaultTone, speed: 300, powerMinPercent: 20, powerMaxPercent: 35, passes: 1, notes: '' };
   em.create(Recipe, { ...recipe, material: recipeMaterial, machine, studio });
   added += 2;
-  plan.shipping.forEach((rate, index) => em.create(ShippingRate, { ...rate, sortOrder: index, studio }));
-  added += plan.shipping.length;
-  if (plan.pickup) Object.assign(studio, { pickupEnabled: true, pickupNote: plan.pickup });
   plan.blanks.forEach((b, index) => {
     const blank = em.create(Blank, { name: b.name, description: b.description, material: byName(b.material), shape: b.shape, status: 'active', sortOrder: index, studio });
     for (const size of b.sizes) em.create(BlankSize, { ...size, stock: size.stock, blank, studio });
     added += 1 + b.sizes.length;
   });
   return added;
+}
+
+/** A demo studio's shipping rates and pickup, once (also for demo data made before they existed). */
+async function seedDemoDelivery(em: EntityManager, studio: Studio): Promise<number> {
+  const plan = demoCatalog[studio.slug as keyof typeof demoCatalog];
+  if (!plan || (await em.count(ShippingRate, { studio }, { filters: { [TENANT_FILTER]: { studioId: studio.id } } }))) return 0;
+  plan.shipping.forEach((rate, index) => em.create(ShippingRate, { ...rate, sortOrder: index, studio }));
+  if (plan.pickup) Object.assign(studio, { pickupEnabled: true, pickupNote: plan.pickup });
+  return plan.shipping.length;
 }

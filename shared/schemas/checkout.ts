@@ -119,3 +119,20 @@ export const orderViewSchema = z.object({
   events: z.array(z.object({ at: z.string(), text: z.string() })),
 });
 export type OrderView = z.infer<typeof orderViewSchema>;
+
+export const myOrdersSchema = z.object({
+  /** False until the address is confirmed: orders are matched by it. */
+  confirmed: z.boolean(),
+  orders: z.array(
+    z.object({
+      id: z.uuid(),
+      number: z.number().int(),
+      status: z.enum(ORDER_STATUSES),
+      createdAt: z.string(),
+      total: z.string(),
+      studio: z.object({ slug: z.string(), name: z.string() }),
+      items: z.array(z.string()),
+    }),
+  ),
+});
+export type MyOrders = z.infer<typeof myOrdersSchema>;

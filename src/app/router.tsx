@@ -15,6 +15,7 @@ export const router = createBrowserRouter([
   { path: '/sign-in/link-sent', lazy: page(() => import('./routes/sign-in.tsx'), 'LinkSentPage') },
   { path: '/open-a-studio', lazy: page(() => import('./routes/open-a-studio.tsx'), 'OpenStudioPage') },
   { path: '/invites/:token', lazy: page(() => import('./routes/invite.tsx'), 'InvitePage') },
+  { path: '/account/orders', lazy: page(() => import('./routes/my-orders.tsx'), 'MyOrdersPage') },
   { path: '/platform/studios', lazy: page(() => import('./routes/platform-studios.tsx'), 'PlatformStudiosPage') },
   { path: '/s/:studioSlug', element: <StorefrontHomePage /> },
   { path: '/s/:studioSlug/blanks/:blankId', lazy: page(() => import('./routes/storefront/blank-page.tsx'), 'BlankPage') },

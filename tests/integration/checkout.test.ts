@@ -14,6 +14,7 @@ import { Studio } from '../../server/features/studios/studio.entity.ts';
 import { eventually } from '../support/fakes.ts';
 import { usePaymentsFake } from '../support/payments.ts';
 import { useTestApp } from '../support/test-app.ts';
+import { agentFor, createUser } from '../support/factories.ts';
 
 /**
  * From a photo to a paid order on the demo studio (USD, inches): uploads, pricing from the
@@ -215,6 +216,19 @@ describe('checkout and payment', () => {
     const session = await t.payments.stripe.checkout.sessions.retrieve((await orderOf(res.body.orderId)).checkoutSessionId!);
     const page = await request(t.app).get(new URL(session.success_url!).pathname.replace('/s/', '/api/storefront/') + new URL(session.success_url!).search).expect(200);
     expect(page.body).toMatchObject({ status: 'awaiting_payment', total: '$57.95', delivery: { label: 'Tracked post, 3–5 working days' } });
+  });
+
+  it('lists a signed-in buyer’s orders by their confirmed address, and opens them without the key', async () => {
+    const res = await checkout([item(small)], { buyer: { email: 'robin@buyers.test', name: 'Robin Vale' } }).expect(201);
+    const robin = await agentFor(t.app, await createUser(t.orm.em.fork(), { email: 'robin@buyers.test' }));
+    const mine = (await robin.get('/api/me/orders').expect(200)).body;
+    expect(mine.orders.map((o: { id: string }) => o.id)).toEqual([res.body.orderId]);
+    expect(mine.orders[0]).toMatchObject({ studio: { slug: 'harbour-light' }, total: '$57.95' });
+    await robin.get(`${base}/orders/${res.body.orderId}`).expect(200);
+    // Someone else, signed in, gets nothing.
+    const other = await agentFor(t.app, await createUser(t.orm.em.fork()));
+    expect((await other.get('/api/me/orders').expect(200)).body.orders).toEqual([]);
+    await other.get(`${base}/orders/${res.body.orderId}`).expect(404);
   });
 
   describe('uploads that cannot be used: a clear 4xx and no photo kept', () => {

@@ -13,12 +13,19 @@ import { storefrontStudio } from '../studios/studios.service.ts';
 import { placeOrder } from './checkout.service.ts';
 import { Order } from './order.entity.ts';
 import { orderView } from './order.views.ts';
+import type { Auth } from '../../auth/auth.ts';
+import { optionalUser } from '../../middleware/auth-guards.ts';
+import type { User } from '../accounts/user.entity.ts';
+
+/** A signed-in buyer whose confirmed address placed the order opens it without the link's key. */
+export const ownsOrder = (user: User | undefined, order: Order) => Boolean(user?.emailVerifiedAt && user.email === order.buyerEmail);
 
 /**
  * Checkout and the buyer's order page, under `/api/storefront/:studioSlug`. An order opens with
- * the key from its private link (compared as hashes, in constant time), never by id alone.
+ * the key from its private link (compared as hashes, in constant time) or for its buyer signed in
+ * with the same confirmed address, never by id alone.
  */
-export function storefrontOrdersRouter({ orm, env, payments }: { orm: Orm; env: Env; payments: Payments }): Router {
+export function storefrontOrdersRouter({ orm, env, payments, auth }: { orm: Orm; env: Env; payments: Payments; auth: Auth }): Router {
   const router = Router();
   const em = () => orm.em as EntityManager;
 
@@ -38,13 +45,15 @@ export function storefrontOrdersRouter({ orm, env, payments }: { orm: Orm; env: 
     res.status(201).json({ orderId: order.id, paymentUrl });
   });
 
-  router.get('/:studioSlug/orders/:orderId', async (req, res) => {
-    const studio = await storefrontStudio(em(), req.params.studioSlug);
+  router.get('/:studioSlug/orders/:orderId', optionalUser(auth), async (req, res) => {
+    const [slug, orderId] = [String(req.params.studioSlug), String(req.params.orderId)];
+    const studio = await storefrontStudio(em(), slug);
     const key = typeof req.query.key === 'string' ? req.query.key : '';
-    const order = isUuid(req.params.orderId) ? await em().findOne(Order, { id: req.params.orderId, studio }, { populate: ['items', 'items.photo', 'events', 'studio'] }) : null;
+    const order = isUuid(orderId) ? await em().findOne(Order, { id: orderId, studio }, { populate: ['items', 'items.photo', 'events', 'studio'] }) : null;
     const expected = order ? Buffer.from(order.accessKeyHash, 'hex') : Buffer.alloc(32);
     const given = Buffer.from(hashToken(key), 'hex');
-    if (!order || !key || !timingSafeEqual(expected, given)) throw new AppError('NOT_FOUND', 'There is no order at this link. Check that you used the whole link from the e-mail.');
+    const byKey = Boolean(order && key && timingSafeEqual(expected, given));
+    if (!order || !(byKey || ownsOrder(req.user, order))) throw new AppError('NOT_FOUND', 'There is no order at this link. Check that you used the whole link from the e-mail.');
     res.set('cache-control', 'no-store').json(orderView(order));
   });
   return router;

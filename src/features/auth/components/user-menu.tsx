@@ -44,6 +44,9 @@ export function UserMenu() {
           Platform
         </Link>
       )}
+      <Link to="/account/orders" className="rounded-lg px-3 py-2 font-semibold text-graphite-700 hover:bg-graphite-100">
+        My orders
+      </Link>
       <span className="hidden px-2 text-graphite-500 sm:inline">{user.name ?? user.email}</span>
       <button type="button" onClick={onSignOut} className="rounded-lg px-3 py-2 font-semibold text-graphite-700 hover:bg-graphite-100">
         Sign out
