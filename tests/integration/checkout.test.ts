@@ -218,6 +218,19 @@ describe('checkout and payment', () => {
     expect(page.body).toMatchObject({ status: 'awaiting_payment', total: '$57.95', delivery: { label: 'Tracked post, 3–5 working days' } });
   });
 
+  it('keeps what was ordered when the catalog changes afterwards', async () => {
+    const res = await checkout([item(small)]).expect(201);
+    const em = scoped();
+    await em.nativeUpdate(BlankSize, { id: small.id }, { priceMinor: 9900, label: '5 × 7 in, new' });
+    await em.nativeUpdate(Blank, { id: glass.id }, { name: 'Renamed portrait' });
+    const order = await orderOf(res.body.orderId);
+    const [line] = order.items.getItems();
+    expect(line).toMatchObject({ unitPriceMinor: 4900, snapshot: { blank: { name: 'Black-backed glass portrait' }, size: { label: '5 × 7 in', priceMinor: 4900 }, recipe: { linesPerInch: 360, speed: 5 } } });
+    expect(order.totalMinor).toBe(4900 + 895);
+    await em.nativeUpdate(BlankSize, { id: small.id }, { priceMinor: 4900, label: '5 × 7 in' });
+    await em.nativeUpdate(Blank, { id: glass.id }, { name: 'Black-backed glass portrait' });
+  });
+
   it('lists a signed-in buyer’s orders by their confirmed address, and opens them without the key', async () => {
     const res = await checkout([item(small)], { buyer: { email: 'robin@buyers.test', name: 'Robin Vale' } }).expect(201);
     const robin = await agentFor(t.app, await createUser(t.orm.em.fork(), { email: 'robin@buyers.test' }));

@@ -14,6 +14,7 @@ import { cx } from '../../../lib/cx.ts';
 import { useCart } from '../../cart/cart-store.ts';
 import { clampFraming, MAX_ZOOM, startFraming, toPlacement, type Framing } from '../placement.ts';
 import { useMockup } from '../use-mockup.ts';
+import { drawInscription } from '../inscription.ts';
 import { PhotoDrop } from './photo-drop.tsx';
 
 type Blank = StorefrontCatalog['blanks'][number];
@@ -68,16 +69,7 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
     if (!ctx) return;
     ctx.clearRect(0, 0, canvasSize.width, canvasSize.height);
     if (mockup.result) ctx.drawImage(mockup.result.image, 0, 0, canvasSize.width, canvasSize.height);
-    const lines = inscription.on ? inscription.lines.filter((l) => l.trim()) : [];
-    if (lines.length) {
-      const px = Math.round(inscription.size * canvasSize.height);
-      ctx.font = `${inscription.font === 'rounded-bold' ? 800 : 600} ${px}px Nunito, sans-serif`;
-      ctx.textAlign = 'center';
-      ctx.fillStyle = view === 'burn' ? look.markColour : '#ffffff';
-      ctx.shadowColor = view === 'burn' ? 'transparent' : 'rgb(0 0 0 / 0.6)';
-      ctx.shadowBlur = view === 'burn' ? 0 : 4;
-      lines.forEach((line, i) => ctx.fillText(line, canvasSize.width / 2, canvasSize.height * 0.93 - (lines.length - 1 - i) * px * 1.2));
-    }
+    if (inscription.on) drawInscription(ctx, inscription, canvasSize, view === 'burn' ? look.markColour : '#ffffff', view === 'photo');
   }, [mockup.result, inscription, view, look.markColour, canvasSize.width, canvasSize.height]);
 
   function choosePhoto(next: BuyerPhotoView) {

@@ -1,6 +1,7 @@
 import { useEffect, useRef } from 'react';
 import type { OrderView } from '../../../../shared/schemas/checkout.ts';
 import { useMockup } from '../use-mockup.ts';
+import { drawInscription } from '../inscription.ts';
 
 type Item = OrderView['items'][number];
 
@@ -14,8 +15,11 @@ export function ItemMockup({ item, width = 220 }: { item: Item; width?: number }
     if (mockup.ready) mockup.render({ size, placement, look, view: 'burn' });
   }, [mockup.ready]); // eslint-disable-line react-hooks/exhaustive-deps
   useEffect(() => {
-    if (mockup.result) canvas.current?.getContext('2d')?.drawImage(mockup.result.image, 0, 0);
-  }, [mockup.result]);
+    const ctx = canvas.current?.getContext('2d');
+    if (!ctx || !mockup.result) return;
+    ctx.drawImage(mockup.result.image, 0, 0);
+    if (item.inscription) drawInscription(ctx, item.inscription, size, look.markColour);
+  }, [mockup.result]); // eslint-disable-line react-hooks/exhaustive-deps
   return (
     <div className="inline-flex rounded-lg p-3" style={{ background: look.surfaceColour }}>
       <canvas ref={canvas} width={size.width} height={size.height} role="img" aria-label={`${item.blankName} as it will burn`} />
