@@ -95,7 +95,7 @@ export function createApp(deps: AppDeps): Express {
 
   app.use('/api/health', healthRouter({ orm, version: deps.version }));
   app.use('/api/auth', deps.auth.router);
-  app.use('/api/storefront', storefrontRouter({ orm }));
+  app.use('/api/storefront', storefrontRouter(deps));
   app.use('/api/storefront', storefrontCatalogRouter(deps));
   app.use('/api/storefront', storefrontPhotosRouter(deps));
   app.use('/api/storefront', storefrontOrdersRouter(deps));

@@ -19,6 +19,7 @@ export const publicStudioSchema = z.object({
   currency: z.string().length(3),
   units: z.enum(['in', 'mm']),
   lowResolutionPolicy: z.enum(['confirm', 'refuse']),
+  logoUrl: z.string().nullable(),
 });
 export type PublicStudio = z.infer<typeof publicStudioSchema>;
 

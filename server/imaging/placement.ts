@@ -5,9 +5,11 @@ import { outputSize } from '../../shared/imaging/sizing.ts';
 import { MAX_INPUT_PIXELS } from './photo-decode.ts';
 
 /**
- * Where the photo sits in the engraving area: a crop of the upright photo (source pixels), then a
- * rotation (degrees, clockwise; the corners it opens are transparent, so they do not burn) and
- * optional flips; the result fills the area at the line density, resampled with Lanczos-3.
+ * Where the photo sits in the engraving area, as `shared/schemas/checkout.ts` defines it and the
+ * storefront's mock-up draws it: a window of the area's proportions over the upright photo (it
+ * may reach past the photo's edges, which stay transparent and so never burn); the photo mirrored
+ * if asked and turned by `rotation` degrees clockwise about the window's centre. The window then
+ * fills the area at the line density, resampled with Lanczos-3.
  */
 // libvips picks one thread on a two-core machine; rendering wants them all.
 sharp.concurrency(availableParallelism());
@@ -16,8 +18,9 @@ export type Placement = {
   crop: { left: number; top: number; width: number; height: number };
   rotation?: number;
   flipHorizontal?: boolean;
-  flipVertical?: boolean;
 };
+
+const CLEAR = { r: 255, g: 255, b: 255, alpha: 0 };
 
 /** Runs a pipeline to raw pixels and opens them as the next stage's input. */
 async function rawStage(pipeline: Sharp): Promise<Sharp> {
@@ -25,27 +28,55 @@ async function rawStage(pipeline: Sharp): Promise<Sharp> {
   return sharp(data, { raw: { width: info.width, height: info.height, channels: info.channels }, limitInputPixels: false });
 }
 
+/**
+ * A region of the upright photo, padded with transparency where it reaches past the edges, as
+ * raw RGBA pixels.
+ */
+async function region(upright: { data: Buffer; width: number; height: number }, left: number, top: number, width: number, height: number): Promise<Sharp> {
+  const pad = { left: Math.max(0, -left), top: Math.max(0, -top), right: Math.max(0, left + width - upright.width), bottom: Math.max(0, top + height - upright.height) };
+  let pipeline = sharp(upright.data, { raw: { width: upright.width, height: upright.height, channels: 4 }, limitInputPixels: false });
+  if (pad.left || pad.top || pad.right || pad.bottom) pipeline = await rawStage(pipeline.extend({ ...pad, background: CLEAR }));
+  return rawStage(pipeline.extract({ left: left + pad.left, top: top + pad.top, width, height }));
+}
+
 export async function placePhoto(bytes: Buffer, placement: Placement, area: { widthMm: number; heightMm: number }, linesPerInch: number): Promise<Rgba8> {
   const size = outputSize(area, linesPerInch);
   const { crop } = placement;
-  // Stage 1: upright, cropped (sharp applies one geometry step per pipeline, so crop first).
+  const [w, h] = [Math.max(1, Math.round(crop.width)), Math.max(1, Math.round(crop.height))];
+  const [cx, cy] = [crop.left + crop.width / 2, crop.top + crop.height / 2];
+  const decoded = () => sharp(bytes, { limitInputPixels: MAX_INPUT_PIXELS }).rotate().toColourspace('srgb').ensureAlpha();
+  const [left, top] = [Math.round(cx - w / 2), Math.round(cy - h / 2)];
   // Stages hand over raw pixels: encoding them in between would be work for nothing.
-  const cropped = await rawStage(
-    sharp(bytes, { limitInputPixels: MAX_INPUT_PIXELS })
-      .rotate()
-      .toColourspace('srgb')
-      .ensureAlpha()
-      .extract({ left: Math.round(crop.left), top: Math.round(crop.top), width: Math.round(crop.width), height: Math.round(crop.height) }),
-  );
-  let pipeline = cropped;
-  if (placement.rotation) pipeline = pipeline.rotate(placement.rotation, { background: { r: 255, g: 255, b: 255, alpha: 0 } });
-  if (placement.flipVertical) pipeline = pipeline.flip();
-  if (placement.flipHorizontal) pipeline = pipeline.flop();
-  if (placement.rotation) pipeline = await rawStage(pipeline);
-  const { data, info } = await pipeline
-    .resize({ width: size.width, height: size.height, fit: 'cover', kernel: 'lanczos3' })
-    .ensureAlpha()
-    .raw()
-    .toBuffer({ resolveWithObject: true });
+  if (!placement.rotation && left >= 0 && top >= 0) {
+    // The common case, a window inside the photo: cut it while decoding (sharp applies one
+    // geometry step per pipeline, so the upright turn and the cut come first, alone).
+    const meta = await sharp(bytes, { limitInputPixels: MAX_INPUT_PIXELS }).metadata();
+    const [uw, uh] = (meta.orientation ?? 1) >= 5 ? [meta.height ?? 0, meta.width ?? 0] : [meta.width ?? 0, meta.height ?? 0];
+    if (left + w <= uw && top + h <= uh) {
+      let window = await rawStage(decoded().extract({ left, top, width: w, height: h }));
+      if (placement.flipHorizontal) window = await rawStage(window.flop());
+      return finish(window, size);
+    }
+  }
+  const { data: uprightData, info } = await decoded().raw().toBuffer({ resolveWithObject: true });
+  const upright = { data: uprightData, width: info.width, height: info.height };
+  let window: Sharp;
+  if (!placement.rotation) {
+    window = await region(upright, Math.round(cx - w / 2), Math.round(cy - h / 2), w, h);
+    if (placement.flipHorizontal) window = await rawStage(window.flop());
+  } else {
+    // A square around the window's centre large enough for any turn, mirrored, turned about its
+    // centre (the corners it opens are transparent), then the window cut from its middle.
+    const side = Math.ceil(Math.hypot(w, h)) + 2;
+    let turned = await region(upright, Math.round(cx - side / 2), Math.round(cy - side / 2), side, side);
+    if (placement.flipHorizontal) turned = await rawStage(turned.flop());
+    const { data: rotated, info: r } = await turned.rotate(placement.rotation, { background: CLEAR }).raw().toBuffer({ resolveWithObject: true });
+    window = await region({ data: rotated, width: r.width, height: r.height }, Math.round((r.width - w) / 2), Math.round((r.height - h) / 2), w, h);
+  }
+  return finish(window, size);
+}
+
+async function finish(window: Sharp, size: { width: number; height: number }): Promise<Rgba8> {
+  const { data, info } = await window.resize({ width: size.width, height: size.height, fit: 'fill', kernel: 'lanczos3' }).ensureAlpha().raw().toBuffer({ resolveWithObject: true });
   return { width: info.width, height: info.height, data: new Uint8Array(data.buffer, data.byteOffset, data.length) };
 }

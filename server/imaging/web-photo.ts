@@ -6,18 +6,24 @@ export const WEB_PHOTO_SIDE = 1600;
 /** Below this a product photo looks blurred even as a thumbnail. */
 export const MIN_PRODUCT_PHOTO_SIDE = 300;
 
+/** A studio's logo: small, transparency kept. */
+export const LOGO_OPTIONS = { side: 512, minSide: 64, what: 'Logos' };
+
 /**
- * A product photo made ready for the web: checked like any photo, turned upright, scaled to fit
+ * A product photo (or a logo) made ready for the web: checked like any photo, turned upright, scaled to fit
  * WEB_PHOTO_SIDE (never enlarged), converted to sRGB WebP without its metadata (no GPS in EXIF).
  */
-export async function toWebPhoto(bytes: Buffer): Promise<{ data: Buffer; width: number; height: number }> {
+export async function toWebPhoto(
+  bytes: Buffer,
+  { side = WEB_PHOTO_SIDE, minSide = MIN_PRODUCT_PHOTO_SIDE, what = 'Product photos' } = {},
+): Promise<{ data: Buffer; width: number; height: number }> {
   await inspectPhoto(bytes, {
-    minSide: MIN_PRODUCT_PHOTO_SIDE,
-    tooSmall: (w, h) => `This photo is only ${w} × ${h} pixels. Product photos need at least ${MIN_PRODUCT_PHOTO_SIDE} pixels on the short side.`,
+    minSide,
+    tooSmall: (w, h) => `This image is only ${w} × ${h} pixels. ${what} need at least ${minSide} pixels on the short side.`,
   });
   const { data, info } = await sharp(bytes, { limitInputPixels: MAX_INPUT_PIXELS })
     .rotate()
-    .resize({ width: WEB_PHOTO_SIDE, height: WEB_PHOTO_SIDE, fit: 'inside', withoutEnlargement: true })
+    .resize({ width: side, height: side, fit: 'inside', withoutEnlargement: true })
     .toColourspace('srgb')
     .webp({ quality: 82 })
     .toBuffer({ resolveWithObject: true });

@@ -29,7 +29,7 @@ export type WorkspaceFixtures = {
   /** A fresh catalog record of the studio under test; returns its id. */
   catalog(kind: 'material' | 'machine' | 'recipe' | 'blank' | 'size' | 'photo'): Promise<string>;
   /** The key of a small photo uploaded to storage as a browser would, under this purpose. */
-  upload(purpose: 'blank-photos'): Promise<string>;
+  upload(purpose: 'blank-photos' | 'logo'): Promise<string>;
   shippingRate(): Promise<string>;
 };
 

@@ -1,5 +1,6 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
+import sharp from 'sharp';
 import type { Studio } from '../../server/features/studios/studio.entity.ts';
 import { useTestApp } from '../support/test-app.ts';
 import { agentFor, createMember, createStudio } from '../support/factories.ts';
@@ -54,5 +55,20 @@ describe('studio settings', () => {
     expect(listed).toEqual([{ id: rate.id, name: 'Tracked post, 2 days', priceMinor: 700, price: '€7.00' }]);
     await owner.delete(`/api/studios/willow-flint/shipping-rates/${rate.id}`).expect(204);
     await owner.delete(`/api/studios/willow-flint/shipping-rates/${rate.id}`).expect(404);
+  });
+
+  it('takes a logo through a presigned upload, shows it on the storefront, and removes it', async () => {
+    const png = await sharp({ create: { width: 600, height: 200, channels: 4, background: { r: 40, g: 90, b: 60, alpha: 0.5 } } }).png().toBuffer();
+    const ticket = (await owner.post('/api/studios/willow-flint/settings/logo-uploads').send({ contentType: 'image/png', contentLength: png.length }).expect(201)).body;
+    expect((await fetch(ticket.url, { method: 'PUT', headers: ticket.headers, body: new Uint8Array(png) })).status).toBe(200);
+    const saved = (await owner.put('/api/studios/willow-flint/settings/logo').send({ key: ticket.key }).expect(200)).body;
+    const logoUrl = (await request(t.app).get('/api/storefront/willow-flint').expect(200)).body.logoUrl;
+    expect(logoUrl).toBe(saved.studio.logoUrl);
+    const image = await request(t.app).get(logoUrl).expect(200).expect('content-type', 'image/webp');
+    // Scaled to fit 512 px, transparency kept.
+    expect(await sharp(image.body).metadata()).toMatchObject({ format: 'webp', width: 512, height: 171, hasAlpha: true });
+    await owner.delete('/api/studios/willow-flint/settings/logo').expect(200);
+    expect((await request(t.app).get('/api/storefront/willow-flint').expect(200)).body.logoUrl).toBeNull();
+    await request(t.app).get('/api/storefront/willow-flint/logo').expect(404);
   });
 });

@@ -16,7 +16,7 @@ describe('GET /api/storefront/:studioSlug', () => {
 
   it('answers the public face of a studio and nothing more', async () => {
     const res = await request(t.app).get('/api/storefront/north-pier').expect(200);
-    expect(publicStudioSchema.strict().parse(res.body)).toEqual({ slug: 'north-pier', name: 'North Pier Etching', accentColour: '#336699', status: 'active', currency: 'USD', units: 'in', lowResolutionPolicy: 'confirm' });
+    expect(publicStudioSchema.strict().parse(res.body)).toEqual({ slug: 'north-pier', name: 'North Pier Etching', accentColour: '#336699', status: 'active', currency: 'USD', units: 'in', lowResolutionPolicy: 'confirm', logoUrl: null });
   });
 
   it('tells a suspended studio apart', async () => {

@@ -12,8 +12,11 @@ export async function findStudioBySlug(em: EntityManager, slug: string): Promise
   return studio;
 }
 
+/** Where a studio's logo loads from; the key's own name changes with each new logo, so it caches well. */
+export const logoUrl = (studio: Studio) => (studio.logoKey ? `/api/storefront/${studio.slug}/logo?v=${studio.logoKey.split('/').pop()!.replace('.webp', '')}` : null);
+
 export function toPublicStudio(studio: Studio): PublicStudio {
-  return { slug: studio.slug, name: studio.name, accentColour: studio.accentColour, status: studio.status, currency: studio.currency, units: studio.units, lowResolutionPolicy: studio.lowResolutionPolicy };
+  return { slug: studio.slug, name: studio.name, accentColour: studio.accentColour, status: studio.status, currency: studio.currency, units: studio.units, lowResolutionPolicy: studio.lowResolutionPolicy, logoUrl: logoUrl(studio) };
 }
 
 /**

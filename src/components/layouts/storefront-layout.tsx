@@ -29,7 +29,8 @@ export function StorefrontLayout({ children }: { children: (studio: PublicStudio
     <div style={{ '--color-accent': accentColour } as CSSProperties} className="flex min-h-screen flex-col">
       <header className="border-b-4 border-accent bg-white">
         <div className="mx-auto flex h-20 max-w-6xl items-center justify-between gap-4 px-6">
-          <Link to={`/s/${studioSlug}`} className="text-2xl font-extrabold text-graphite-950">
+          <Link to={`/s/${studioSlug}`} className="flex items-center gap-3 text-2xl font-extrabold text-graphite-950">
+            {studio.data.logoUrl && <img src={studio.data.logoUrl} alt="" className="h-12 max-w-40 object-contain" />}
             {name}
           </Link>
           {status === 'active' && (

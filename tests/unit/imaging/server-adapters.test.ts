@@ -168,13 +168,37 @@ describe('placement and the whole server pipeline', () => {
     expect(worst).toBeLessThanOrEqual(1);
   });
 
-  it('leaves the corners a fine rotation opens transparent, so they never burn', async () => {
+  it('leaves what the turned photo does not cover transparent, so it never burns', async () => {
     const bytes = readFileSync(join(referencePhotoDir, 'coffee.png'));
-    const placed = await placePhoto(bytes, { crop: { left: 100, top: 0, width: 400, height: 400 }, rotation: 15 }, { widthMm: 50.8, heightMm: 50.8 }, 100);
+    // The whole 600 × 400 photo as the window, turned 15°: its corners fall outside the photo.
+    const placed = await placePhoto(bytes, { crop: { left: 0, top: 0, width: 600, height: 400 }, rotation: 15 }, { widthMm: 76.2, heightMm: 50.8 }, 100);
+    expect([placed.width, placed.height]).toEqual([300, 200]);
     expect(placed.data[3]).toBe(0); // top-left corner alpha
-    const centre = (100 * placed.width + 100) * 4;
+    const centre = (100 * placed.width + 150) * 4;
     expect(placed.data[centre + 3]).toBe(255);
     const bitmap = renderBitmap(placed, { negative: true, halftone: { method: 'floyd-steinberg' } });
     expect(bitmap.data[0]).toBe(1); // the transparent corner stays unburned even as a negative
+  });
+
+  it('turns clockwise about the window’s centre and mirrors, as the storefront mock-up draws it', async () => {
+    // A grey 200 × 200 photo with a red mark left of centre (at 40–60, 90–110).
+    const photo = await sharp({ create: { width: 200, height: 200, channels: 3, background: '#808080' } })
+      .composite([{ input: await sharp({ create: { width: 20, height: 20, channels: 3, background: '#ff0000' } }).png().toBuffer(), left: 40, top: 90 }])
+      .png()
+      .toBuffer();
+    const area = { widthMm: 50.8, heightMm: 50.8 }; // 200 × 200 at 100 lines per inch
+    const red = (img: { width: number; data: ArrayLike<number> }, x: number, y: number) => img.data[(y * img.width + x) * 4]! > 200 && img.data[(y * img.width + x) * 4 + 1]! < 80;
+    const window = { left: 0, top: 0, width: 200, height: 200 };
+    expect(red(await placePhoto(photo, { crop: window }, area, 100), 50, 100)).toBe(true);
+    // Clockwise on screen (y down): a point left of the centre goes above it.
+    const turned = await placePhoto(photo, { crop: window, rotation: 90 }, area, 100);
+    expect(red(turned, 100, 50)).toBe(true);
+    expect(red(turned, 50, 100)).toBe(false);
+    // Mirrored: left of centre becomes right of it.
+    expect(red(await placePhoto(photo, { crop: window, flipHorizontal: true }, area, 100), 150, 100)).toBe(true);
+    // A window reaching past the photo's edge: the part outside is transparent.
+    const shifted = await placePhoto(photo, { crop: { left: -100, top: 0, width: 200, height: 200 } }, area, 100);
+    expect(shifted.data[(100 * 200 + 10) * 4 + 3]).toBe(0);
+    expect(red(shifted, 150, 100)).toBe(true);
   });
 });

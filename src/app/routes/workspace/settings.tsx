@@ -11,6 +11,7 @@ import type { Workspace } from '../../../features/workspace/api/get-workspace.ts
 import { useUpdateSettings } from '../../../features/workspace/api/update-settings.ts';
 import { useFieldErrors } from '../../../lib/use-field-errors.ts';
 import { OrderSettingsCard, ShippingRatesCard } from '../../../features/workspace/components/order-settings.tsx';
+import { LogoCard } from '../../../features/workspace/components/logo-card.tsx';
 
 export function SettingsPage() {
   return (
@@ -20,6 +21,7 @@ export function SettingsPage() {
           <div className="flex max-w-2xl flex-col gap-6">
             <h1 className="text-3xl font-extrabold">Settings</h1>
             <SettingsForm workspace={workspace} />
+            <LogoCard workspace={workspace} />
             <OrderSettingsCard workspace={workspace} />
             <ShippingRatesCard workspace={workspace} />
           </div>

@@ -12,6 +12,7 @@ export const workspaceSchema = z.object({
     units: z.enum(['in', 'mm']),
     contactEmail: z.string().nullable(),
     status: z.enum(['active', 'suspended']),
+    logoUrl: z.string().nullable(),
   }),
   orders: z.object({ lowResolutionPolicy: z.enum(['confirm', 'refuse']), pickupEnabled: z.boolean(), pickupNote: z.string() }),
   role: z.enum(ROLES),
