@@ -25,6 +25,7 @@ import { invitesRouter } from './features/team/invites.router.ts';
 import { platformRouter } from './features/platform/platform.router.ts';
 import { catalogRoutes } from './features/catalog/catalog.routes.ts';
 import { shippingRoutes } from './features/shipping/shipping.routes.ts';
+import { workspaceOrderRoutes } from './features/orders/workspace-orders.routes.ts';
 import { storefrontCatalogRouter } from './features/catalog/storefront-catalog.router.ts';
 import { storefrontPhotosRouter } from './features/photos/storefront-photos.router.ts';
 
@@ -40,7 +41,7 @@ export type AppDeps = {
 
 /** Every route under /api/studios/:studioSlug, from every feature. The isolation tests walk this list. */
 export function workspaceRoutes(deps: AppDeps): WorkspaceRoute[] {
-  return [...studioRoutes(deps), ...teamRoutes(deps), ...catalogRoutes(deps), ...shippingRoutes(deps)];
+  return [...studioRoutes(deps), ...teamRoutes(deps), ...catalogRoutes(deps), ...shippingRoutes(deps), ...workspaceOrderRoutes(deps)];
 }
 
 /** Where presigned upload URLs point: the endpoint itself, or the bucket's own host. */

@@ -31,6 +31,8 @@ export type WorkspaceFixtures = {
   /** The key of a small photo uploaded to storage as a browser would, under this purpose. */
   upload(purpose: 'blank-photos' | 'logo'): Promise<string>;
   shippingRate(): Promise<string>;
+  /** A paid order with one item waiting for photo review, its photo stored. */
+  orderItem(): Promise<{ orderId: string; itemId: string; photoId: string }>;
 };
 
 export function workspaceRouter({ auth, orm, routes }: { auth: Auth; orm: Orm; routes: WorkspaceRoute[] }): Router {

@@ -11,6 +11,8 @@ import { useTestApp } from '../support/test-app.ts';
 import * as catalog from '../../server/features/catalog/catalog.service.ts';
 import { TENANT_FILTER } from '../../server/db/tenant.ts';
 import { ShippingRate } from '../../server/features/shipping/shipping-rate.entity.ts';
+import { BuyerPhoto } from '../../server/features/photos/buyer-photo.entity.ts';
+import { Order, OrderItem } from '../../server/features/orders/order.entity.ts';
 import { agentFor, createMember, createStudio, createUser } from '../support/factories.ts';
 
 /**
@@ -46,6 +48,18 @@ describe('workspace isolation matrix', () => {
         const invite = fork.create(Invite, { studio: studioA.id, email: `i-${Math.random()}@example.com`, role: 'staff', tokenHash: Math.random().toString(16).slice(2).padEnd(64, '0'), expiresAt: new Date(Date.now() + 86_400_000), invitedBy: null });
         await fork.flush();
         return invite.id;
+      },
+      orderItem: async () => {
+        const fork = t.orm.em.fork();
+        const key = `studios/${studioA.id}/buyer-photos/${randomUUID()}/original`;
+        await t.storage.put(key, await sharp({ create: { width: 400, height: 500, channels: 3, background: '#777777' } }).jpeg().toBuffer(), 'image/jpeg');
+        const photo = fork.create(BuyerPhoto, { studio: studioA.id, originalKey: key, previewKey: key, thumbKey: key, format: 'jpeg', width: 400, height: 500, previewWidth: 400, previewHeight: 500, byteSize: 1000, quality: { sharpness: 100, blurry: false, shadows: 0, highlights: 0, exposure: 'ok' } });
+        const number = Math.floor(Math.random() * 1e9);
+        const order = fork.create(Order, { studio: studioA.id, number, status: 'paid', buyerEmail: 'b@example.com', buyerName: 'B', deliveryMethod: 'pickup', shippingAddress: null, shippingRate: null, currency: 'USD', subtotalMinor: 100, shippingMinor: 0, totalMinor: 100, accessKeyHash: '0'.repeat(64), paidAt: new Date() });
+        const snapshot = { blank: { id: randomUUID(), name: 'B', shape: 'oval' as const, material: { id: randomUUID(), name: 'Slate', surfaceColour: '#333333', markColour: '#cccccc', defaultTone: 'negative' as const, linesPerInchMax: 300 } }, size: { id: randomUUID(), label: 'S', areaWidthMm: 90, areaHeightMm: 90, outerWidthMm: 100, outerHeightMm: 100, priceMinor: 100, sku: '' }, recipe: null };
+        const item = fork.create(OrderItem, { studio: studioA.id, order, stage: 'photo_review', size: null, snapshot, quantity: 1, unitPriceMinor: 100, photo, placement: { crop: { left: 0, top: 0, width: 400, height: 400 }, rotation: 0, flipHorizontal: false }, orientation: 'portrait', inscription: null, effectivePpi: 100, lowResolutionConfirmed: false });
+        await fork.flush();
+        return { orderId: order.id, itemId: item.id, photoId: photo.id };
       },
       shippingRate: async () => {
         const fork = t.orm.em.fork();

@@ -31,3 +31,12 @@ export function soldOutMail(input: { studioName: string; number: number; buyerNa
     html: `<p>Hello ${escapeHtml(input.buyerName)},</p><p>We are sorry: ${escapeHtml(input.what)} sold out while you were paying, so ${escapeHtml(input.studioName)} could not take order ${input.number}. Your payment of ${escapeHtml(input.total)} has been refunded in full; it shows on your statement within a few days.</p>`,
   };
 }
+
+/** To the buyer when the studio needs a better photo: why, and the private link to send one. */
+export function newPhotoNeededMail(input: { studioName: string; number: number; buyerName: string; what: string; reason: string; note: string; url: string }) {
+  return {
+    subject: `Order ${input.number}: ${input.studioName} needs a new photo`,
+    text: `Hello ${input.buyerName},\n\nBefore engraving ${input.what}, ${input.studioName} checked your photo and needs another one.\n\nWhy: ${input.reason}.${input.note ? `\nFrom the studio: ${input.note}` : ''}\n\nSend a new photo here (the link works once):\n${input.url}\n\nNothing else about your order changes.`,
+    html: `<p>Hello ${escapeHtml(input.buyerName)},</p><p>Before engraving ${escapeHtml(input.what)}, ${escapeHtml(input.studioName)} checked your photo and needs another one.</p><p><strong>Why:</strong> ${escapeHtml(input.reason)}.${input.note ? `<br><strong>From the studio:</strong> ${escapeHtml(input.note)}` : ''}</p><p><a href="${escapeHtml(input.url)}">Send a new photo</a> (the link works once).</p><p>Nothing else about your order changes.</p>`,
+  };
+}

@@ -40,7 +40,7 @@ export class Order extends BaseEntity {
 
 @Entity({ tableName: 'order_item' })
 @Filter(tenantFilter)
-export class OrderItem extends BaseEntity {
+export class OrderItem extends BaseEntity<'replacementTokenHash' | 'replacementReason' | 'replacementNote' | 'replacements'> {
   @ManyToOne(() => Studio, { deleteRule: 'cascade' }) studio!: Studio;
   @ManyToOne(() => Order, { deleteRule: 'cascade' }) order!: Order;
   @Enum({ items: [...ITEM_STAGES], type: 'string' }) stage!: ItemStage;
@@ -55,6 +55,12 @@ export class OrderItem extends BaseEntity {
   @Property({ type: 'json', nullable: true }) inscription!: Inscription | null;
   @Property({ type: 'integer' }) effectivePpi!: number;
   @Property({ type: 'boolean' }) lowResolutionConfirmed!: boolean;
+  /** While a new photo is asked for: the SHA-256 of the buyer's upload link's token, and why. */
+  @Property({ type: 'string', length: 64, nullable: true }) replacementTokenHash: string | null = null;
+  @Property({ type: 'string', length: 40, nullable: true }) replacementReason: string | null = null;
+  @Property({ type: 'text' }) replacementNote: string = '';
+  /** How many times the buyer has sent a new photo. */
+  @Property({ type: 'integer' }) replacements: number = 0;
 }
 
 /** One thing that happened to an order: who, when, what and why. Never changed once written. */

@@ -11,6 +11,8 @@ import { hashToken, isUuid } from '../../lib/tokens.ts';
 import { ShippingRate } from '../shipping/shipping-rate.entity.ts';
 import { storefrontStudio } from '../studios/studios.service.ts';
 import { placeOrder } from './checkout.service.ts';
+import { findReplacement, submitReplacement } from './review.service.ts';
+import { REVIEW_REASONS, replacementInputSchema, type ReviewReason } from '../../../shared/schemas/workspace-orders.ts';
 import { Order } from './order.entity.ts';
 import { orderView } from './order.views.ts';
 import type { Auth } from '../../auth/auth.ts';
@@ -55,6 +57,26 @@ export function storefrontOrdersRouter({ orm, env, payments, auth }: { orm: Orm;
     const byKey = Boolean(order && key && timingSafeEqual(expected, given));
     if (!order || !(byKey || ownsOrder(req.user, order))) throw new AppError('NOT_FOUND', 'There is no order at this link. Check that you used the whole link from the e-mail.');
     res.set('cache-control', 'no-store').json(orderView(order));
+  });
+  router.get('/:studioSlug/replacements/:token', async (req, res) => {
+    const studio = await storefrontStudio(em(), req.params.studioSlug, { open: true });
+    const item = await findReplacement(em(), studio, req.params.token);
+    await em().populate(item.order, ['items', 'items.photo', 'events']);
+    const view = orderView(item.order).items.find((i) => i.id === item.id)!;
+    res.set('cache-control', 'no-store').json({
+      orderNumber: item.order.number,
+      blankName: item.snapshot.blank.name,
+      sizeLabel: item.snapshot.size.label,
+      reason: REVIEW_REASONS[item.replacementReason as ReviewReason] ?? 'The studio needs another photo',
+      note: item.replacementNote,
+      item: view,
+    });
+  });
+
+  router.post('/:studioSlug/replacements/:token', async (req, res) => {
+    const studio = await storefrontStudio(em(), req.params.studioSlug, { open: true });
+    const item = await submitReplacement(em(), studio, req.params.token, replacementInputSchema.parse(req.body));
+    res.json({ stage: item.stage });
   });
   return router;
 }

@@ -1,0 +1,54 @@
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { askNewPhotoInputSchema, orderListQuerySchema } from '../../../shared/schemas/workspace-orders.ts';
+import type { Storage } from '../../adapters/storage.ts';
+import type { Env } from '../../env.ts';
+import type { Orm } from '../../db/orm.ts';
+import type { WorkspaceRoute } from '../../middleware/workspace-routes.ts';
+import { findBuyerPhoto } from '../photos/photos.service.ts';
+import { orderView } from './order.views.ts';
+import { approvePhoto, askNewPhoto, findOrder, listOrders, reviewQueue } from './review.service.ts';
+
+/** The workspace's orders: the list, one order, the photo review queue and its two answers. */
+export function workspaceOrderRoutes({ orm, env, storage }: { orm: Orm; env: Env; storage: Storage }): WorkspaceRoute[] {
+  const em = () => orm.em as EntityManager;
+  return [
+    {
+      method: 'get', path: '/orders', permission: 'order:read',
+      handler: async (req, res) => void res.json(await listOrders(em(), req.studio!, orderListQuerySchema.parse(req.query))),
+    },
+    {
+      method: 'get', path: '/orders/:orderId', permission: 'order:read',
+      sample: async (f) => ({ params: { orderId: (await f.orderItem()).orderId } }),
+      handler: async (req, res) => {
+        const order = await findOrder(em(), req.studio!, String(req.params.orderId));
+        res.json({ ...orderView(order), paymentIntentId: order.paymentIntentId });
+      },
+    },
+    {
+      method: 'get', path: '/orders/photos/:photoId/original', permission: 'order:read',
+      sample: async (f) => ({ params: { photoId: (await f.orderItem()).photoId } }),
+      handler: async (req, res) => {
+        const photo = await findBuyerPhoto(em(), req.studio!, String(req.params.photoId));
+        const object = await storage.get(photo.originalKey);
+        res.set({ 'content-type': object.contentType ?? 'application/octet-stream', 'cache-control': 'private, max-age=3600' }).end(Buffer.from(object.body));
+      },
+    },
+    { method: 'get', path: '/review-queue', permission: 'order:review', handler: async (req, res) => void res.json({ items: await reviewQueue(em(), req.studio!) }) },
+    {
+      method: 'post', path: '/items/:itemId/approve-photo', permission: 'order:review',
+      sample: async (f) => ({ params: { itemId: (await f.orderItem()).itemId } }),
+      handler: async (req, res) => {
+        const item = await approvePhoto(em(), req.studio!, String(req.params.itemId), req.user!);
+        res.json({ itemId: item.id, stage: item.stage });
+      },
+    },
+    {
+      method: 'post', path: '/items/:itemId/ask-new-photo', permission: 'order:review',
+      sample: async (f) => ({ params: { itemId: (await f.orderItem()).itemId }, body: { reason: 'low_resolution', note: 'Please send the original.' } }),
+      handler: async (req, res) => {
+        const item = await askNewPhoto(em(), req.studio!, String(req.params.itemId), req.user!, askNewPhotoInputSchema.parse(req.body), env.APP_URL);
+        res.json({ itemId: item.id, stage: item.stage });
+      },
+    },
+  ];
+}

@@ -1,0 +1,80 @@
+import { z } from 'zod';
+import { ITEM_STAGES, ORDER_STATUSES } from '../orders/stages.ts';
+import { orderViewSchema, placementSchema } from './checkout.ts';
+import { buyerPhotoSchema } from './photos.ts';
+
+/** The workspace's order lists, the photo review queue and the moves staff make on items. */
+export const orderListQuerySchema = z.object({
+  search: z.string().trim().max(100).default(''),
+  stage: z.enum(ITEM_STAGES).optional(),
+  status: z.enum(ORDER_STATUSES).optional(),
+  material: z.string().trim().max(80).optional(),
+  from: z.iso.date('Use a date like 2026-12-01.').optional(),
+  to: z.iso.date('Use a date like 2026-12-01.').optional(),
+  sort: z.enum(['newest', 'oldest', 'total-high', 'total-low']).default('newest'),
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(5).max(100).default(25),
+});
+export type OrderListQuery = z.input<typeof orderListQuerySchema>;
+
+export const orderListSchema = z.object({
+  orders: z.array(
+    z.object({
+      id: z.uuid(),
+      number: z.number().int(),
+      createdAt: z.string(),
+      status: z.enum(ORDER_STATUSES),
+      buyerName: z.string(),
+      buyerEmail: z.string(),
+      total: z.string(),
+      items: z.array(z.object({ id: z.uuid(), stage: z.enum(ITEM_STAGES), label: z.string() })),
+    }),
+  ),
+  total: z.number().int(),
+  page: z.number().int(),
+  pageSize: z.number().int(),
+});
+export type OrderList = z.infer<typeof orderListSchema>;
+
+export const REVIEW_REASONS = { low_resolution: 'Resolution too low for the size', blurry: 'Blurred or out of focus', cut_off: 'The subject is cut off', other: 'Something else' } as const;
+export type ReviewReason = keyof typeof REVIEW_REASONS;
+
+export const askNewPhotoInputSchema = z.object({
+  reason: z.enum(Object.keys(REVIEW_REASONS) as [ReviewReason, ...ReviewReason[]], { error: 'Choose a reason.' }),
+  note: z.string().trim().max(500, 'Use at most 500 characters.').default(''),
+});
+export type AskNewPhotoInput = z.input<typeof askNewPhotoInputSchema>;
+
+export const reviewItemSchema = z.object({
+  itemId: z.uuid(),
+  orderId: z.uuid(),
+  orderNumber: z.number().int(),
+  paidAt: z.string().nullable(),
+  buyerName: z.string(),
+  blankName: z.string(),
+  sizeLabel: z.string(),
+  areaWidthMm: z.number(),
+  areaHeightMm: z.number(),
+  effectivePpi: z.number().int(),
+  verdict: z.enum(['good', 'fair', 'too-low']),
+  lowResolutionConfirmed: z.boolean(),
+  placement: placementSchema,
+  photo: buyerPhotoSchema.extend({ originalUrl: z.string() }),
+  replacements: z.number().int(),
+});
+export type ReviewItem = z.infer<typeof reviewItemSchema>;
+export const reviewQueueSchema = z.object({ items: z.array(reviewItemSchema) });
+
+/** The staff view of an order: the buyer's view plus who did what and the private details. */
+export const staffOrderSchema = orderViewSchema.extend({ paymentIntentId: z.string().nullable() });
+
+/** A buyer's replacement photo, by the private link from the e-mail. */
+export const replacementViewSchema = z.object({
+  orderNumber: z.number().int(),
+  blankName: z.string(),
+  sizeLabel: z.string(),
+  reason: z.string(),
+  note: z.string(),
+  item: orderViewSchema.shape.items.element,
+});
+export const replacementInputSchema = z.object({ photoId: z.uuid('Upload a photo first.'), placement: placementSchema, rightsConfirmed: z.literal(true, { error: 'Confirm that you may use this photo.' }) });

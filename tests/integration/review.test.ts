@@ -1,0 +1,115 @@
+import sharp from 'sharp';
+import request from 'supertest';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { seedDemo } from '../../server/db/seed.ts';
+import { TENANT_FILTER } from '../../server/db/tenant.ts';
+import { Blank } from '../../server/features/catalog/catalog.entity.ts';
+import { OutboxEmail } from '../../server/features/outbox/outbox-email.entity.ts';
+import { OrderItem } from '../../server/features/orders/order.entity.ts';
+import { Studio } from '../../server/features/studios/studio.entity.ts';
+import { useTestApp } from '../support/test-app.ts';
+import { signIn } from '../support/factories.ts';
+import { DEMO_PASSWORD } from '../../server/db/demo-scenario.ts';
+
+/** Staff review buyers' photos: the queue, approving, asking for a new one, the buyer's answer. */
+describe('photo review', () => {
+  const t = useTestApp();
+  const store = '/api/storefront/harbour-light';
+  const work = '/api/studios/harbour-light';
+  let staff: ReturnType<typeof request.agent>;
+  let owner: ReturnType<typeof request.agent>;
+  let glass: Blank;
+  let studio: Studio;
+
+  beforeAll(async () => {
+    await seedDemo(t.orm.em.fork());
+    const em = t.orm.em.fork();
+    studio = await em.findOneOrFail(Studio, { slug: 'harbour-light' });
+    staff = request.agent(t.app);
+    await signIn(staff, 'tobias@harbour-light.test', DEMO_PASSWORD);
+    owner = request.agent(t.app);
+    await signIn(owner, 'maren@harbour-light.test', DEMO_PASSWORD);
+    glass = await em.findOneOrFail(Blank, { name: 'Black-backed glass portrait' }, { populate: ['sizes'], filters: { [TENANT_FILTER]: { studioId: studio.id } } });
+  });
+
+  async function upload(width: number, height: number) {
+    const bytes = await sharp({ create: { width, height, channels: 3, background: '#5a6b7c' } }).jpeg().toBuffer();
+    const ticket = (await request(t.app).post(`${store}/photo-uploads`).send({ contentType: 'image/jpeg', contentLength: bytes.length }).expect(201)).body;
+    await fetch(ticket.url, { method: 'PUT', headers: ticket.headers, body: new Uint8Array(bytes) });
+    return (await request(t.app).post(`${store}/buyer-photos`).send({ key: ticket.key }).expect(201)).body as { id: string; width: number; height: number };
+  }
+
+  /** A paid order for one 5 × 7 in portrait, as checkout and the payment webhook make it. */
+  async function paidOrder(email: string) {
+    const photo = await upload(1500, 2100);
+    const size = glass.sizes.getItems().find((s) => s.label === '5 × 7 in')!;
+    const placed = await request(t.app)
+      .post(`${store}/orders`)
+      .send({
+        items: [{ blankId: glass.id, sizeId: size.id, orientation: 'portrait', quantity: 1, photoId: photo.id, placement: { crop: { left: 0, top: 0, width: 1500, height: 2100 } }, rightsConfirmed: true }],
+        buyer: { email, name: 'Ivy Marsh' },
+        delivery: { method: 'pickup' },
+      })
+      .expect(201);
+    const sessionId = new URL(placed.body.paymentUrl).pathname.split('/').pop()!;
+    const session = await t.payments.stripe.checkout.sessions.retrieve(sessionId);
+    const payload = JSON.stringify({ id: `evt_${sessionId}`, object: 'event', type: 'checkout.session.completed', data: { object: { ...session, payment_status: 'paid', status: 'complete' } } });
+    const signature = t.payments.stripe.webhooks.generateTestHeaderString({ payload, secret: t.env.STRIPE_WEBHOOK_SECRET });
+    await request(t.app).post('/api/payments/webhook').set('content-type', 'application/json').set('stripe-signature', signature).send(payload).expect(200);
+    return placed.body.orderId as string;
+  }
+
+  it('queues paid items oldest first; approving moves one to prep; moving it again is refused with what is allowed', async () => {
+    const first = await paidOrder('ivy@buyers.test');
+    const second = await paidOrder('ivy@buyers.test');
+    const queue = (await staff.get(`${work}/review-queue`).expect(200)).body.items;
+    expect(queue.map((i: { orderId: string }) => i.orderId)).toEqual([first, second]);
+    // By hand: 1500 × 2100 px on a 4.5 × 6.5 in area is min(333, 323) = 323 pixels per inch, good.
+    expect(queue[0]).toMatchObject({ blankName: 'Black-backed glass portrait', sizeLabel: '5 × 7 in', effectivePpi: 323, verdict: 'good' });
+    await staff.get(queue[0].photo.originalUrl).expect(200).expect('content-type', 'image/jpeg');
+    await staff.post(`${work}/items/${queue[0].itemId}/approve-photo`).expect(200, { itemId: queue[0].itemId, stage: 'prep' });
+    const again = await staff.post(`${work}/items/${queue[0].itemId}/approve-photo`).expect(409);
+    expect(again.body.message).toMatch(/is prep and cannot become prep\. It can become: proof sent, approved, cancelled\./);
+    expect((await staff.get(`${work}/review-queue`).expect(200)).body.items.map((i: { orderId: string }) => i.orderId)).toEqual([second]);
+  });
+
+  it('asks the buyer for a new photo with the reason; the buyer’s replacement puts the item back in review', async () => {
+    const orderId = await paidOrder('nell@buyers.test');
+    const item = (await staff.get(`${work}/review-queue`).expect(200)).body.items.find((i: { orderId: string }) => i.orderId === orderId);
+    await staff.post(`${work}/items/${item.itemId}/ask-new-photo`).send({ reason: 'sideways' }).expect(400);
+    await staff.post(`${work}/items/${item.itemId}/ask-new-photo`).send({ reason: 'blurry', note: 'The faces are soft; the original file would help.' }).expect(200, { itemId: item.itemId, stage: 'needs_new_photo' });
+    const mail = await t.orm.em.fork().findOneOrFail(OutboxEmail, { to: 'nell@buyers.test', subject: { $like: '%needs a new photo%' } });
+    expect(mail.text).toMatch(/Why: Blurred or out of focus\.\nFrom the studio: The faces are soft/);
+    const token = /\/replace\/([\w-]+)/.exec(mail.text)![1]!;
+
+    const asked = (await request(t.app).get(`${store}/replacements/${token}`).expect(200)).body;
+    expect(asked).toMatchObject({ blankName: 'Black-backed glass portrait', reason: 'Blurred or out of focus', note: 'The faces are soft; the original file would help.' });
+    const better = await upload(1800, 2520);
+    await request(t.app).post(`${store}/replacements/${token}`).send({ photoId: better.id, placement: { crop: { left: 0, top: 0, width: 1800, height: 2520 } } }).expect(400); // no permission ticked
+    await request(t.app).post(`${store}/replacements/${token}`).send({ photoId: better.id, placement: { crop: { left: 0, top: 0, width: 1800, height: 2520 } }, rightsConfirmed: true }).expect(200, { stage: 'photo_review' });
+    // The link is used up; the item is back in the queue with the new photo and its history.
+    await request(t.app).get(`${store}/replacements/${token}`).expect(404);
+    const back = (await staff.get(`${work}/review-queue`).expect(200)).body.items.find((i: { itemId: string }) => i.itemId === item.itemId);
+    expect(back).toMatchObject({ replacements: 1, effectivePpi: 387, photo: { id: better.id } }); // min(1800 / 4.5, 2520 / 6.5)
+    const order = (await staff.get(`${work}/orders/${orderId}`).expect(200)).body;
+    expect(order.events.map((e: { text: string }) => e.text).join('\n')).toMatch(/New photo asked for by Tobias Renn: blurred or out of focus[\s\S]*The buyer sent a new photo/);
+    const stored = await t.orm.em.fork().findOneOrFail(OrderItem, { id: item.itemId }, { filters: { [TENANT_FILTER]: { studioId: studio.id } } });
+    expect(stored.replacementTokenHash).toBeNull();
+  });
+
+  it('searches, filters, sorts and pages orders on the server', async () => {
+    await paidOrder('quinn@buyers.test');
+    const byEmail = (await owner.get(`${work}/orders`).query({ search: 'QUINN@' }).expect(200)).body;
+    expect(byEmail.orders.map((o: { buyerEmail: string }) => o.buyerEmail)).toEqual(['quinn@buyers.test']);
+    const number = byEmail.orders[0].number;
+    expect((await owner.get(`${work}/orders`).query({ search: `#${number}` }).expect(200)).body.orders.map((o: { number: number }) => o.number)).toEqual([number]);
+    const inPrep = (await owner.get(`${work}/orders`).query({ stage: 'prep' }).expect(200)).body;
+    expect(inPrep.orders.every((o: { items: Array<{ stage: string }> }) => o.items.some((i) => i.stage === 'prep'))).toBe(true);
+    expect((await owner.get(`${work}/orders`).query({ material: 'Black-backed (painted) glass' }).expect(200)).body.total).toBeGreaterThanOrEqual(4);
+    expect((await owner.get(`${work}/orders`).query({ material: 'Walnut' }).expect(200)).body.total).toBe(0);
+    const page = (await owner.get(`${work}/orders`).query({ pageSize: 5, page: 1, sort: 'oldest' }).expect(200)).body;
+    expect(page).toMatchObject({ page: 1, pageSize: 5 });
+    expect((await owner.get(`${work}/orders`).query({ from: 'yesterday' }).expect(400)).body.issues[0].path).toEqual(['from']);
+    expect((await owner.get(`${work}/orders`).query({ from: '2099-01-01' }).expect(200)).body.total).toBe(0);
+  });
+});
