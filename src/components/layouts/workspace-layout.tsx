@@ -22,6 +22,8 @@ function WorkspaceFrame({ children }: { children: (workspace: Workspace) => Reac
   const workspace = useWorkspace(studioSlug);
   const nav = [
     { to: `/studio/${studioSlug}`, label: 'Overview', end: true, show: true },
+    { to: `/studio/${studioSlug}/orders`, label: 'Orders', end: false, show: can(workspace.data?.role, 'order:read') },
+    { to: `/studio/${studioSlug}/review`, label: 'Photo review', end: false, show: can(workspace.data?.role, 'order:review') },
     { to: `/studio/${studioSlug}/catalog`, label: 'Catalog', end: false, show: can(workspace.data?.role, 'catalog:read') },
     { to: `/studio/${studioSlug}/team`, label: 'Team', end: false, show: can(workspace.data?.role, 'team:manage') },
     { to: `/studio/${studioSlug}/settings`, label: 'Settings', end: false, show: can(workspace.data?.role, 'studio:settings') },

@@ -1,0 +1,98 @@
+import { Link, useParams } from 'react-router-dom';
+import { ITEM_STAGE_LABELS, ORDER_STATUS_LABELS } from '../../../../../shared/orders/stages.ts';
+import { WorkspaceLayout } from '../../../../components/layouts/workspace-layout.tsx';
+import { Card, CardTitle } from '../../../../components/ui/card.tsx';
+import { Notice } from '../../../../components/ui/notice.tsx';
+import { ItemMockup } from '../../../../features/designer/components/item-mockup.tsx';
+import { useStaffOrder } from '../../../../features/orders/api/orders.ts';
+
+export function StaffOrderPage() {
+  const { orderId = '' } = useParams();
+  return <WorkspaceLayout>{({ studio }) => <StaffOrder slug={studio.slug} orderId={orderId} />}</WorkspaceLayout>;
+}
+
+/** One order as the studio sees it: items as they will burn, buyer, payment and every event. */
+function StaffOrder({ slug, orderId }: { slug: string; orderId: string }) {
+  const order = useStaffOrder(slug, orderId);
+  if (order.isPending) return <p className="text-graphite-500">Loading…</p>;
+  if (order.error) return <Notice tone="error">{order.error.message}</Notice>;
+  const o = order.data;
+  return (
+    <div className="flex flex-col gap-6">
+      <Link to={`/studio/${slug}/orders`} className="text-sm font-semibold text-graphite-600 hover:underline">
+        ← All orders
+      </Link>
+      <div className="flex flex-wrap items-center gap-3">
+        <h1 className="text-3xl font-extrabold">Order {o.number}</h1>
+        <span className="rounded-full bg-birch-100 px-3 py-1 text-sm font-bold">{ORDER_STATUS_LABELS[o.status]}</span>
+      </div>
+      {o.note && <Notice tone="caution">{o.note}</Notice>}
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
+        <Card>
+          <CardTitle>Items</CardTitle>
+          <ul className="flex flex-col gap-6">
+            {o.items.map((item) => (
+              <li key={item.id} className="flex flex-wrap gap-5">
+                <ItemMockup item={item} />
+                <div className="flex flex-col gap-1 text-sm">
+                  <p className="text-lg font-bold">{item.blankName}</p>
+                  <p>
+                    {item.sizeLabel}, {item.orientation}; {item.materialName}
+                  </p>
+                  <p>
+                    {item.quantity} × {item.unitPrice}
+                  </p>
+                  <p>
+                    Recipe: {item.look.linesPerInch} lines per inch, {item.look.halftoneMethod}, {item.look.tone}
+                  </p>
+                  {item.inscription && <p>Words: “{item.inscription.lines.join(' / ')}”</p>}
+                  <p className="mt-2 font-semibold">{ITEM_STAGE_LABELS[item.stage]}</p>
+                </div>
+              </li>
+            ))}
+          </ul>
+        </Card>
+        <div className="flex flex-col gap-6">
+          <Card>
+            <CardTitle>Buyer and delivery</CardTitle>
+            <p className="text-sm">
+              {o.buyer.name}
+              <br />
+              <a href={`mailto:${o.buyer.email}`} className="underline">
+                {o.buyer.email}
+              </a>
+            </p>
+            <p className="mt-3 text-sm font-semibold">{o.delivery.label}</p>
+            {o.delivery.address && (
+              <p className="text-sm text-graphite-700">
+                {o.delivery.address.line1}
+                {o.delivery.address.line2 && `, ${o.delivery.address.line2}`}, {o.delivery.address.postalCode} {o.delivery.address.city}, {o.delivery.address.country}
+              </p>
+            )}
+            <dl className="mt-3 grid grid-cols-[1fr_auto] gap-y-1 text-sm">
+              <dt>Items</dt>
+              <dd className="text-right">{o.subtotal}</dd>
+              <dt>Delivery</dt>
+              <dd className="text-right">{o.shipping}</dd>
+              <dt className="font-bold">Total</dt>
+              <dd className="text-right font-bold">{o.total}</dd>
+            </dl>
+          </Card>
+          <Card>
+            <CardTitle>Timeline</CardTitle>
+            <ol className="flex flex-col gap-3 border-l-2 border-graphite-100 pl-4 text-sm">
+              {o.events.map((e, i) => (
+                <li key={i}>
+                  <time dateTime={e.at} className="block text-xs text-graphite-500">
+                    {new Date(e.at).toLocaleString()}
+                  </time>
+                  {e.text}
+                </li>
+              ))}
+            </ol>
+          </Card>
+        </div>
+      </div>
+    </div>
+  );
+}

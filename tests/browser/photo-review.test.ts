@@ -1,0 +1,104 @@
+import { join } from 'node:path';
+import sharp from 'sharp';
+import request from 'supertest';
+import type { Page } from 'playwright-core';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { seedDemo } from '../../server/db/seed.ts';
+import { DEMO_PASSWORD } from '../../server/db/demo-scenario.ts';
+import { TENANT_FILTER } from '../../server/db/tenant.ts';
+import { Blank } from '../../server/features/catalog/catalog.entity.ts';
+import { Studio } from '../../server/features/studios/studio.entity.ts';
+import { freePort, screenshotDir, useBrowser } from '../support/browser.ts';
+import { useMailFake } from '../support/mail.ts';
+import { referencePhotoDir } from '../support/pillow.ts';
+import { eventually } from '../support/fakes.ts';
+
+/**
+ * Staff flag a photo too low in resolution; the buyer gets the e-mail, sends a larger photo by
+ * its link, and the item is back in review. Photos: scikit-image's "chelsea" (CC0) as sent, and
+ * "astronaut" (NASA, public domain) enlarged 4× as the better one.
+ */
+describe('photo review: asking the buyer for a better photo', () => {
+  const mail = useMailFake();
+  const b = useBrowser(async () => {
+    await mail.start();
+    return { SMTP_URL: mail.smtpUrl, APP_URL: `http://127.0.0.1:${await freePort()}` };
+  });
+  const shot = (page: Page, name: string) => page.screenshot({ path: join(screenshotDir, `${name}.png`), fullPage: true });
+  let orderNumber: number;
+
+  beforeAll(async () => {
+    await seedDemo(b.orm.em.fork());
+    const em = b.orm.em.fork();
+    const studio = await em.findOneOrFail(Studio, { slug: 'harbour-light' });
+    const glass = await em.findOneOrFail(Blank, { name: 'Black-backed glass portrait' }, { populate: ['sizes'], filters: { [TENANT_FILTER]: { studioId: studio.id } } });
+    const size = glass.sizes.getItems().find((s) => s.label === '5 × 7 in')!;
+    // The buyer's order, placed and paid as the storefront and the payment webhook do it.
+    const bytes = await sharp(join(referencePhotoDir, 'chelsea.png')).jpeg().toBuffer();
+    const store = '/api/storefront/harbour-light';
+    const ticket = (await request(b.app).post(`${store}/photo-uploads`).send({ contentType: 'image/jpeg', contentLength: bytes.length }).expect(201)).body;
+    await fetch(ticket.url, { method: 'PUT', headers: ticket.headers, body: new Uint8Array(bytes) });
+    const photo = (await request(b.app).post(`${store}/buyer-photos`).send({ key: ticket.key }).expect(201)).body;
+    const placed = await request(b.app)
+      .post(`${store}/orders`)
+      .send({
+        items: [{ blankId: glass.id, sizeId: size.id, orientation: 'landscape', quantity: 1, photoId: photo.id, placement: { crop: { left: 0, top: 12, width: 451, height: 276 } }, rightsConfirmed: true, lowResolutionConfirmed: true }],
+        buyer: { email: 'june@buyers.test', name: 'June Aldous' },
+        delivery: { method: 'pickup' },
+      })
+      .expect(201);
+    const session = await b.payments.stripe.checkout.sessions.retrieve(new URL(placed.body.paymentUrl).pathname.split('/').pop()!);
+    const payload = JSON.stringify({ id: `evt_review_${session.id}`, object: 'event', type: 'checkout.session.completed', data: { object: { ...session, payment_status: 'paid', status: 'complete' } } });
+    const signature = b.payments.stripe.webhooks.generateTestHeaderString({ payload, secret: b.env.STRIPE_WEBHOOK_SECRET });
+    const paid = await request(b.app).post('/api/payments/webhook').set('content-type', 'application/json').set('stripe-signature', signature).send(payload).expect(200);
+    expect(paid.body.outcome).toBe('handled');
+    orderNumber = (await request(b.app).get(new URL(session.success_url!).pathname.replace('/s/', '/api/storefront/') + new URL(session.success_url!).search).expect(200)).body.number;
+  });
+
+  it('staff flag the photo, the buyer sends a larger one by the e-mailed link, and it is back in review', async () => {
+    const staff = await b.newPage();
+    await staff.page.goto(`${b.baseUrl}/sign-in`);
+    await staff.page.getByLabel('E-mail address').fill('tobias@harbour-light.test');
+    await staff.page.getByLabel('Password').fill(DEMO_PASSWORD);
+    await staff.page.getByRole('button', { name: 'Sign in', exact: true }).click();
+    await staff.page.waitForURL(`${b.baseUrl}/studio/harbour-light`);
+    await staff.page.getByRole('navigation', { name: 'Workspace' }).getByRole('link', { name: 'Photo review' }).click();
+    // 451 × 276 px on the 6.5 × 4.5 in area: min(69, 61) = 61 pixels per inch, too low.
+    await expect.poll(() => staff.page.getByText('61 pixels per inch (too low)').count()).toBe(1);
+    await staff.page.waitForTimeout(500);
+    await shot(staff.page, 'review-queue');
+    await staff.page.getByRole('button', { name: 'Ask for a new photo' }).click();
+    await staff.page.getByLabel('Note to the buyer (optional)').fill('The original from your phone would be sharper.');
+    await staff.page.getByRole('button', { name: 'Send the request' }).click();
+    await expect.poll(() => staff.page.getByText(`Asked for a new photo for order ${orderNumber}`).count()).toBe(1);
+    await expect.poll(() => staff.page.getByText('No photos are waiting.', { exact: false }).count()).toBe(1);
+
+    const request_ = await eventually(async () => {
+      const newest = await mail.latestTo('june@buyers.test');
+      return newest.subject.includes('needs a new photo') ? newest : undefined;
+    });
+    expect(request_.subject).toBe(`Order ${orderNumber}: Harbour Light Engraving needs a new photo`);
+    expect(request_.text).toMatch(/Why: Resolution too low for the size\.\nFrom the studio: The original from your phone would be sharper\./);
+    const link = request_.links.find((l) => l.includes('/replace/'))!;
+
+    const buyer = await b.newPage();
+    await buyer.page.goto(link);
+    await expect.poll(() => buyer.page.getByText('Why: Resolution too low for the size').count()).toBe(1);
+    const better = await sharp(join(referencePhotoDir, 'astronaut.png')).resize(2048, 2048, { kernel: 'lanczos3' }).jpeg({ quality: 90 }).toBuffer();
+    await buyer.page.getByLabel('Choose your photo').setInputFiles({ name: 'astronaut.jpg', mimeType: 'image/jpeg', buffer: better });
+    // The square photo fills the 6.5 × 4.5 in area by its width: 2048 / 6.5 = 315 pixels per inch.
+    await expect.poll(() => buyer.page.getByRole('status').textContent(), { timeout: 15_000 }).toMatch(/Good: 315 pixels per inch/);
+    await buyer.page.getByLabel('I took this photo or have permission to use it.').check();
+    await buyer.page.waitForTimeout(500);
+    await shot(buyer.page, 'replace-photo');
+    await buyer.page.getByRole('button', { name: 'Send this photo' }).click();
+    await expect.poll(() => buyer.page.getByText('Thank you!').count()).toBe(1);
+
+    await staff.page.reload();
+    await expect.poll(() => staff.page.getByText('This is the buyer’s replacement photo number 1.').count()).toBe(1);
+    expect(await staff.page.getByText('315 pixels per inch (good)').count()).toBe(1);
+    await staff.page.waitForTimeout(500);
+    await shot(staff.page, 'review-replacement');
+    expect([...staff.problems, ...buyer.problems]).toEqual([]);
+  });
+});
