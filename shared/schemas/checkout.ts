@@ -97,6 +97,8 @@ export const orderViewSchema = z.object({
   subtotal: z.string(),
   shipping: z.string(),
   total: z.string(),
+  /** Paid back so far, or null when nothing was. */
+  refunded: z.string().nullable(),
   buyer: z.object({ name: z.string(), email: z.string() }),
   delivery: z.object({ method: z.enum(['ship', 'pickup']), label: z.string(), address: addressSchema.nullable() }),
   note: z.string().nullable(),

@@ -78,3 +78,11 @@ export const replacementViewSchema = z.object({
   item: orderViewSchema.shape.items.element,
 });
 export const replacementInputSchema = z.object({ photoId: z.uuid('Upload a photo first.'), placement: placementSchema, rightsConfirmed: z.literal(true, { error: 'Confirm that you may use this photo.' }) });
+
+/** A refund, whole (no amount) or part (an amount in minor units); owners only. */
+export const refundInputSchema = z.object({
+  amountMinor: z.number({ error: 'Enter the amount.' }).int('Use whole minor units (cents).').positive('Refund more than nothing.').optional(),
+  reason: z.string().trim().min(1, 'Say why, for the buyer and the record.').max(300, 'Use at most 300 characters.'),
+});
+export type RefundInput = z.input<typeof refundInputSchema>;
+export const cancelInputSchema = z.object({ reason: z.string().trim().min(1, 'Say why, for the buyer and the record.').max(300, 'Use at most 300 characters.') });

@@ -47,8 +47,9 @@ describe('photo review: asking the buyer for a better photo', () => {
         delivery: { method: 'pickup' },
       })
       .expect(201);
+    await fetch(placed.body.paymentUrl, { method: 'POST', headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: new URLSearchParams({ card: '4242424242424242', expiry: '12/34', cvc: '123' }), redirect: 'manual' });
     const session = await b.payments.stripe.checkout.sessions.retrieve(new URL(placed.body.paymentUrl).pathname.split('/').pop()!);
-    const payload = JSON.stringify({ id: `evt_review_${session.id}`, object: 'event', type: 'checkout.session.completed', data: { object: { ...session, payment_status: 'paid', status: 'complete' } } });
+    const payload = JSON.stringify({ id: `evt_review_${session.id}`, object: 'event', type: 'checkout.session.completed', data: { object: session } });
     const signature = b.payments.stripe.webhooks.generateTestHeaderString({ payload, secret: b.env.STRIPE_WEBHOOK_SECRET });
     const paid = await request(b.app).post('/api/payments/webhook').set('content-type', 'application/json').set('stripe-signature', signature).send(payload).expect(200);
     expect(paid.body.outcome).toBe('handled');
@@ -100,5 +101,30 @@ describe('photo review: asking the buyer for a better photo', () => {
     await staff.page.waitForTimeout(500);
     await shot(staff.page, 'review-replacement');
     expect([...staff.problems, ...buyer.problems]).toEqual([]);
+  });
+
+  it('the owner refunds part of the order from its page; the buyer is told', async () => {
+    const owner = await b.newPage();
+    await owner.page.goto(`${b.baseUrl}/sign-in`);
+    await owner.page.getByLabel('E-mail address').fill('maren@harbour-light.test');
+    await owner.page.getByLabel('Password').fill(DEMO_PASSWORD);
+    await owner.page.getByRole('button', { name: 'Sign in', exact: true }).click();
+    await owner.page.waitForURL(`${b.baseUrl}/studio/harbour-light`);
+    await owner.page.getByRole('navigation', { name: 'Workspace' }).getByRole('link', { name: 'Orders' }).click();
+    await owner.page.getByLabel('Search').fill('june@');
+    await owner.page.getByRole('link', { name: String(orderNumber) }).click();
+    await owner.page.getByRole('button', { name: 'Refund' }).click();
+    await owner.page.getByLabel('Amount').fill('10');
+    await owner.page.getByLabel('Reason (the buyer sees it)').fill('A goodwill refund for the wait.');
+    await owner.page.getByRole('button', { name: 'Send the refund' }).click();
+    await expect.poll(() => owner.page.getByText('−$10.00').count()).toBe(1);
+    await expect.poll(() => owner.page.getByText(/Refunded in part: \$10\.00, by Maren Quist/).count()).toBe(1);
+    await shot(owner.page, 'order-refunded');
+    const told = await eventually(async () => {
+      const newest = await mail.latestTo('june@buyers.test');
+      return newest.subject.includes('refunded') ? newest : undefined;
+    });
+    expect(told.subject).toBe(`Order ${orderNumber}: $10.00 refunded`);
+    expect(owner.problems).toEqual([]);
   });
 });

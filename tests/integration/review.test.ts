@@ -3,7 +3,7 @@ import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { seedDemo } from '../../server/db/seed.ts';
 import { TENANT_FILTER } from '../../server/db/tenant.ts';
-import { Blank } from '../../server/features/catalog/catalog.entity.ts';
+import { Blank, BlankSize } from '../../server/features/catalog/catalog.entity.ts';
 import { OutboxEmail } from '../../server/features/outbox/outbox-email.entity.ts';
 import { OrderItem } from '../../server/features/orders/order.entity.ts';
 import { Studio } from '../../server/features/studios/studio.entity.ts';
@@ -52,8 +52,10 @@ describe('photo review', () => {
       })
       .expect(201);
     const sessionId = new URL(placed.body.paymentUrl).pathname.split('/').pop()!;
+    // Paid on the stand-in's pay page; its event reaches the app as the provider's webhook would.
+    await fetch(placed.body.paymentUrl, { method: 'POST', headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: new URLSearchParams({ card: '4242424242424242', expiry: '12/34', cvc: '123' }), redirect: 'manual' });
     const session = await t.payments.stripe.checkout.sessions.retrieve(sessionId);
-    const payload = JSON.stringify({ id: `evt_${sessionId}`, object: 'event', type: 'checkout.session.completed', data: { object: { ...session, payment_status: 'paid', status: 'complete' } } });
+    const payload = JSON.stringify({ id: `evt_${sessionId}`, object: 'event', type: 'checkout.session.completed', data: { object: session } });
     const signature = t.payments.stripe.webhooks.generateTestHeaderString({ payload, secret: t.env.STRIPE_WEBHOOK_SECRET });
     await request(t.app).post('/api/payments/webhook').set('content-type', 'application/json').set('stripe-signature', signature).send(payload).expect(200);
     return placed.body.orderId as string;
@@ -111,5 +113,37 @@ describe('photo review', () => {
     expect(page).toMatchObject({ page: 1, pageSize: 5 });
     expect((await owner.get(`${work}/orders`).query({ from: 'yesterday' }).expect(400)).body.issues[0].path).toEqual(['from']);
     expect((await owner.get(`${work}/orders`).query({ from: '2099-01-01' }).expect(200)).body.total).toBe(0);
+  });
+
+  describe('refunds and cancellations (owners only)', () => {
+    it('refuses staff, refunds in part and then the rest, never more than was paid', async () => {
+      const orderId = await paidOrder('rue@buyers.test');
+      await staff.post(`${work}/orders/${orderId}/refunds`).send({ amountMinor: 500, reason: 'Chipped corner.' }).expect(403);
+      await owner.post(`${work}/orders/${orderId}/refunds`).send({ amountMinor: 500 }).expect(400);
+      expect(await owner.post(`${work}/orders/${orderId}/refunds`).send({ amountMinor: 1000, reason: 'A small chip on one corner.' }).expect(200)).toMatchObject({ body: { status: 'paid', refundedMinor: 1000 } });
+      // $49.00 paid, $10.00 back: at most $39.00 is left.
+      expect((await owner.post(`${work}/orders/${orderId}/refunds`).send({ amountMinor: 4000, reason: 'Too much.' }).expect(400)).body.issues[0]).toEqual({ path: ['amountMinor'], message: 'At most $39.00.' });
+      expect((await owner.post(`${work}/orders/${orderId}/refunds`).send({ reason: 'The buyer sent it back.' }).expect(200)).body).toEqual({ status: 'refunded', refundedMinor: 4900 });
+      const refunds = await t.payments.stripe.events.list({ type: 'charge.refunded' });
+      const order = (await owner.get(`${work}/orders/${orderId}`).expect(200)).body;
+      const charge = refunds.data.map((e) => e.data.object as { payment_intent: string; amount_refunded: number }).filter((c) => c.payment_intent === order.paymentIntentId);
+      expect(Math.max(...charge.map((c) => c.amount_refunded))).toBe(4900);
+      expect(order.events.map((e: { text: string }) => e.text).join('\n')).toMatch(/Refunded in part: \$10\.00, by Maren Quist[\s\S]*Refunded in full: \$39\.00/);
+      expect(await t.orm.em.fork().count(OutboxEmail, { to: 'rue@buyers.test', subject: { $like: '%refunded' } })).toBe(2);
+      await owner.post(`${work}/orders/${orderId}/refunds`).send({ reason: 'Again.' }).expect(409);
+    });
+
+    it('cancels before production, refunding and returning the stock; not once an item is on the machine', async () => {
+      const stockOf = async () => (await t.orm.em.fork().findOneOrFail(BlankSize, { label: '5 × 7 in', blank: glass.id }, { filters: { [TENANT_FILTER]: { studioId: studio.id } } })).stock;
+      const before = await stockOf();
+      const orderId = await paidOrder('sol@buyers.test');
+      expect(await stockOf()).toBe(before! - 1);
+      expect((await owner.post(`${work}/orders/${orderId}/cancel`).send({ reason: 'The buyer asked to cancel.' }).expect(200)).body).toEqual({ status: 'cancelled', refundedMinor: 4900 });
+      expect(await stockOf()).toBe(before);
+      await owner.post(`${work}/orders/${orderId}/cancel`).send({ reason: 'Twice.' }).expect(409);
+      const burning = await paidOrder('sol@buyers.test');
+      await t.orm.em.fork().nativeUpdate(OrderItem, { order: burning }, { stage: 'in_production' }, { filters: { [TENANT_FILTER]: { studioId: studio.id } } });
+      expect((await owner.post(`${work}/orders/${burning}/cancel`).send({ reason: 'Too late.' }).expect(409)).body.message).toMatch(/already in production: the order can be refunded but no longer cancelled/);
+    });
   });
 });

@@ -49,13 +49,20 @@ describe('workspace isolation matrix', () => {
         await fork.flush();
         return invite.id;
       },
-      orderItem: async () => {
+      orderItem: async ({ paid = false } = {}) => {
+        // With `paid`, a real payment through the payments stand-in, so refunds have one to return.
+        let paymentIntentId: string | null = null;
+        if (paid) {
+          const session = await t.payments.stripe.checkout.sessions.create({ mode: 'payment', line_items: [{ quantity: 1, price_data: { currency: 'usd', unit_amount: 100, product_data: { name: 'B' } } }], success_url: 'http://127.0.0.1/ok', cancel_url: 'http://127.0.0.1/no' });
+          await fetch(session.url!, { method: 'POST', headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: new URLSearchParams({ card: '4242424242424242', expiry: '12/34', cvc: '123' }), redirect: 'manual' });
+          paymentIntentId = session.payment_intent as string;
+        }
         const fork = t.orm.em.fork();
         const key = `studios/${studioA.id}/buyer-photos/${randomUUID()}/original`;
         await t.storage.put(key, await sharp({ create: { width: 400, height: 500, channels: 3, background: '#777777' } }).jpeg().toBuffer(), 'image/jpeg');
         const photo = fork.create(BuyerPhoto, { studio: studioA.id, originalKey: key, previewKey: key, thumbKey: key, format: 'jpeg', width: 400, height: 500, previewWidth: 400, previewHeight: 500, byteSize: 1000, quality: { sharpness: 100, blurry: false, shadows: 0, highlights: 0, exposure: 'ok' } });
         const number = Math.floor(Math.random() * 1e9);
-        const order = fork.create(Order, { studio: studioA.id, number, status: 'paid', buyerEmail: 'b@example.com', buyerName: 'B', deliveryMethod: 'pickup', shippingAddress: null, shippingRate: null, currency: 'USD', subtotalMinor: 100, shippingMinor: 0, totalMinor: 100, accessKeyHash: '0'.repeat(64), paidAt: new Date() });
+        const order = fork.create(Order, { studio: studioA.id, number, status: 'paid', buyerEmail: 'b@example.com', buyerName: 'B', deliveryMethod: 'pickup', shippingAddress: null, shippingRate: null, currency: 'USD', subtotalMinor: 100, shippingMinor: 0, totalMinor: 100, accessKeyHash: '0'.repeat(64), paidAt: new Date(), paymentIntentId });
         const snapshot = { blank: { id: randomUUID(), name: 'B', shape: 'oval' as const, material: { id: randomUUID(), name: 'Slate', surfaceColour: '#333333', markColour: '#cccccc', defaultTone: 'negative' as const, linesPerInchMax: 300 } }, size: { id: randomUUID(), label: 'S', areaWidthMm: 90, areaHeightMm: 90, outerWidthMm: 100, outerHeightMm: 100, priceMinor: 100, sku: '' }, recipe: null };
         const item = fork.create(OrderItem, { studio: studioA.id, order, stage: 'photo_review', size: null, snapshot, quantity: 1, unitPriceMinor: 100, photo, placement: { crop: { left: 0, top: 0, width: 400, height: 400 }, rotation: 0, flipHorizontal: false }, orientation: 'portrait', inscription: null, effectivePpi: 100, lowResolutionConfirmed: false });
         await fork.flush();

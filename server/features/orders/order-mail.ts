@@ -40,3 +40,19 @@ export function newPhotoNeededMail(input: { studioName: string; number: number; 
     html: `<p>Hello ${escapeHtml(input.buyerName)},</p><p>Before engraving ${escapeHtml(input.what)}, ${escapeHtml(input.studioName)} checked your photo and needs another one.</p><p><strong>Why:</strong> ${escapeHtml(input.reason)}.${input.note ? `<br><strong>From the studio:</strong> ${escapeHtml(input.note)}` : ''}</p><p><a href="${escapeHtml(input.url)}">Send a new photo</a> (the link works once).</p><p>Nothing else about your order changes.</p>`,
   };
 }
+
+export function refundedMail(input: { studioName: string; number: number; buyerName: string; amount: string; reason: string }) {
+  return {
+    subject: `Order ${input.number}: ${input.amount} refunded`,
+    text: `Hello ${input.buyerName},\n\n${input.studioName} has refunded ${input.amount} of order ${input.number}.\nReason: ${input.reason}\n\nIt shows on your statement within a few days.`,
+    html: `<p>Hello ${escapeHtml(input.buyerName)},</p><p>${escapeHtml(input.studioName)} has refunded ${escapeHtml(input.amount)} of order ${input.number}.<br>Reason: ${escapeHtml(input.reason)}</p><p>It shows on your statement within a few days.</p>`,
+  };
+}
+
+export function cancelledMail(input: { studioName: string; number: number; buyerName: string; reason: string; refund: string }) {
+  return {
+    subject: `Order ${input.number} at ${input.studioName} is cancelled`,
+    text: `Hello ${input.buyerName},\n\n${input.studioName} has cancelled order ${input.number}.\nReason: ${input.reason}\n${input.refund ? `\n${input.refund} It shows on your statement within a few days.\n` : ''}`,
+    html: `<p>Hello ${escapeHtml(input.buyerName)},</p><p>${escapeHtml(input.studioName)} has cancelled order ${input.number}.<br>Reason: ${escapeHtml(input.reason)}</p>${input.refund ? `<p>${escapeHtml(input.refund)} It shows on your statement within a few days.</p>` : ''}`,
+  };
+}

@@ -12,7 +12,7 @@ import type { snapshotForOrder } from '../catalog/catalog.service.ts';
 @Entity({ tableName: 'order' })
 @Filter(tenantFilter)
 @Unique({ properties: ['studio', 'number'] })
-export class Order extends BaseEntity {
+export class Order extends BaseEntity<'refundedMinor'> {
   @ManyToOne(() => Studio, { deleteRule: 'cascade' }) studio!: Studio;
   /** Shown to people: counts up per studio. */
   @Property({ type: 'integer' }) number!: number;
@@ -27,6 +27,8 @@ export class Order extends BaseEntity {
   @Property({ type: 'integer' }) subtotalMinor!: number;
   @Property({ type: 'integer' }) shippingMinor!: number;
   @Property({ type: 'integer' }) totalMinor!: number;
+  /** What has been paid back so far. */
+  @Property({ type: 'integer' }) refundedMinor: number = 0;
   /** SHA-256 of the private link's key: the table alone opens no order. */
   @Property({ type: 'string', length: 64 }) accessKeyHash!: string;
   @Property({ type: 'string', length: 120, nullable: true }) @Index() checkoutSessionId: string | null = null;

@@ -36,6 +36,7 @@ export function orderView(order: Order): OrderView {
     subtotal: money(order.subtotalMinor),
     shipping: money(order.shippingMinor),
     total: money(order.totalMinor),
+    refunded: order.refundedMinor ? money(order.refundedMinor) : null,
     buyer: { name: order.buyerName, email: order.buyerEmail },
     delivery: { method: order.deliveryMethod, label: order.deliveryMethod === 'pickup' ? 'Pickup at the studio' : (order.shippingRate?.name ?? 'Shipping'), address: order.shippingAddress },
     note: order.note,

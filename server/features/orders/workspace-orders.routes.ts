@@ -1,5 +1,7 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { askNewPhotoInputSchema, orderListQuerySchema } from '../../../shared/schemas/workspace-orders.ts';
+import { askNewPhotoInputSchema, cancelInputSchema, orderListQuerySchema, refundInputSchema } from '../../../shared/schemas/workspace-orders.ts';
+import type { Payments } from '../../adapters/payments.ts';
+import { cancelOrder, refundOrder } from './refunds.service.ts';
 import type { Storage } from '../../adapters/storage.ts';
 import type { Env } from '../../env.ts';
 import type { Orm } from '../../db/orm.ts';
@@ -9,7 +11,7 @@ import { orderView } from './order.views.ts';
 import { approvePhoto, askNewPhoto, findOrder, listOrders, reviewQueue } from './review.service.ts';
 
 /** The workspace's orders: the list, one order, the photo review queue and its two answers. */
-export function workspaceOrderRoutes({ orm, env, storage }: { orm: Orm; env: Env; storage: Storage }): WorkspaceRoute[] {
+export function workspaceOrderRoutes({ orm, env, storage, payments }: { orm: Orm; env: Env; storage: Storage; payments: Payments }): WorkspaceRoute[] {
   const em = () => orm.em as EntityManager;
   return [
     {
@@ -48,6 +50,22 @@ export function workspaceOrderRoutes({ orm, env, storage }: { orm: Orm; env: Env
       handler: async (req, res) => {
         const item = await askNewPhoto(em(), req.studio!, String(req.params.itemId), req.user!, askNewPhotoInputSchema.parse(req.body), env.APP_URL);
         res.json({ itemId: item.id, stage: item.stage });
+      },
+    },
+    {
+      method: 'post', path: '/orders/:orderId/refunds', permission: 'order:refund',
+      sample: async (f) => ({ params: { orderId: (await f.orderItem({ paid: true })).orderId }, body: { amountMinor: 100, reason: 'A scratch on the frame.' } }),
+      handler: async (req, res) => {
+        const order = await refundOrder(em(), payments, req.studio!, String(req.params.orderId), req.user!, refundInputSchema.parse(req.body));
+        res.json({ status: order.status, refundedMinor: order.refundedMinor });
+      },
+    },
+    {
+      method: 'post', path: '/orders/:orderId/cancel', permission: 'order:refund',
+      sample: async (f) => ({ params: { orderId: (await f.orderItem({ paid: true })).orderId }, body: { reason: 'The buyer changed their mind.' } }),
+      handler: async (req, res) => {
+        const order = await cancelOrder(em(), payments, req.studio!, String(req.params.orderId), req.user!, cancelInputSchema.parse(req.body).reason);
+        res.json({ status: order.status, refundedMinor: order.refundedMinor });
       },
     },
   ];

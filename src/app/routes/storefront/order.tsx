@@ -61,6 +61,9 @@ export function OrderPage() {
                           <span className="font-semibold">Now: </span>
                           {ITEM_STAGE_LABELS[item.stage]}
                         </p>
+                        {item.stage === 'needs_new_photo' && (
+                          <p className="mt-1 max-w-sm text-sm font-semibold text-rust-600">The studio needs a new photo for this piece: we sent you an e-mail with the reason and a link to send it.</p>
+                        )}
                       </div>
                     </li>
                   ))}
@@ -76,6 +79,12 @@ export function OrderPage() {
                     <dd className="text-right">{o.shipping}</dd>
                     <dt className="font-bold">Total</dt>
                     <dd className="text-right font-bold">{o.total}</dd>
+              {o.refunded && (
+                <>
+                  <dt>Refunded</dt>
+                  <dd className="text-right">−{o.refunded}</dd>
+                </>
+              )}
                   </dl>
                   {o.delivery.address && (
                     <p className="mt-3 text-sm text-graphite-700">

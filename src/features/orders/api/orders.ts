@@ -38,3 +38,12 @@ function useReviewMove<T extends { itemId: string }>(slug: string, run: (input: 
 export const useApprovePhoto = (slug: string) => useReviewMove(slug, ({ itemId }: { itemId: string }) => apiFetch(`${base(slug)}/items/${itemId}/approve-photo`, { method: 'POST' }));
 export const useAskNewPhoto = (slug: string) =>
   useReviewMove(slug, ({ itemId, ...input }: { itemId: string } & AskNewPhotoInput) => apiFetch(`${base(slug)}/items/${itemId}/ask-new-photo`, { method: 'POST', body: input }));
+
+/** Refunds and cancellations refresh the order and the lists. */
+function useOrderMoney<T>(slug: string, run: (input: T) => Promise<unknown>) {
+  const queryClient = useQueryClient();
+  return useMutation({ mutationFn: run, onSettled: () => queryClient.invalidateQueries({ queryKey: orderQueries.all(slug) }) });
+}
+export const useRefund = (slug: string, orderId: string) =>
+  useOrderMoney(slug, (input: { amountMinor?: number; reason: string }) => apiFetch(`${base(slug)}/orders/${orderId}/refunds`, { method: 'POST', body: input }));
+export const useCancelOrder = (slug: string, orderId: string) => useOrderMoney(slug, (input: { reason: string }) => apiFetch(`${base(slug)}/orders/${orderId}/cancel`, { method: 'POST', body: input }));

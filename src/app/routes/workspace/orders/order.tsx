@@ -5,14 +5,17 @@ import { Card, CardTitle } from '../../../../components/ui/card.tsx';
 import { Notice } from '../../../../components/ui/notice.tsx';
 import { ItemMockup } from '../../../../features/designer/components/item-mockup.tsx';
 import { useStaffOrder } from '../../../../features/orders/api/orders.ts';
+import { methodLabel } from '../../../../features/catalog/labels.ts';
+import { MoneyActions } from '../../../../features/orders/components/money-actions.tsx';
+import { can } from '../../../../../shared/permissions.ts';
 
 export function StaffOrderPage() {
   const { orderId = '' } = useParams();
-  return <WorkspaceLayout>{({ studio }) => <StaffOrder slug={studio.slug} orderId={orderId} />}</WorkspaceLayout>;
+  return <WorkspaceLayout>{({ studio, role }) => <StaffOrder slug={studio.slug} orderId={orderId} canRefund={can(role, 'order:refund')} />}</WorkspaceLayout>;
 }
 
 /** One order as the studio sees it: items as they will burn, buyer, payment and every event. */
-function StaffOrder({ slug, orderId }: { slug: string; orderId: string }) {
+function StaffOrder({ slug, orderId, canRefund }: { slug: string; orderId: string; canRefund: boolean }) {
   const order = useStaffOrder(slug, orderId);
   if (order.isPending) return <p className="text-graphite-500">Loading…</p>;
   if (order.error) return <Notice tone="error">{order.error.message}</Notice>;
@@ -25,6 +28,7 @@ function StaffOrder({ slug, orderId }: { slug: string; orderId: string }) {
       <div className="flex flex-wrap items-center gap-3">
         <h1 className="text-3xl font-extrabold">Order {o.number}</h1>
         <span className="rounded-full bg-birch-100 px-3 py-1 text-sm font-bold">{ORDER_STATUS_LABELS[o.status]}</span>
+        <div className="ml-auto">{canRefund && <MoneyActions slug={slug} order={o} />}</div>
       </div>
       {o.note && <Notice tone="caution">{o.note}</Notice>}
       <div className="grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
@@ -43,7 +47,7 @@ function StaffOrder({ slug, orderId }: { slug: string; orderId: string }) {
                     {item.quantity} × {item.unitPrice}
                   </p>
                   <p>
-                    Recipe: {item.look.linesPerInch} lines per inch, {item.look.halftoneMethod}, {item.look.tone}
+                    Recipe: {item.look.linesPerInch} lines per inch, {methodLabel(item.look.halftoneMethod)}, {item.look.tone}
                   </p>
                   {item.inscription && <p>Words: “{item.inscription.lines.join(' / ')}”</p>}
                   <p className="mt-2 font-semibold">{ITEM_STAGE_LABELS[item.stage]}</p>
@@ -76,6 +80,12 @@ function StaffOrder({ slug, orderId }: { slug: string; orderId: string }) {
               <dd className="text-right">{o.shipping}</dd>
               <dt className="font-bold">Total</dt>
               <dd className="text-right font-bold">{o.total}</dd>
+              {o.refunded && (
+                <>
+                  <dt>Refunded</dt>
+                  <dd className="text-right">−{o.refunded}</dd>
+                </>
+              )}
             </dl>
           </Card>
           <Card>
