@@ -86,3 +86,12 @@ export const refundInputSchema = z.object({
 });
 export type RefundInput = z.input<typeof refundInputSchema>;
 export const cancelInputSchema = z.object({ reason: z.string().trim().min(1, 'Say why, for the buyer and the record.').max(300, 'Use at most 300 characters.') });
+
+/** The workspace's first page: work waiting by stage, the oldest waiting items, the last weeks. */
+export const todaySchema = z.object({
+  byStage: z.array(z.object({ stage: z.enum(ITEM_STAGES), count: z.number().int() })),
+  oldest: z.array(z.object({ itemId: z.uuid(), orderId: z.uuid(), orderNumber: z.number().int(), label: z.string(), stage: z.enum(ITEM_STAGES), since: z.string() })),
+  weeks: z.array(z.object({ weekStart: z.string(), orders: z.number().int(), revenueMinor: z.number().int() })),
+  currency: z.string(),
+});
+export type Today = z.infer<typeof todaySchema>;

@@ -63,6 +63,10 @@ describe('photo review: asking the buyer for a better photo', () => {
     await staff.page.getByLabel('Password').fill(DEMO_PASSWORD);
     await staff.page.getByRole('button', { name: 'Sign in', exact: true }).click();
     await staff.page.waitForURL(`${b.baseUrl}/studio/harbour-light`);
+    // Today: one photo waits for review, and this week has the order.
+    await expect.poll(() => staff.page.getByRole('img', { name: /Orders per week, last 12 weeks: (0, ){11}1$/ }).count()).toBe(1);
+    await staff.page.mouse.move(0, 0);
+    await shot(staff.page, 'workspace-today');
     await staff.page.getByRole('navigation', { name: 'Workspace' }).getByRole('link', { name: 'Photo review' }).click();
     // 451 × 276 px on the 6.5 × 4.5 in area: min(69, 61) = 61 pixels per inch, too low.
     await expect.poll(() => staff.page.getByText('61 pixels per inch (too low)').count()).toBe(1);

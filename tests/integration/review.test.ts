@@ -115,6 +115,21 @@ describe('photo review', () => {
     expect((await owner.get(`${work}/orders`).query({ from: '2099-01-01' }).expect(200)).body.total).toBe(0);
   });
 
+  it('counts work by stage and sums orders and revenue after refunds per week', async () => {
+    const body = (await staff.get(`${work}/today`).expect(200)).body;
+    expect(body.weeks).toHaveLength(12);
+    const inReview = (await staff.get(`${work}/review-queue`).expect(200)).body.items.length;
+    expect(body.byStage.find((s: { stage: string }) => s.stage === 'photo_review').count).toBe(inReview);
+    // Every order here was paid this week: the last week holds them all, at $49.00 each less refunds.
+    const all = (await owner.get(`${work}/orders`).query({ pageSize: 100 }).expect(200)).body.orders;
+    const paid = all.filter((o: { status: string }) => o.status !== 'awaiting_payment');
+    const thisWeek = body.weeks.at(-1);
+    expect(thisWeek.orders).toBe(paid.length);
+    expect(thisWeek.revenueMinor).toBe(4900 * paid.length);
+    expect(body.weeks.slice(0, -1).every((w: { orders: number }) => w.orders === 0)).toBe(true);
+    expect(body.oldest.length).toBeGreaterThan(0);
+  });
+
   describe('refunds and cancellations (owners only)', () => {
     it('refuses staff, refunds in part and then the rest, never more than was paid', async () => {
       const orderId = await paidOrder('rue@buyers.test');

@@ -2,6 +2,7 @@ import type { EntityManager } from '@mikro-orm/postgresql';
 import { askNewPhotoInputSchema, cancelInputSchema, orderListQuerySchema, refundInputSchema } from '../../../shared/schemas/workspace-orders.ts';
 import type { Payments } from '../../adapters/payments.ts';
 import { cancelOrder, refundOrder } from './refunds.service.ts';
+import { today } from './today.service.ts';
 import type { Storage } from '../../adapters/storage.ts';
 import type { Env } from '../../env.ts';
 import type { Orm } from '../../db/orm.ts';
@@ -35,6 +36,7 @@ export function workspaceOrderRoutes({ orm, env, storage, payments }: { orm: Orm
         res.set({ 'content-type': object.contentType ?? 'application/octet-stream', 'cache-control': 'private, max-age=3600' }).end(Buffer.from(object.body));
       },
     },
+    { method: 'get', path: '/today', permission: 'order:read', handler: async (req, res) => void res.json(await today(em(), req.studio!)) },
     { method: 'get', path: '/review-queue', permission: 'order:review', handler: async (req, res) => void res.json({ items: await reviewQueue(em(), req.studio!) }) },
     {
       method: 'post', path: '/items/:itemId/approve-photo', permission: 'order:review',

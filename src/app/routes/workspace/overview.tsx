@@ -6,6 +6,8 @@ import { signOutEverywhere } from '../../../features/auth/api/sign-in.ts';
 import { WorkspaceLayout } from '../../../components/layouts/workspace-layout.tsx';
 import { Card, CardTitle } from '../../../components/ui/card.tsx';
 import { Notice } from '../../../components/ui/notice.tsx';
+import { TodayPanel } from '../../../features/orders/components/today.tsx';
+import { can } from '../../../../shared/permissions.ts';
 
 const roleText = {
   owner: 'As an owner you manage the team, the catalog, prices and refunds, and everything on orders.',
@@ -23,6 +25,7 @@ export function WorkspaceOverviewPage() {
               The storefront is closed to new orders. Contact the platform team to reopen it.
             </Notice>
           )}
+          {can(role, 'order:read') && <TodayPanel slug={studio.slug} />}
           <div className="grid gap-4 md:grid-cols-2">
             <Card>
               <CardTitle>Your role</CardTitle>
