@@ -32,7 +32,7 @@ export type WorkspaceFixtures = {
   upload(purpose: 'blank-photos' | 'logo'): Promise<string>;
   shippingRate(): Promise<string>;
   /** A paid order with one item waiting for photo review, its photo stored. */
-  orderItem(options?: { paid?: boolean }): Promise<{ orderId: string; itemId: string; photoId: string }>;
+  orderItem(options?: { paid?: boolean; stage?: 'photo_review' | 'prep' | 'changes_requested' }): Promise<{ orderId: string; itemId: string; photoId: string }>;
 };
 
 export function workspaceRouter({ auth, orm, routes }: { auth: Auth; orm: Orm; routes: WorkspaceRoute[] }): Router {

@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { ITEM_STAGES, ORDER_STATUSES } from '../orders/stages.ts';
 import { orderViewSchema, placementSchema } from './checkout.ts';
 import { buyerPhotoSchema } from './photos.ts';
+import { prepSettingsSchema, prepVersionSchema } from './prep.ts';
 
 /** The workspace's order lists, the photo review queue and the moves staff make on items. */
 export const orderListQuerySchema = z.object({
@@ -95,3 +96,17 @@ export const todaySchema = z.object({
   currency: z.string(),
 });
 export type Today = z.infer<typeof todaySchema>;
+
+/** One item as staff work on it: the buyer's view of it, where it may go next, and its prep. */
+export const staffItemSchema = z.object({
+  orderId: z.uuid(),
+  orderNumber: z.number().int(),
+  item: orderViewSchema.shape.items.element,
+  allowedMoves: z.array(z.enum(ITEM_STAGES)),
+  prep: prepSettingsSchema,
+  defaults: prepSettingsSchema,
+  versions: z.array(prepVersionSchema),
+});
+export type StaffItem = z.infer<typeof staffItemSchema>;
+
+export const proofViewSchema = z.object({ orderNumber: z.number().int(), item: orderViewSchema.shape.items.element, prep: prepSettingsSchema });

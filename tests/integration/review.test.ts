@@ -130,6 +130,53 @@ describe('photo review', () => {
     expect(body.oldest.length).toBeGreaterThan(0);
   });
 
+  it('preps with settings from the recipe, keeps each version, sends a proof the buyer answers by link', async () => {
+    const orderId = await paidOrder('wren@buyers.test');
+    const queued = (await staff.get(`${work}/review-queue`).expect(200)).body.items.find((i: { orderId: string }) => i.orderId === orderId);
+    const itemUrl = `${work}/items/${queued.itemId}`;
+    const inReview = (await staff.get(itemUrl).expect(200)).body;
+    // Prep waits until the photo is approved.
+    expect((await staff.put(`${itemUrl}/prep`).send(inReview.prep).expect(409)).body.message).toMatch(/only while it is being prepared/);
+    await staff.post(`${itemUrl}/approve-photo`).expect(200);
+    const item = (await staff.get(itemUrl).expect(200)).body;
+    // The demo recipe for painted glass: 360 lines per inch, Jarvis–Judice–Ninke, negative.
+    expect(item.prep).toMatchObject({ halftoneMethod: 'jarvis-judice-ninke', linesPerInch: 360, negative: true });
+    expect(item.allowedMoves).toEqual(['proof_sent', 'approved', 'cancelled']);
+    expect((await staff.put(`${itemUrl}/prep`).send({ ...item.prep, linesPerInch: 90 }).expect(400)).body.issues[0].path).toEqual(['linesPerInch']);
+    await staff.put(`${itemUrl}/prep`).send({ ...item.prep, sharpenAmount: 220 }).expect(200, { version: 1 });
+    await staff.put(`${itemUrl}/prep`).send({ ...item.prep, sharpenAmount: 260, brightness: 8 }).expect(200, { version: 2 });
+    const versions = (await staff.get(itemUrl).expect(200)).body.versions;
+    expect(versions.map((v: { version: number; savedBy: string; settings: { sharpenAmount: number } }) => [v.version, v.savedBy, v.settings.sharpenAmount])).toEqual([[1, 'Tobias Renn', 220], [2, 'Tobias Renn', 260]]);
+
+    const proofLink = async () => {
+      const mail = await t.orm.em.fork().find(OutboxEmail, { to: 'wren@buyers.test', subject: { $like: '%your proof%' } }, { orderBy: { createdAt: 'desc' } });
+      return /\/proofs\/([\w-]+)/.exec(mail[0]!.text)![1]!;
+    };
+    await staff.post(`${itemUrl}/send-proof`).expect(200, { stage: 'proof_sent' });
+    await staff.put(`${itemUrl}/prep`).send(item.prep).expect(409); // not while the buyer looks at the proof
+    const first = await proofLink();
+    expect((await request(t.app).get(`${store}/proofs/${first}`).expect(200)).body.prep.sharpenAmount).toBe(260);
+    await request(t.app).post(`${store}/proofs/${first}`).send({ decision: 'changes', message: '' }).expect(400);
+    await request(t.app).post(`${store}/proofs/${first}`).send({ decision: 'changes', message: 'A little lighter, please.' }).expect(200, { stage: 'changes_requested' });
+    await request(t.app).get(`${store}/proofs/${first}`).expect(404);
+    await staff.post(`${itemUrl}/reopen-prep`).expect(200, { stage: 'prep' });
+    await staff.put(`${itemUrl}/prep`).send({ ...item.prep, brightness: 15 }).expect(200, { version: 3 });
+    await staff.post(`${itemUrl}/send-proof`).expect(200);
+    const second = await proofLink();
+    expect(second).not.toBe(first);
+    await request(t.app).post(`${store}/proofs/${second}`).send({ decision: 'approve' }).expect(200, { stage: 'approved' });
+    const events = (await staff.get(`${work}/orders/${orderId}`).expect(200)).body.events.map((e: { text: string }) => e.text).join('\n');
+    expect(events).toMatch(/asked for changes: “A little lighter, please\.”[\s\S]*The buyer approved the proof\./);
+  });
+
+  it('approves without a proof when the studio does not send one', async () => {
+    const orderId = await paidOrder('ash@buyers.test');
+    const queued = (await staff.get(`${work}/review-queue`).expect(200)).body.items.find((i: { orderId: string }) => i.orderId === orderId);
+    await staff.post(`${work}/items/${queued.itemId}/approve-without-proof`).expect(409); // still in review
+    await staff.post(`${work}/items/${queued.itemId}/approve-photo`).expect(200);
+    await staff.post(`${work}/items/${queued.itemId}/approve-without-proof`).expect(200, { stage: 'approved' });
+  });
+
   describe('refunds and cancellations (owners only)', () => {
     it('refuses staff, refunds in part and then the rest, never more than was paid', async () => {
       const orderId = await paidOrder('rue@buyers.test');

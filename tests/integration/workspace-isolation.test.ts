@@ -49,7 +49,7 @@ describe('workspace isolation matrix', () => {
         await fork.flush();
         return invite.id;
       },
-      orderItem: async ({ paid = false } = {}) => {
+      orderItem: async ({ paid = false, stage = 'photo_review' } = {}) => {
         // With `paid`, a real payment through the payments stand-in, so refunds have one to return.
         let paymentIntentId: string | null = null;
         if (paid) {
@@ -64,7 +64,7 @@ describe('workspace isolation matrix', () => {
         const number = Math.floor(Math.random() * 1e9);
         const order = fork.create(Order, { studio: studioA.id, number, status: 'paid', buyerEmail: 'b@example.com', buyerName: 'B', deliveryMethod: 'pickup', shippingAddress: null, shippingRate: null, currency: 'USD', subtotalMinor: 100, shippingMinor: 0, totalMinor: 100, accessKeyHash: '0'.repeat(64), paidAt: new Date(), paymentIntentId });
         const snapshot = { blank: { id: randomUUID(), name: 'B', shape: 'oval' as const, material: { id: randomUUID(), name: 'Slate', surfaceColour: '#333333', markColour: '#cccccc', defaultTone: 'negative' as const, linesPerInchMax: 300 } }, size: { id: randomUUID(), label: 'S', areaWidthMm: 90, areaHeightMm: 90, outerWidthMm: 100, outerHeightMm: 100, priceMinor: 100, sku: '' }, recipe: null };
-        const item = fork.create(OrderItem, { studio: studioA.id, order, stage: 'photo_review', size: null, snapshot, quantity: 1, unitPriceMinor: 100, photo, placement: { crop: { left: 0, top: 0, width: 400, height: 400 }, rotation: 0, flipHorizontal: false }, orientation: 'portrait', inscription: null, effectivePpi: 100, lowResolutionConfirmed: false });
+        const item = fork.create(OrderItem, { studio: studioA.id, order, stage, size: null, snapshot, quantity: 1, unitPriceMinor: 100, photo, placement: { crop: { left: 0, top: 0, width: 400, height: 400 }, rotation: 0, flipHorizontal: false }, orientation: 'portrait', inscription: null, effectivePpi: 100, lowResolutionConfirmed: false });
         await fork.flush();
         return { orderId: order.id, itemId: item.id, photoId: photo.id };
       },

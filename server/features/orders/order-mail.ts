@@ -56,3 +56,12 @@ export function cancelledMail(input: { studioName: string; number: number; buyer
     html: `<p>Hello ${escapeHtml(input.buyerName)},</p><p>${escapeHtml(input.studioName)} has cancelled order ${input.number}.<br>Reason: ${escapeHtml(input.reason)}</p>${input.refund ? `<p>${escapeHtml(input.refund)} It shows on your statement within a few days.</p>` : ''}`,
   };
 }
+
+/** To the buyer: the proof is ready; approve it or say what to change. */
+export function proofMail(input: { studioName: string; number: number; buyerName: string; what: string; url: string }) {
+  return {
+    subject: `Order ${input.number}: your proof from ${input.studioName}`,
+    text: `Hello ${input.buyerName},\n\n${input.studioName} has prepared ${input.what} for engraving. See how it will burn, then approve it or tell us what to change:\n${input.url}\n\nNothing is engraved until you approve.`,
+    html: `<p>Hello ${escapeHtml(input.buyerName)},</p><p>${escapeHtml(input.studioName)} has prepared ${escapeHtml(input.what)} for engraving.</p><p><a href="${escapeHtml(input.url)}">See the proof, approve it or ask for changes</a></p><p>Nothing is engraved until you approve.</p>`,
+  };
+}

@@ -1,5 +1,6 @@
 import { Collection, Entity, Enum, Filter, Index, ManyToOne, OneToMany, PrimaryKey, Property, Unique } from '@mikro-orm/core';
 import type { Address, Inscription, Placement } from '../../../shared/schemas/checkout.ts';
+import type { PrepVersion } from '../../../shared/schemas/prep.ts';
 import { ITEM_STAGES, ORDER_STATUSES, type ItemStage, type OrderStatus } from '../../../shared/orders/stages.ts';
 import { BaseEntity } from '../../db/base.entity.ts';
 import { tenantFilter } from '../../db/tenant.ts';
@@ -42,7 +43,7 @@ export class Order extends BaseEntity<'refundedMinor'> {
 
 @Entity({ tableName: 'order_item' })
 @Filter(tenantFilter)
-export class OrderItem extends BaseEntity<'replacementTokenHash' | 'replacementReason' | 'replacementNote' | 'replacements'> {
+export class OrderItem extends BaseEntity<'replacementTokenHash' | 'replacementReason' | 'replacementNote' | 'replacements' | 'prepVersions' | 'proofTokenHash'> {
   @ManyToOne(() => Studio, { deleteRule: 'cascade' }) studio!: Studio;
   @ManyToOne(() => Order, { deleteRule: 'cascade' }) order!: Order;
   @Enum({ items: [...ITEM_STAGES], type: 'string' }) stage!: ItemStage;
@@ -63,6 +64,10 @@ export class OrderItem extends BaseEntity<'replacementTokenHash' | 'replacementR
   @Property({ type: 'text' }) replacementNote: string = '';
   /** How many times the buyer has sent a new photo. */
   @Property({ type: 'integer' }) replacements: number = 0;
+  /** Every saved version of the prep settings, newest last; the last one is what burns. */
+  @Property({ type: 'json' }) prepVersions: PrepVersion[] = [];
+  /** While a proof waits for the buyer: the SHA-256 of the proof link's token. */
+  @Property({ type: 'string', length: 64, nullable: true }) proofTokenHash: string | null = null;
 }
 
 /** One thing that happened to an order: who, when, what and why. Never changed once written. */

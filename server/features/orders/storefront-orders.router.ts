@@ -12,6 +12,8 @@ import { ShippingRate } from '../shipping/shipping-rate.entity.ts';
 import { storefrontStudio } from '../studios/studios.service.ts';
 import { placeOrder } from './checkout.service.ts';
 import { findReplacement, submitReplacement } from './review.service.ts';
+import { answerProof, currentPrep, findProof } from './prep.service.ts';
+import { proofDecisionSchema } from '../../../shared/schemas/prep.ts';
 import { REVIEW_REASONS, replacementInputSchema, type ReviewReason } from '../../../shared/schemas/workspace-orders.ts';
 import { Order } from './order.entity.ts';
 import { orderView } from './order.views.ts';
@@ -76,6 +78,18 @@ export function storefrontOrdersRouter({ orm, env, payments, auth }: { orm: Orm;
   router.post('/:studioSlug/replacements/:token', async (req, res) => {
     const studio = await storefrontStudio(em(), req.params.studioSlug, { open: true });
     const item = await submitReplacement(em(), studio, req.params.token, replacementInputSchema.parse(req.body));
+    res.json({ stage: item.stage });
+  });
+  router.get('/:studioSlug/proofs/:token', async (req, res) => {
+    const studio = await storefrontStudio(em(), req.params.studioSlug);
+    const item = await findProof(em(), studio, req.params.token);
+    await em().populate(item.order, ['items', 'items.photo', 'events']);
+    res.set('cache-control', 'no-store').json({ orderNumber: item.order.number, item: orderView(item.order).items.find((i) => i.id === item.id)!, prep: currentPrep(item) });
+  });
+
+  router.post('/:studioSlug/proofs/:token', async (req, res) => {
+    const studio = await storefrontStudio(em(), req.params.studioSlug);
+    const item = await answerProof(em(), studio, req.params.token, proofDecisionSchema.parse(req.body));
     res.json({ stage: item.stage });
   });
   return router;

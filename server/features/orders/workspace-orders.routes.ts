@@ -3,6 +3,12 @@ import { askNewPhotoInputSchema, cancelInputSchema, orderListQuerySchema, refund
 import type { Payments } from '../../adapters/payments.ts';
 import { cancelOrder, refundOrder } from './refunds.service.ts';
 import { today } from './today.service.ts';
+import { approveWithoutProof, currentPrep, defaultPrep, findItem, reopenPrep, savePrep, sendProof } from './prep.service.ts';
+import { prepSettingsSchema, type PrepSettings } from '../../../shared/schemas/prep.ts';
+import { ITEM_TRANSITIONS } from '../../../shared/orders/stages.ts';
+import type { StaffItem } from '../../../shared/schemas/workspace-orders.ts';
+
+const SAMPLE_PREP: PrepSettings = { brightness: 5, contrast: 10, gamma: 1.1, autoLevels: true, sharpenAmount: 200, sharpenRadius: 2, sharpenThreshold: 2, halftoneMethod: 'stucki', linesPerInch: 300, negative: true, featherRadius: 3 };
 import type { Storage } from '../../adapters/storage.ts';
 import type { Env } from '../../env.ts';
 import type { Orm } from '../../db/orm.ts';
@@ -35,6 +41,46 @@ export function workspaceOrderRoutes({ orm, env, storage, payments }: { orm: Orm
         const object = await storage.get(photo.originalKey);
         res.set({ 'content-type': object.contentType ?? 'application/octet-stream', 'cache-control': 'private, max-age=3600' }).end(Buffer.from(object.body));
       },
+    },
+    {
+      method: 'get', path: '/items/:itemId', permission: 'order:read',
+      sample: async (f) => ({ params: { itemId: (await f.orderItem()).itemId } }),
+      handler: async (req, res) => {
+        const item = await findItem(em(), req.studio!, String(req.params.itemId));
+        await em().populate(item.order, ['items', 'items.photo', 'events', 'studio']);
+        res.json({
+          orderId: item.order.id,
+          orderNumber: item.order.number,
+          item: orderView(item.order).items.find((i) => i.id === item.id)!,
+          allowedMoves: [...ITEM_TRANSITIONS[item.stage]],
+          prep: currentPrep(item),
+          defaults: defaultPrep(item),
+          versions: item.prepVersions,
+        } satisfies StaffItem);
+      },
+    },
+    {
+      method: 'put', path: '/items/:itemId/prep', permission: 'order:produce',
+      sample: async (f) => ({ params: { itemId: (await f.orderItem({ stage: 'prep' })).itemId }, body: SAMPLE_PREP }),
+      handler: async (req, res) => {
+        const item = await savePrep(em(), req.studio!, String(req.params.itemId), req.user!, prepSettingsSchema.parse(req.body));
+        res.json({ version: item.prepVersions.at(-1)!.version });
+      },
+    },
+    {
+      method: 'post', path: '/items/:itemId/send-proof', permission: 'order:produce',
+      sample: async (f) => ({ params: { itemId: (await f.orderItem({ stage: 'prep' })).itemId } }),
+      handler: async (req, res) => void res.json({ stage: (await sendProof(em(), req.studio!, String(req.params.itemId), req.user!, env.APP_URL)).stage }),
+    },
+    {
+      method: 'post', path: '/items/:itemId/approve-without-proof', permission: 'order:produce',
+      sample: async (f) => ({ params: { itemId: (await f.orderItem({ stage: 'prep' })).itemId } }),
+      handler: async (req, res) => void res.json({ stage: (await approveWithoutProof(em(), req.studio!, String(req.params.itemId), req.user!)).stage }),
+    },
+    {
+      method: 'post', path: '/items/:itemId/reopen-prep', permission: 'order:produce',
+      sample: async (f) => ({ params: { itemId: (await f.orderItem({ stage: 'changes_requested' })).itemId } }),
+      handler: async (req, res) => void res.json({ stage: (await reopenPrep(em(), req.studio!, String(req.params.itemId), req.user!)).stage }),
     },
     { method: 'get', path: '/today', permission: 'order:read', handler: async (req, res) => void res.json(await today(em(), req.studio!)) },
     { method: 'get', path: '/review-queue', permission: 'order:review', handler: async (req, res) => void res.json({ items: await reviewQueue(em(), req.studio!) }) },

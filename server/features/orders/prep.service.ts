@@ -1,0 +1,87 @@
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { AppError } from '../../../shared/errors.ts';
+import { assertMove, ITEM_TRANSITIONS, type ItemStage } from '../../../shared/orders/stages.ts';
+import type { PrepSettings, ProofDecision } from '../../../shared/schemas/prep.ts';
+import { hashToken, isUuid, newLinkToken } from '../../lib/tokens.ts';
+import type { User } from '../accounts/user.entity.ts';
+import { queueEmail } from '../outbox/outbox.service.ts';
+import type { Studio } from '../studios/studio.entity.ts';
+import { proofMail } from './order-mail.ts';
+import { OrderEvent, OrderItem } from './order.entity.ts';
+import { lookOf } from './order.views.ts';
+
+const actorName = (user: User) => user.name ?? user.email;
+
+/** Prep settings an item starts from: its recipe's method, density and tone, a hard sharpen (common practice, no source). */
+export function defaultPrep(item: OrderItem): PrepSettings {
+  const look = lookOf(item);
+  return { brightness: 0, contrast: 10, gamma: 1, autoLevels: true, sharpenAmount: 150, sharpenRadius: 2, sharpenThreshold: 2, halftoneMethod: look.halftoneMethod, linesPerInch: look.linesPerInch, negative: look.tone === 'negative', featherRadius: 4 };
+}
+
+export const currentPrep = (item: OrderItem): PrepSettings => item.prepVersions.at(-1)?.settings ?? defaultPrep(item);
+
+export async function findItem(em: EntityManager, studio: Studio, id: string): Promise<OrderItem> {
+  const item = isUuid(id) ? await em.findOne(OrderItem, { id, studio }, { populate: ['order', 'photo'] }) : null;
+  if (!item) throw new AppError('NOT_FOUND', 'There is no such item.');
+  return item;
+}
+
+function move(em: EntityManager, item: OrderItem, to: ItemStage, actor: string, text: string, type: string): void {
+  assertMove('item', ITEM_TRANSITIONS, item.stage, to);
+  item.stage = to;
+  em.create(OrderEvent, { studio: item.studio, order: item.order, item, type, actor, text });
+}
+
+/** Saves prep settings as a new version; only while the item is being prepared. */
+export async function savePrep(em: EntityManager, studio: Studio, itemId: string, user: User, settings: PrepSettings): Promise<OrderItem> {
+  const item = await findItem(em, studio, itemId);
+  if (item.stage !== 'prep') throw new AppError('CONFLICT', `This item is ${item.stage.replaceAll('_', ' ')}: prep settings can be changed only while it is being prepared.`);
+  const version = (item.prepVersions.at(-1)?.version ?? 0) + 1;
+  item.prepVersions = [...item.prepVersions, { version, settings, savedBy: actorName(user), savedAt: new Date().toISOString() }];
+  em.create(OrderEvent, { studio, order: item.order, item, type: 'prep_saved', actor: actorName(user), text: `Prep settings version ${version} saved by ${actorName(user)}.` });
+  await em.flush();
+  return item;
+}
+
+/** Sends the buyer a proof: the mock-up of the current prep, with links to approve or ask for changes. */
+export async function sendProof(em: EntityManager, studio: Studio, itemId: string, user: User, appUrl: string): Promise<OrderItem> {
+  const item = await findItem(em, studio, itemId);
+  const token = newLinkToken();
+  move(em, item, 'proof_sent', actorName(user), `Proof sent to the buyer by ${actorName(user)}.`, 'proof_sent');
+  item.proofTokenHash = token.hash;
+  queueEmail(em, { to: item.order.buyerEmail, ...proofMail({ studioName: studio.name, number: item.order.number, buyerName: item.order.buyerName, what: `${item.snapshot.blank.name}, ${item.snapshot.size.label}`, url: `${appUrl}/s/${studio.slug}/proofs/${token.token}` }) });
+  await em.flush();
+  return item;
+}
+
+/** For studios (or items) that need no proof: straight from prep to approved. */
+export async function approveWithoutProof(em: EntityManager, studio: Studio, itemId: string, user: User): Promise<OrderItem> {
+  const item = await findItem(em, studio, itemId);
+  move(em, item, 'approved', actorName(user), `Approved for engraving without a proof by ${actorName(user)}.`, 'approved');
+  await em.flush();
+  return item;
+}
+
+export async function findProof(em: EntityManager, studio: Studio, token: string): Promise<OrderItem> {
+  const item = token ? await em.findOne(OrderItem, { studio, proofTokenHash: hashToken(token) }, { populate: ['order', 'order.studio', 'photo'] }) : null;
+  if (!item || item.stage !== 'proof_sent') throw new AppError('NOT_FOUND', 'This proof has been answered already or is no longer valid. Your order page shows where things stand.');
+  return item;
+}
+
+/** The buyer's answer to a proof; the link works once. */
+export async function answerProof(em: EntityManager, studio: Studio, token: string, decision: ProofDecision): Promise<OrderItem> {
+  const item = await findProof(em, studio, token);
+  item.proofTokenHash = null;
+  if (decision.decision === 'approve') move(em, item, 'approved', 'buyer', 'The buyer approved the proof.', 'proof_approved');
+  else move(em, item, 'changes_requested', 'buyer', `The buyer asked for changes: “${decision.message}”`, 'changes_requested');
+  await em.flush();
+  return item;
+}
+
+/** After a change request, back to prep. */
+export async function reopenPrep(em: EntityManager, studio: Studio, itemId: string, user: User): Promise<OrderItem> {
+  const item = await findItem(em, studio, itemId);
+  move(em, item, 'prep', actorName(user), `Back to prep, by ${actorName(user)}.`, 'prep_reopened');
+  await em.flush();
+  return item;
+}
