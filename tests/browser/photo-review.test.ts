@@ -131,4 +131,44 @@ describe('photo review: asking the buyer for a better photo', () => {
     expect(told.subject).toBe(`Order ${orderNumber}: $10.00 refunded`);
     expect(owner.problems).toEqual([]);
   });
+
+  it('staff approve the new photo, prep it and send a proof; the buyer approves it by the e-mailed link', async () => {
+    const staff = await b.newPage();
+    await staff.page.goto(`${b.baseUrl}/sign-in`);
+    await staff.page.getByLabel('E-mail address').fill('tobias@harbour-light.test');
+    await staff.page.getByLabel('Password').fill(DEMO_PASSWORD);
+    await staff.page.getByRole('button', { name: 'Sign in', exact: true }).click();
+    await staff.page.waitForURL(`${b.baseUrl}/studio/harbour-light`);
+    await staff.page.goto(`${b.baseUrl}/studio/harbour-light/review`);
+    await staff.page.getByRole('button', { name: 'Approve photo' }).click();
+    await expect.poll(() => staff.page.getByText(`Photo approved: order ${orderNumber} moves to prep.`).count()).toBe(1);
+    await staff.page.getByRole('navigation', { name: 'Workspace' }).getByRole('link', { name: 'Orders' }).click();
+    await staff.page.getByRole('link', { name: String(orderNumber) }).click();
+    await staff.page.getByRole('link', { name: 'Prepare this item' }).click();
+    // The recipe's settings to start from: 360 lines per inch, as a negative on painted glass.
+    await expect.poll(() => staff.page.getByLabel('Line density').inputValue()).toBe('360');
+    expect(await staff.page.getByLabel('Negative (the burn is lighter)').isChecked()).toBe(true);
+    await staff.page.getByLabel('Sharpen amount').fill('240');
+    await staff.page.getByRole('button', { name: 'Save settings' }).click();
+    await expect.poll(() => staff.page.getByText('Saved versions (1)').count()).toBe(1);
+    await staff.page.waitForTimeout(500);
+    await shot(staff.page, 'item-prep');
+    await staff.page.getByRole('button', { name: 'Send proof to the buyer' }).click();
+    await expect.poll(() => staff.page.getByText('Proof sent', { exact: true }).count()).toBe(1);
+
+    const proofMail = await eventually(async () => {
+      const newest = await mail.latestTo('june@buyers.test');
+      return newest.subject.includes('your proof') ? newest : undefined;
+    });
+    const buyer = await b.newPage();
+    await buyer.page.goto(proofMail.links.find((l) => l.includes('/proofs/'))!);
+    await expect.poll(() => buyer.page.getByRole('img', { name: 'Your proof, as it will burn' }).count()).toBe(1);
+    await buyer.page.waitForTimeout(500);
+    await shot(buyer.page, 'proof');
+    await buyer.page.getByRole('button', { name: 'Approve and engrave' }).click();
+    await expect.poll(() => buyer.page.getByText('Harbour Light Engraving will engrave it as shown.').count()).toBe(1);
+    await staff.page.reload();
+    await expect.poll(() => staff.page.getByText('Approved for engraving', { exact: true }).count()).toBe(1);
+    expect([...staff.problems, ...buyer.problems]).toEqual([]);
+  });
 });

@@ -13,6 +13,9 @@ export type MockupJob = {
   placement: Placement;
   look: MockupLook;
   tone?: ToneOptions;
+  /** Staff prep: their sharpening and auto-levels instead of the storefront's defaults. */
+  sharpen?: { amount: number; radius: number; threshold: number };
+  autoLevelsClip?: number;
   view: 'photo' | 'burn';
 };
 

@@ -72,8 +72,9 @@ function render(job: MockupJob): ImageBitmap {
     const bitmap = renderBitmap(placed, {
       negative: job.look.tone === 'negative',
       tone: job.tone,
+      autoLevelsClip: job.autoLevelsClip,
       // Sharpening at screen scale: a one-pixel radius keeps the look of a hard-sharpened burn.
-      sharpen: { amount: 150, radius: 1, threshold: 2 },
+      sharpen: job.sharpen ?? { amount: 150, radius: 1, threshold: 2 },
       halftone: { method: job.look.halftoneMethod, pixelsPerInch: job.look.linesPerInch },
     });
     const mock = renderMockup({ bitmap, shape: job.look.shape, surfaceColour: job.look.surfaceColour, markColour: job.look.markColour });

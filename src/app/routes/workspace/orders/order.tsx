@@ -51,6 +51,9 @@ function StaffOrder({ slug, orderId, canRefund }: { slug: string; orderId: strin
                   </p>
                   {item.inscription && <p>Words: “{item.inscription.lines.join(' / ')}”</p>}
                   <p className="mt-2 font-semibold">{ITEM_STAGE_LABELS[item.stage]}</p>
+                  <Link to={`/studio/${slug}/items/${item.id}`} className="font-semibold text-ember-700 underline">
+                    Prepare this item
+                  </Link>
                 </div>
               </li>
             ))}

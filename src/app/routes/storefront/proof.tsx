@@ -1,0 +1,62 @@
+import { useState } from 'react';
+import { useParams } from 'react-router-dom';
+import { useMutation, useQuery } from '@tanstack/react-query';
+import { proofViewSchema } from '../../../../shared/schemas/workspace-orders.ts';
+import { StorefrontLayout } from '../../../components/layouts/storefront-layout.tsx';
+import { Button } from '../../../components/ui/button.tsx';
+import { Card, CardTitle } from '../../../components/ui/card.tsx';
+import { TextAreaField } from '../../../components/ui/field.tsx';
+import { Notice } from '../../../components/ui/notice.tsx';
+import { PlacedPhoto } from '../../../features/designer/components/placed-photo.tsx';
+import { prepMockup } from '../../../features/orders/prep-look.ts';
+import { apiFetch } from '../../../lib/api-client.ts';
+
+/** The buyer's proof: how the piece will burn, to approve or to ask for changes (the link works once). */
+export function ProofPage() {
+  const { studioSlug = '', token = '' } = useParams();
+  const url = `/api/storefront/${encodeURIComponent(studioSlug)}/proofs/${encodeURIComponent(token)}`;
+  const proof = useQuery({ queryKey: ['proof', studioSlug, token], queryFn: ({ signal }) => apiFetch(url, { schema: proofViewSchema, signal }), retry: false });
+  const [message, setMessage] = useState('');
+  const answer = useMutation({ mutationFn: (body: unknown) => apiFetch(url, { method: 'POST', body }) });
+  return (
+    <StorefrontLayout>
+      {(studio) => {
+        if (answer.isSuccess) return <Notice title="Thank you!">{(answer.variables as { decision: string }).decision === 'approve' ? `${studio.name} will engrave it as shown.` : `${studio.name} has your note and will send a new proof.`}</Notice>;
+        if (proof.isPending) return <p className="text-graphite-500">Opening your proof…</p>;
+        if (proof.error) return <Notice tone="error" title="This proof cannot be opened">{proof.error.message}</Notice>;
+        const { item, prep, orderNumber } = proof.data;
+        const width = 420;
+        const mock = prepMockup(item, prep, width);
+        return (
+          <div className="flex flex-col gap-6">
+            <h1 className="text-3xl font-extrabold">Your proof for order {orderNumber}</h1>
+            <div className="grid gap-6 lg:grid-cols-[auto_minmax(0,1fr)]">
+              <Card>
+                <CardTitle>
+                  {item.blankName}, {item.sizeLabel}
+                </CardTitle>
+                <div className="inline-flex rounded-lg p-3" style={{ background: item.look.surfaceColour }}>
+                  <PlacedPhoto photo={item.photo} placement={item.placement} look={mock.look} prep={mock.job} size={{ width, height: Math.round((width * item.look.areaHeightMm) / item.look.areaWidthMm) }} view="burn" label="Your proof, as it will burn" />
+                </div>
+                <p className="mt-2 text-xs text-graphite-500">The dots are drawn at screen size; the laser burns them far finer.</p>
+              </Card>
+              <Card>
+                <CardTitle>Is it right?</CardTitle>
+                <div className="flex flex-col gap-4">
+                  {answer.error && <Notice tone="error">{answer.error.message}</Notice>}
+                  <Button size="lg" busy={answer.isPending} onClick={() => answer.mutate({ decision: 'approve' })}>
+                    Approve and engrave
+                  </Button>
+                  <TextAreaField label="Or tell us what to change" value={message} onChange={(e) => setMessage(e.target.value)} maxLength={1000} />
+                  <Button variant="secondary" disabled={!message.trim()} busy={answer.isPending} onClick={() => answer.mutate({ decision: 'changes', message })}>
+                    Ask for changes
+                  </Button>
+                </div>
+              </Card>
+            </div>
+          </div>
+        );
+      }}
+    </StorefrontLayout>
+  );
+}
