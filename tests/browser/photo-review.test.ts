@@ -8,7 +8,7 @@ import { DEMO_PASSWORD } from '../../server/db/demo-scenario.ts';
 import { TENANT_FILTER } from '../../server/db/tenant.ts';
 import { Blank } from '../../server/features/catalog/catalog.entity.ts';
 import { Studio } from '../../server/features/studios/studio.entity.ts';
-import { freePort, screenshotDir, useBrowser } from '../support/browser.ts';
+import { freePort, screenshotDir, signInOnPage, useBrowser } from '../support/browser.ts';
 import { useMailFake } from '../support/mail.ts';
 import { referencePhotoDir } from '../support/pillow.ts';
 import { eventually } from '../support/fakes.ts';
@@ -58,11 +58,7 @@ describe('photo review: asking the buyer for a better photo', () => {
 
   it('staff flag the photo, the buyer sends a larger one by the e-mailed link, and it is back in review', async () => {
     const staff = await b.newPage();
-    await staff.page.goto(`${b.baseUrl}/sign-in`);
-    await staff.page.getByLabel('E-mail address').fill('tobias@harbour-light.test');
-    await staff.page.getByLabel('Password').fill(DEMO_PASSWORD);
-    await staff.page.getByRole('button', { name: 'Sign in', exact: true }).click();
-    await staff.page.waitForURL(`${b.baseUrl}/studio/harbour-light`);
+    await signInOnPage(staff.page, b.baseUrl, 'tobias@harbour-light.test', DEMO_PASSWORD, `${b.baseUrl}/studio/harbour-light`);
     // Today: one photo waits for review, and this week has the order.
     await expect.poll(() => staff.page.getByRole('img', { name: /Orders per week, last 12 weeks: (0, ){11}1$/ }).count()).toBe(1);
     await staff.page.mouse.move(0, 0);
@@ -109,11 +105,7 @@ describe('photo review: asking the buyer for a better photo', () => {
 
   it('the owner refunds part of the order from its page; the buyer is told', async () => {
     const owner = await b.newPage();
-    await owner.page.goto(`${b.baseUrl}/sign-in`);
-    await owner.page.getByLabel('E-mail address').fill('maren@harbour-light.test');
-    await owner.page.getByLabel('Password').fill(DEMO_PASSWORD);
-    await owner.page.getByRole('button', { name: 'Sign in', exact: true }).click();
-    await owner.page.waitForURL(`${b.baseUrl}/studio/harbour-light`);
+    await signInOnPage(owner.page, b.baseUrl, 'maren@harbour-light.test', DEMO_PASSWORD, `${b.baseUrl}/studio/harbour-light`);
     await owner.page.getByRole('navigation', { name: 'Workspace' }).getByRole('link', { name: 'Orders' }).click();
     await owner.page.getByLabel('Search').fill('june@');
     await owner.page.getByRole('link', { name: String(orderNumber) }).click();
@@ -134,11 +126,7 @@ describe('photo review: asking the buyer for a better photo', () => {
 
   it('staff approve the new photo, prep it and send a proof; the buyer approves it by the e-mailed link', async () => {
     const staff = await b.newPage();
-    await staff.page.goto(`${b.baseUrl}/sign-in`);
-    await staff.page.getByLabel('E-mail address').fill('tobias@harbour-light.test');
-    await staff.page.getByLabel('Password').fill(DEMO_PASSWORD);
-    await staff.page.getByRole('button', { name: 'Sign in', exact: true }).click();
-    await staff.page.waitForURL(`${b.baseUrl}/studio/harbour-light`);
+    await signInOnPage(staff.page, b.baseUrl, 'tobias@harbour-light.test', DEMO_PASSWORD, `${b.baseUrl}/studio/harbour-light`);
     await staff.page.goto(`${b.baseUrl}/studio/harbour-light/review`);
     await staff.page.getByRole('button', { name: 'Approve photo' }).click();
     await expect.poll(() => staff.page.getByText(`Photo approved: order ${orderNumber} moves to prep.`).count()).toBe(1);

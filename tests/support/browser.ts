@@ -80,3 +80,12 @@ export async function seriousA11yViolations(page: Page): Promise<string[]> {
   });
   return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);
 }
+
+/** Signs in on the sign-in page with a password, as a person would, and waits for the landing page. */
+export async function signInOnPage(page: Page, baseUrl: string, email: string, password: string, landing: string | RegExp): Promise<void> {
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByLabel('E-mail address').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in', exact: true }).click();
+  await page.waitForURL(landing);
+}

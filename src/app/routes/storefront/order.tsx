@@ -6,6 +6,7 @@ import { StorefrontLayout } from '../../../components/layouts/storefront-layout.
 import { Card, CardTitle } from '../../../components/ui/card.tsx';
 import { Notice } from '../../../components/ui/notice.tsx';
 import { useCart } from '../../../features/cart/cart-store.ts';
+import { OrderMoney, OrderTimeline } from '../../../features/orders/components/order-timeline.tsx';
 import { ItemMockup } from '../../../features/designer/components/item-mockup.tsx';
 import { useOrder } from '../../../features/storefront/api/checkout.ts';
 import { cx } from '../../../lib/cx.ts';
@@ -72,20 +73,7 @@ export function OrderPage() {
               <div className="flex flex-col gap-6">
                 <Card>
                   <CardTitle>Summary</CardTitle>
-                  <dl className="grid grid-cols-[1fr_auto] gap-y-1 text-sm">
-                    <dt>Items</dt>
-                    <dd className="text-right">{o.subtotal}</dd>
-                    <dt>{o.delivery.label}</dt>
-                    <dd className="text-right">{o.shipping}</dd>
-                    <dt className="font-bold">Total</dt>
-                    <dd className="text-right font-bold">{o.total}</dd>
-              {o.refunded && (
-                <>
-                  <dt>Refunded</dt>
-                  <dd className="text-right">−{o.refunded}</dd>
-                </>
-              )}
-                  </dl>
+                  <OrderMoney order={o} deliveryLabel={o.delivery.label} />
                   {o.delivery.address && (
                     <p className="mt-3 text-sm text-graphite-700">
                       {o.buyer.name}
@@ -99,16 +87,7 @@ export function OrderPage() {
                 </Card>
                 <Card>
                   <CardTitle>What has happened</CardTitle>
-                  <ol className="flex flex-col gap-3 border-l-2 border-graphite-100 pl-4 text-sm">
-                    {o.events.map((e, i) => (
-                      <li key={i}>
-                        <time dateTime={e.at} className="block text-xs text-graphite-500">
-                          {new Date(e.at).toLocaleString()}
-                        </time>
-                        {e.text}
-                      </li>
-                    ))}
-                  </ol>
+                  <OrderTimeline events={o.events} />
                 </Card>
               </div>
             </div>

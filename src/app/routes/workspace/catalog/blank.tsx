@@ -16,6 +16,7 @@ import { useToast } from '../../../../components/ui/toast.tsx';
 import { serverErrorOf, showServerError } from '../../../../lib/form-errors.ts';
 import { useBlank, useMaterials, useRemoveSize, useUpdateBlank } from '../../../../features/catalog/api/catalog.ts';
 import { BlankFields, type BlankFormValues } from '../../../../features/catalog/components/blank-fields.tsx';
+import { RowActions, useConfirmedDelete } from '../../../../features/catalog/components/row-actions.tsx';
 import { CatalogFrame, QueryState } from '../../../../features/catalog/components/catalog-frame.tsx';
 import { PhotoPanel } from '../../../../features/catalog/components/photo-panel.tsx';
 import { SizeDialog } from '../../../../features/catalog/components/size-dialog.tsx';
@@ -147,7 +148,7 @@ function SizesCard({ slug, blankId, units, currency, canEdit, blank }: { slug: s
   const remove = useRemoveSize(slug, blankId);
   const toast = useToast();
   const [editing, setEditing] = useState<SizeView | 'new'>();
-  const [removing, setRemoving] = useState<SizeView>();
+  const removal = useConfirmedDelete((size: SizeView) => remove.mutateAsync(size.id), (size) => `Size ${size.label} removed.`);
   const columns = useMemo<DataColumn<SizeView>[]>(
     () => [
       col.accessor('label', { header: 'Size', cell: ({ row }) => <span className="font-semibold">{row.original.label}</span> }),
@@ -170,39 +171,20 @@ function SizesCard({ slug, blankId, units, currency, canEdit, blank }: { slug: s
             col.display({
               id: 'actions',
               header: () => <span className="sr-only">Actions</span>,
-              cell: ({ row }) => (
-                <span className="inline-flex gap-1">
-                  <Button size="sm" variant="quiet" onClick={() => setEditing(row.original)} aria-label={`Edit size ${row.original.label}`}>
-                    Edit
-                  </Button>
-                  <Button size="sm" variant="quiet" onClick={() => setRemoving(row.original)} aria-label={`Remove size ${row.original.label}`}>
-                    Remove
-                  </Button>
-                </span>
-              ),
+              cell: ({ row }) => <RowActions name={`size ${row.original.label}`} deleteWord="Remove" onEdit={() => setEditing(row.original)} onDelete={() => removal.ask(row.original)} />,
             }),
           ]
         : []),
     ],
     [units, currency, canEdit],
   );
-  async function confirmRemove() {
-    const size = removing!;
-    setRemoving(undefined);
-    try {
-      await remove.mutateAsync(size.id);
-      toast.show(`Size ${size.label} removed.`, 'success');
-    } catch (error) {
-      toast.show((error as Error).message, 'error');
-    }
-  }
   return (
     <Card>
       <CardTitle aside={canEdit && <Button size="sm" onClick={() => setEditing('new')}>Add size</Button>}>Sizes and prices</CardTitle>
       {blank.status === 'active' && blank.sizes.length === 0 && <Notice tone="caution">This blank is on sale but has no sizes, so buyers cannot see it. Add a size.</Notice>}
       <DataTable caption={`Sizes of ${blank.name}`} data={blank.sizes} columns={columns} getRowId={(s) => s.id} searchLabel="Search sizes" initialSorting={[{ id: 'priceMinor', desc: false }]} empty="No sizes yet." />
       {editing && <SizeDialog slug={slug} blankId={blankId} units={units} currency={currency} size={editing === 'new' ? undefined : editing} onClose={() => setEditing(undefined)} />}
-      <Dialog open={Boolean(removing)} title={`Remove size ${removing?.label ?? ''}?`} onClose={() => setRemoving(undefined)} confirm={{ label: 'Remove size', danger: true, onConfirm: () => void confirmRemove() }}>
+      <Dialog open={Boolean(removal.pending)} title={`Remove size ${removal.pending?.label ?? ''}?`} onClose={removal.cancel} confirm={{ label: 'Remove size', danger: true, onConfirm: () => void removal.confirm() }}>
         Buyers can no longer choose it. Orders already placed keep their own copy of the size and its price.
       </Dialog>
     </Card>

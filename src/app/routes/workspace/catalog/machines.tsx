@@ -6,8 +6,8 @@ import { WorkspaceLayout } from '../../../../components/layouts/workspace-layout
 import { Button } from '../../../../components/ui/button.tsx';
 import { DataTable, tableColumns, type DataColumn } from '../../../../components/ui/data-table.tsx';
 import { Dialog } from '../../../../components/ui/dialog.tsx';
-import { useToast } from '../../../../components/ui/toast.tsx';
 import { useDeleteMachine, useMachines } from '../../../../features/catalog/api/catalog.ts';
+import { RowActions, useConfirmedDelete } from '../../../../features/catalog/components/row-actions.tsx';
 import { CatalogFrame, QueryState } from '../../../../features/catalog/components/catalog-frame.tsx';
 import { MachineDialog } from '../../../../features/catalog/components/machine-dialog.tsx';
 import { laserKindOptions } from '../../../../features/catalog/labels.ts';
@@ -21,9 +21,8 @@ const col = tableColumns<MachineView>();
 function Machines({ slug, units, canEdit }: { slug: string; units: LengthUnit; canEdit: boolean }) {
   const machines = useMachines(slug);
   const remove = useDeleteMachine(slug);
-  const toast = useToast();
   const [editing, setEditing] = useState<MachineView | 'new'>();
-  const [deleting, setDeleting] = useState<MachineView>();
+  const deletion = useConfirmedDelete((machine: MachineView) => remove.mutateAsync(machine.id), (machine) => `${machine.name} deleted.`);
 
   const columns = useMemo<DataColumn<MachineView>[]>(
     () => [
@@ -37,16 +36,7 @@ function Machines({ slug, units, canEdit }: { slug: string; units: LengthUnit; c
             col.display({
               id: 'actions',
               header: () => <span className="sr-only">Actions</span>,
-              cell: ({ row }) => (
-                <span className="inline-flex gap-1">
-                  <Button size="sm" variant="quiet" onClick={() => setEditing(row.original)} aria-label={`Edit ${row.original.name}`}>
-                    Edit
-                  </Button>
-                  <Button size="sm" variant="quiet" onClick={() => setDeleting(row.original)} aria-label={`Delete ${row.original.name}`}>
-                    Delete
-                  </Button>
-                </span>
-              ),
+              cell: ({ row }) => <RowActions name={row.original.name} onEdit={() => setEditing(row.original)} onDelete={() => deletion.ask(row.original)} />,
             }),
           ]
         : []),
@@ -54,16 +44,6 @@ function Machines({ slug, units, canEdit }: { slug: string; units: LengthUnit; c
     [canEdit, units],
   );
 
-  async function confirmDelete() {
-    const machine = deleting!;
-    setDeleting(undefined);
-    try {
-      await remove.mutateAsync(machine.id);
-      toast.show(`${machine.name} deleted.`, 'success');
-    } catch (error) {
-      toast.show((error as Error).message, 'error');
-    }
-  }
 
   return (
     <CatalogFrame slug={slug} title="Machines" canEdit={canEdit} actions={<Button onClick={() => setEditing('new')}>New machine</Button>}>
@@ -81,7 +61,7 @@ function Machines({ slug, units, canEdit }: { slug: string; units: LengthUnit; c
         />
       )}
       {editing && <MachineDialog slug={slug} units={units} machine={editing === 'new' ? undefined : editing} onClose={() => setEditing(undefined)} />}
-      <Dialog open={Boolean(deleting)} title={`Delete ${deleting?.name ?? ''}?`} onClose={() => setDeleting(undefined)} confirm={{ label: 'Delete machine', danger: true, onConfirm: confirmDelete }}>
+      <Dialog open={Boolean(deletion.pending)} title={`Delete ${deletion.pending?.name ?? ''}?`} onClose={deletion.cancel} confirm={{ label: 'Delete machine', danger: true, onConfirm: () => void deletion.confirm() }}>
         The recipes written for this machine are deleted with it.
       </Dialog>
     </CatalogFrame>

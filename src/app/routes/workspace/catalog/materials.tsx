@@ -5,8 +5,8 @@ import { WorkspaceLayout } from '../../../../components/layouts/workspace-layout
 import { Button } from '../../../../components/ui/button.tsx';
 import { DataTable, tableColumns, type DataColumn } from '../../../../components/ui/data-table.tsx';
 import { Dialog } from '../../../../components/ui/dialog.tsx';
-import { useToast } from '../../../../components/ui/toast.tsx';
 import { useDeleteMaterial, useMaterials } from '../../../../features/catalog/api/catalog.ts';
+import { RowActions, useConfirmedDelete } from '../../../../features/catalog/components/row-actions.tsx';
 import { CatalogFrame, QueryState } from '../../../../features/catalog/components/catalog-frame.tsx';
 import { MaterialDialog } from '../../../../features/catalog/components/material-dialog.tsx';
 import { Swatch } from '../../../../features/catalog/components/swatch.tsx';
@@ -21,9 +21,8 @@ const col = tableColumns<MaterialView>();
 function Materials({ slug, canEdit }: { slug: string; canEdit: boolean }) {
   const materials = useMaterials(slug);
   const remove = useDeleteMaterial(slug);
-  const toast = useToast();
   const [editing, setEditing] = useState<MaterialView | 'new'>();
-  const [deleting, setDeleting] = useState<MaterialView>();
+  const deletion = useConfirmedDelete((material: MaterialView) => remove.mutateAsync(material.id), (material) => `${material.name} deleted.`);
 
   const columns = useMemo<DataColumn<MaterialView>[]>(
     () => [
@@ -51,21 +50,13 @@ function Materials({ slug, canEdit }: { slug: string; canEdit: boolean }) {
               id: 'actions',
               header: () => <span className="sr-only">Actions</span>,
               cell: ({ row }) => (
-                <span className="inline-flex gap-1">
-                  <Button size="sm" variant="quiet" onClick={() => setEditing(row.original)} aria-label={`Edit ${row.original.name}`}>
-                    Edit
-                  </Button>
-                  <Button
-                    size="sm"
-                    variant="quiet"
-                    disabled={row.original.blankCount > 0}
-                    title={row.original.blankCount > 0 ? 'Blanks use this material' : undefined}
-                    onClick={() => setDeleting(row.original)}
-                    aria-label={`Delete ${row.original.name}`}
-                  >
-                    Delete
-                  </Button>
-                </span>
+                <RowActions
+                  name={row.original.name}
+                  onEdit={() => setEditing(row.original)}
+                  onDelete={() => deletion.ask(row.original)}
+                  deleteDisabled={row.original.blankCount > 0}
+                  deleteTitle={row.original.blankCount > 0 ? 'Blanks use this material' : undefined}
+                />
               ),
             }),
           ]
@@ -74,16 +65,6 @@ function Materials({ slug, canEdit }: { slug: string; canEdit: boolean }) {
     [canEdit],
   );
 
-  async function confirmDelete() {
-    const material = deleting!;
-    setDeleting(undefined);
-    try {
-      await remove.mutateAsync(material.id);
-      toast.show(`${material.name} deleted.`, 'success');
-    } catch (error) {
-      toast.show((error as Error).message, 'error');
-    }
-  }
 
   return (
     <CatalogFrame slug={slug} title="Materials" canEdit={canEdit} actions={<Button onClick={() => setEditing('new')}>New material</Button>}>
@@ -104,7 +85,7 @@ function Materials({ slug, canEdit }: { slug: string; canEdit: boolean }) {
         />
       )}
       {editing && <MaterialDialog slug={slug} material={editing === 'new' ? undefined : editing} onClose={() => setEditing(undefined)} />}
-      <Dialog open={Boolean(deleting)} title={`Delete ${deleting?.name ?? ''}?`} onClose={() => setDeleting(undefined)} confirm={{ label: 'Delete material', danger: true, onConfirm: confirmDelete }}>
+      <Dialog open={Boolean(deletion.pending)} title={`Delete ${deletion.pending?.name ?? ''}?`} onClose={deletion.cancel} confirm={{ label: 'Delete material', danger: true, onConfirm: () => void deletion.confirm() }}>
         Its recipes are deleted with it. Orders already placed keep their own copy of what they need.
       </Dialog>
     </CatalogFrame>

@@ -6,8 +6,8 @@ import { Button } from '../../../../components/ui/button.tsx';
 import { DataTable, tableColumns, type DataColumn } from '../../../../components/ui/data-table.tsx';
 import { Dialog } from '../../../../components/ui/dialog.tsx';
 import { Notice } from '../../../../components/ui/notice.tsx';
-import { useToast } from '../../../../components/ui/toast.tsx';
 import { useDeleteRecipe, useMachines, useMaterials, useRecipes } from '../../../../features/catalog/api/catalog.ts';
+import { RowActions, useConfirmedDelete } from '../../../../features/catalog/components/row-actions.tsx';
 import { CatalogFrame, QueryState } from '../../../../features/catalog/components/catalog-frame.tsx';
 import { LaserCautions } from '../../../../features/catalog/components/laser-cautions.tsx';
 import { RecipeDialog } from '../../../../features/catalog/components/recipe-dialog.tsx';
@@ -24,9 +24,8 @@ function Recipes({ slug, canEdit }: { slug: string; canEdit: boolean }) {
   const materials = useMaterials(slug);
   const machines = useMachines(slug);
   const remove = useDeleteRecipe(slug);
-  const toast = useToast();
   const [editing, setEditing] = useState<RecipeView | 'new'>();
-  const [deleting, setDeleting] = useState<RecipeView>();
+  const deletion = useConfirmedDelete((recipe: RecipeView) => remove.mutateAsync(recipe.id), () => 'Recipe deleted.');
 
   const columns = useMemo<DataColumn<RecipeView>[]>(
     () => [
@@ -43,16 +42,7 @@ function Recipes({ slug, canEdit }: { slug: string; canEdit: boolean }) {
             col.display({
               id: 'actions',
               header: () => <span className="sr-only">Actions</span>,
-              cell: ({ row }) => (
-                <span className="inline-flex gap-1">
-                  <Button size="sm" variant="quiet" onClick={() => setEditing(row.original)} aria-label={`Edit the recipe for ${row.original.material.name} on ${row.original.machine.name}`}>
-                    Edit
-                  </Button>
-                  <Button size="sm" variant="quiet" onClick={() => setDeleting(row.original)} aria-label={`Delete the recipe for ${row.original.material.name} on ${row.original.machine.name}`}>
-                    Delete
-                  </Button>
-                </span>
-              ),
+              cell: ({ row }) => <RowActions name={`the recipe for ${row.original.material.name} on ${row.original.machine.name}`} onEdit={() => setEditing(row.original)} onDelete={() => deletion.ask(row.original)} />,
             }),
           ]
         : []),
@@ -60,16 +50,6 @@ function Recipes({ slug, canEdit }: { slug: string; canEdit: boolean }) {
     [canEdit],
   );
 
-  async function confirmDelete() {
-    const recipe = deleting!;
-    setDeleting(undefined);
-    try {
-      await remove.mutateAsync(recipe.id);
-      toast.show('Recipe deleted.', 'success');
-    } catch (error) {
-      toast.show((error as Error).message, 'error');
-    }
-  }
 
   const noMachines = machines.data?.machines.length === 0;
   return (
@@ -92,8 +72,8 @@ function Recipes({ slug, canEdit }: { slug: string; canEdit: boolean }) {
       {editing && materials.data && machines.data && (
         <RecipeDialog slug={slug} recipe={editing === 'new' ? undefined : editing} materials={materials.data.materials} machines={machines.data.machines} onClose={() => setEditing(undefined)} />
       )}
-      <Dialog open={Boolean(deleting)} title="Delete this recipe?" onClose={() => setDeleting(undefined)} confirm={{ label: 'Delete recipe', danger: true, onConfirm: confirmDelete }}>
-        {deleting && `${deleting.material.name} on ${deleting.machine.name}. Orders already placed keep the settings they were made with.`}
+      <Dialog open={Boolean(deletion.pending)} title="Delete this recipe?" onClose={deletion.cancel} confirm={{ label: 'Delete recipe', danger: true, onConfirm: () => void deletion.confirm() }}>
+        {deletion.pending && `${deletion.pending.material.name} on ${deletion.pending.machine.name}. Orders already placed keep the settings they were made with.`}
       </Dialog>
     </CatalogFrame>
   );

@@ -3,6 +3,7 @@ import { ITEM_STAGE_LABELS, ORDER_STATUS_LABELS } from '../../../../../shared/or
 import { WorkspaceLayout } from '../../../../components/layouts/workspace-layout.tsx';
 import { Card, CardTitle } from '../../../../components/ui/card.tsx';
 import { Notice } from '../../../../components/ui/notice.tsx';
+import { OrderMoney, OrderTimeline } from '../../../../features/orders/components/order-timeline.tsx';
 import { ItemMockup } from '../../../../features/designer/components/item-mockup.tsx';
 import { useStaffOrder } from '../../../../features/orders/api/orders.ts';
 import { methodLabel } from '../../../../features/catalog/labels.ts';
@@ -76,33 +77,13 @@ function StaffOrder({ slug, orderId, canRefund }: { slug: string; orderId: strin
                 {o.delivery.address.line2 && `, ${o.delivery.address.line2}`}, {o.delivery.address.postalCode} {o.delivery.address.city}, {o.delivery.address.country}
               </p>
             )}
-            <dl className="mt-3 grid grid-cols-[1fr_auto] gap-y-1 text-sm">
-              <dt>Items</dt>
-              <dd className="text-right">{o.subtotal}</dd>
-              <dt>Delivery</dt>
-              <dd className="text-right">{o.shipping}</dd>
-              <dt className="font-bold">Total</dt>
-              <dd className="text-right font-bold">{o.total}</dd>
-              {o.refunded && (
-                <>
-                  <dt>Refunded</dt>
-                  <dd className="text-right">−{o.refunded}</dd>
-                </>
-              )}
-            </dl>
+            <div className="mt-3">
+              <OrderMoney order={o} deliveryLabel="Delivery" />
+            </div>
           </Card>
           <Card>
             <CardTitle>Timeline</CardTitle>
-            <ol className="flex flex-col gap-3 border-l-2 border-graphite-100 pl-4 text-sm">
-              {o.events.map((e, i) => (
-                <li key={i}>
-                  <time dateTime={e.at} className="block text-xs text-graphite-500">
-                    {new Date(e.at).toLocaleString()}
-                  </time>
-                  {e.text}
-                </li>
-              ))}
-            </ol>
+            <OrderTimeline events={o.events} />
           </Card>
         </div>
       </div>
