@@ -42,6 +42,8 @@ export const orderSettingsInputSchema = z
   .object({
     lowResolutionPolicy: z.enum(['confirm', 'refuse']),
     pickupEnabled: z.boolean(),
+    /** Whether every item gets a proof for the buyer to approve before it is engraved. */
+    proofsRequired: z.boolean(),
     pickupNote: z.string().trim().max(300, 'Use at most 300 characters.'),
   })
   .refine((s) => !s.pickupEnabled || s.pickupNote.length > 0, { path: ['pickupNote'], message: 'Say where and when buyers collect.' });

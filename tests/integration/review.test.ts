@@ -174,7 +174,11 @@ describe('photo review', () => {
     const queued = (await staff.get(`${work}/review-queue`).expect(200)).body.items.find((i: { orderId: string }) => i.orderId === orderId);
     await staff.post(`${work}/items/${queued.itemId}/approve-without-proof`).expect(409); // still in review
     await staff.post(`${work}/items/${queued.itemId}/approve-photo`).expect(200);
+    // The demo studio sends proofs: skipping one needs the studio's setting.
+    expect((await staff.post(`${work}/items/${queued.itemId}/approve-without-proof`).expect(409)).body.message).toMatch(/sends every buyer a proof/);
+    await t.orm.em.fork().nativeUpdate(Studio, { id: studio.id }, { proofsRequired: false });
     await staff.post(`${work}/items/${queued.itemId}/approve-without-proof`).expect(200, { stage: 'approved' });
+    await t.orm.em.fork().nativeUpdate(Studio, { id: studio.id }, { proofsRequired: true });
   });
 
   describe('refunds and cancellations (owners only)', () => {

@@ -29,6 +29,8 @@ describe('workspace isolation matrix', () => {
   beforeAll(async () => {
     const em = t.orm.em.fork();
     studioA = await createStudio(em, { slug: 'matrix-a' });
+    // Items may be approved without a proof here, so that route has a valid call too.
+    await em.nativeUpdate(Studio, { id: studioA.id }, { proofsRequired: false });
     const studioB = await createStudio(em, { slug: 'matrix-b' });
     const owner = await createMember(em, studioA, 'owner');
     const staff = await createMember(em, studioA, 'staff');

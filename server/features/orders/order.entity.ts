@@ -65,7 +65,7 @@ export class OrderItem extends BaseEntity<'replacementTokenHash' | 'replacementR
   /** How many times the buyer has sent a new photo. */
   @Property({ type: 'integer' }) replacements: number = 0;
   /** Every saved version of the prep settings, newest last; the last one is what burns. */
-  @Property({ type: 'json' }) prepVersions: PrepVersion[] = [];
+  @Property({ type: 'json', defaultRaw: "'[]'" }) prepVersions: PrepVersion[] = [];
   /** While a proof waits for the buyer: the SHA-256 of the proof link's token. */
   @Property({ type: 'string', length: 64, nullable: true }) proofTokenHash: string | null = null;
 }

@@ -57,6 +57,7 @@ export async function sendProof(em: EntityManager, studio: Studio, itemId: strin
 /** For studios (or items) that need no proof: straight from prep to approved. */
 export async function approveWithoutProof(em: EntityManager, studio: Studio, itemId: string, user: User): Promise<OrderItem> {
   const item = await findItem(em, studio, itemId);
+  if (studio.proofsRequired) throw new AppError('CONFLICT', 'This studio sends every buyer a proof before engraving. Send a proof, or change that in Settings.');
   move(em, item, 'approved', actorName(user), `Approved for engraving without a proof by ${actorName(user)}.`, 'approved');
   await em.flush();
   return item;

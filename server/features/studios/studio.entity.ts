@@ -4,7 +4,7 @@ import { BaseEntity } from '../../db/base.entity.ts';
 
 /** A tenant: one engraving studio with its own storefront and workspace. */
 @Entity({ tableName: 'studio' })
-export class Studio extends BaseEntity<'accentColour' | 'status' | 'currency' | 'units' | 'contactEmail' | 'logoKey' | 'lowResolutionPolicy' | 'pickupEnabled' | 'pickupNote' | 'nextOrderNumber'> {
+export class Studio extends BaseEntity<'accentColour' | 'status' | 'currency' | 'units' | 'contactEmail' | 'logoKey' | 'lowResolutionPolicy' | 'pickupEnabled' | 'pickupNote' | 'nextOrderNumber' | 'proofsRequired'> {
   @Property({ type: 'string', length: 40 })
   @Unique()
   slug!: string;
@@ -40,6 +40,10 @@ export class Studio extends BaseEntity<'accentColour' | 'status' | 'currency' | 
 
   @Property({ type: 'boolean' })
   pickupEnabled: boolean = false;
+
+  /** When false, staff approve prepared items themselves; no proof goes to the buyer. */
+  @Property({ type: 'boolean' })
+  proofsRequired: boolean = true;
 
   /** Where and when buyers collect, shown at checkout. */
   @Property({ type: 'string', length: 300 })

@@ -49,6 +49,10 @@ export function OrderSettingsCard({ workspace }: { workspace: Workspace }) {
           <input type="checkbox" {...form.register('pickupEnabled')} className="size-4 accent-ember-500" />
           Buyers may collect their order from the studio
         </label>
+        <label className="flex items-center gap-2 text-sm font-semibold">
+          <input type="checkbox" {...form.register('proofsRequired')} className="size-4 accent-ember-500" />
+          Send every buyer a proof to approve before engraving
+        </label>
         {form.watch('pickupEnabled') && <TextAreaField label="Where and when to collect" rows={2} {...form.register('pickupNote')} error={errors.pickupNote?.message} />}
         <Button type="submit" busy={form.formState.isSubmitting} className="self-start">
           Save order settings

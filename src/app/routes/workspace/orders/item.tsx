@@ -20,13 +20,13 @@ import { apiFetch } from '../../../../lib/api-client.ts';
 
 export function StaffItemPage() {
   const { itemId = '' } = useParams();
-  return <WorkspaceLayout>{({ studio, role }) => <StaffItem slug={studio.slug} itemId={itemId} canProduce={can(role, 'order:produce')} />}</WorkspaceLayout>;
+  return <WorkspaceLayout>{({ studio, role, orders }) => <StaffItem slug={studio.slug} itemId={itemId} canProduce={can(role, 'order:produce')} proofsRequired={orders.proofsRequired} />}</WorkspaceLayout>;
 }
 
 const PREVIEW_WIDTH = 420;
 
 /** Prep for one item: settings beside a live preview, saved as versions; then a proof or approval. */
-function StaffItem({ slug, itemId, canProduce }: { slug: string; itemId: string; canProduce: boolean }) {
+function StaffItem({ slug, itemId, canProduce, proofsRequired }: { slug: string; itemId: string; canProduce: boolean; proofsRequired: boolean }) {
   const url = `/api/studios/${encodeURIComponent(slug)}/items/${itemId}`;
   const queryClient = useQueryClient();
   const toast = useToast();
@@ -109,7 +109,7 @@ function StaffItem({ slug, itemId, canProduce }: { slug: string; itemId: string;
                 </Button>
               )}
               {allowedMoves.includes('proof_sent') && <Button onClick={() => act.mutate({ path: '/send-proof', done: 'Proof sent; the buyer has an e-mail.' })}>Send proof to the buyer</Button>}
-              {allowedMoves.includes('approved') && view.stage === 'prep' && (
+              {allowedMoves.includes('approved') && view.stage === 'prep' && !proofsRequired && (
                 <Button variant="secondary" onClick={() => act.mutate({ path: '/approve-without-proof', done: 'Approved for engraving.' })}>
                   Approve without a proof
                 </Button>
