@@ -19,6 +19,12 @@ export type ErrorDiffusionOptions = {
  */
 export function errorDiffuse(image: GrayF, options: ErrorDiffusionOptions): Bitmap {
   if (options.kernel === 'floyd-steinberg') return floydSteinberg(image, options);
+  if (options.kernel === 'jarvis-judice-ninke') return jarvisJudiceNinke(image, options);
+  return errorDiffuseAnyKernel(image, options);
+}
+
+/** The general loop, for any kernel of up to three rows and five columns. */
+export function errorDiffuseAnyKernel(image: GrayF, options: ErrorDiffusionOptions): Bitmap {
   const { width, height, data } = image;
   const kernel = DIFFUSION_KERNELS[options.kernel];
   const threshold = options.threshold ?? 127.5;
@@ -85,6 +91,74 @@ export function errorDiffuse(image: GrayF, options: ErrorDiffusionOptions): Bitm
     }
     // The last two positions of the row (the rest falls into the padding).
     const last = x - step; // the final pixel processed
+    next1[last - step + pad]! += u2;
+    next1[last + pad]! += u1;
+    next2[last - step + pad] = v2;
+    next2[last + pad] = v1;
+  }
+  return { width, height, data: out };
+}
+
+/**
+ * Jarvis–Judice–Ninke on its own (the usual method for glass and stone): its twelve weights are
+ * four values (1, 3, 5, 7 / 48), so each error needs four products instead of twelve and fewer
+ * locals compete for registers. The sums are made in the general loop's order, so the result is
+ * the same bit for bit (the unit tests compare them); it runs about twice as fast.
+ */
+function jarvisJudiceNinke(image: GrayF, options: ErrorDiffusionOptions): Bitmap {
+  const { width, height, data } = image;
+  const threshold = options.threshold ?? 127.5;
+  const serpentine = options.scan === 'serpentine';
+  const mask = options.mask;
+  const [k1, k3, k5, k7] = [1 / 48, 3 / 48, 5 / 48, 7 / 48];
+  const pad = 2;
+  let next1 = new Float64Array(width + 2 * pad);
+  let next2 = new Float64Array(width + 2 * pad);
+  let current = new Float64Array(width + 2 * pad);
+  const out = new Uint8Array(width * height);
+  const allInside = new Uint8Array(width).fill(1);
+  for (let y = 0; y < height; y++) {
+    const recycled = current;
+    current = next1;
+    next1 = next2;
+    next2 = recycled;
+    const row = y * width;
+    const inside = mask ? mask.subarray(row, row + width) : allInside;
+    const rightward = !serpentine || (y & 1) === 0;
+    const step = rightward ? 1 : -1;
+    let c1 = 0, c2 = 0;
+    let u2 = 0, u1 = 0, u0 = 0, uA = 0;
+    let v2 = 0, v1 = 0, v0 = 0, vA = 0;
+    let x = rightward ? 0 : width - 1;
+    let behind2 = x - 2 * step + pad;
+    for (let n = 0; n < width; n++) {
+      const i = row + x;
+      let e = 0;
+      if (inside[x] !== 0) {
+        const value = data[i]! + current[x + pad]! + c1;
+        const white = value > threshold ? 1 : 0;
+        out[i] = white;
+        e = value - 255 * white;
+      } else {
+        out[i] = 1;
+      }
+      const e1 = e * k1, e3 = e * k3, e5 = e * k5, e7 = e * k7;
+      c1 = c2 + e7;
+      c2 = e5;
+      next1[behind2]! += u2 + e3;
+      next2[behind2] = v2 + e1;
+      u2 = u1 + e5;
+      u1 = u0 + e7;
+      u0 = uA + e5;
+      uA = e3;
+      v2 = v1 + e3;
+      v1 = v0 + e5;
+      v0 = vA + e3;
+      vA = e1;
+      x += step;
+      behind2 += step;
+    }
+    const last = x - step;
     next1[last - step + pad]! += u2;
     next1[last + pad]! += u1;
     next2[last - step + pad] = v2;

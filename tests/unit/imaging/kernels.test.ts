@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { DIFFUSION_KERNELS, type DiffusionKernelId } from '../../../shared/imaging/halftone/kernels.ts';
-import { errorDiffuse } from '../../../shared/imaging/halftone/error-diffusion.ts';
+import { errorDiffuse, errorDiffuseAnyKernel } from '../../../shared/imaging/halftone/error-diffusion.ts';
 import { grayF, type GrayF } from '../../../shared/imaging/image.ts';
 
 /** Rows of each kernel as published, `*` the current pixel (see each source beside the kernel). */
@@ -74,5 +74,20 @@ describe('error-diffusion kernels', () => {
     const bits = errorDiffuse(image, { kernel: 'jarvis-judice-ninke', mask }).data;
     expect([...bits.slice(0, 64 * 128)].every((b) => b === 1)).toBe(true);
     expect(Math.abs(whiteShare(bits.slice(64 * 128)) * 255 - 40)).toBeLessThanOrEqual(2);
+  });
+});
+
+describe('the Jarvis–Judice–Ninke loop of its own', () => {
+  // Our own check, no outside source: the faster loop must give exactly what the general one does.
+  const image = grayF(301, 97);
+  for (let i = 0; i < image.data.length; i++) image.data[i] = ((i % 301) / 300) * 255 * 0.7 + ((i * 7919) % 97);
+  const mask = new Uint8Array(image.data.length).map((_, i) => ((i % 301) > 40 && (i % 301) < 260 ? 1 : 0));
+  it.each([
+    ['raster', undefined],
+    ['serpentine', undefined],
+    ['serpentine', mask],
+  ] as const)('matches the general loop bit for bit (%s, masked: %s)', (scan, withMask) => {
+    const options = { kernel: 'jarvis-judice-ninke' as const, scan, mask: withMask };
+    expect(errorDiffuse(image, options).data).toEqual(errorDiffuseAnyKernel(image, options).data);
   });
 });
