@@ -65,6 +65,9 @@ export function OrderPage() {
                         {item.stage === 'needs_new_photo' && (
                           <p className="mt-1 max-w-sm text-sm font-semibold text-rust-600">The studio needs a new photo for this piece: we sent you an e-mail with the reason and a link to send it.</p>
                         )}
+                        {item.stage === 'proof_sent' && (
+                          <p className="mt-1 max-w-sm text-sm font-semibold text-ember-700">Your proof is ready: the e-mail we sent has the link to approve it or ask for changes.</p>
+                        )}
                       </div>
                     </li>
                   ))}
