@@ -15,3 +15,12 @@ export function pixelsFor(mm: number, linesPerInch: number): number {
 export function outputSize(area: { widthMm: number; heightMm: number }, linesPerInch: number): { width: number; height: number } {
   return { width: pixelsFor(area.widthMm, linesPerInch), height: pixelsFor(area.heightMm, linesPerInch) };
 }
+
+/**
+ * The engraving area turned as the buyer chose: a size's area is stored as entered, either way
+ * round, and an order item is portrait or landscape.
+ */
+export function orientedArea(size: { areaWidthMm: number; areaHeightMm: number }, orientation: 'portrait' | 'landscape'): { widthMm: number; heightMm: number } {
+  const [short, long] = [Math.min(size.areaWidthMm, size.areaHeightMm), Math.max(size.areaWidthMm, size.areaHeightMm)];
+  return orientation === 'portrait' ? { widthMm: short, heightMm: long } : { widthMm: long, heightMm: short };
+}

@@ -10,6 +10,7 @@ import { Blank } from '../../server/features/catalog/catalog.entity.ts';
 import { Studio } from '../../server/features/studios/studio.entity.ts';
 import { freePort, screenshotDir, signInOnPage, useBrowser } from '../support/browser.ts';
 import { useMailFake } from '../support/mail.ts';
+import { payWithTestCard, postSignedEvent } from '../support/payments.ts';
 import { referencePhotoDir } from '../support/pillow.ts';
 import { eventually } from '../support/fakes.ts';
 
@@ -47,11 +48,9 @@ describe('photo review: asking the buyer for a better photo', () => {
         delivery: { method: 'pickup' },
       })
       .expect(201);
-    await fetch(placed.body.paymentUrl, { method: 'POST', headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: new URLSearchParams({ card: '4242424242424242', expiry: '12/34', cvc: '123' }), redirect: 'manual' });
+    await payWithTestCard(placed.body.paymentUrl);
     const session = await b.payments.stripe.checkout.sessions.retrieve(new URL(placed.body.paymentUrl).pathname.split('/').pop()!);
-    const payload = JSON.stringify({ id: `evt_review_${session.id}`, object: 'event', type: 'checkout.session.completed', data: { object: session } });
-    const signature = b.payments.stripe.webhooks.generateTestHeaderString({ payload, secret: b.env.STRIPE_WEBHOOK_SECRET });
-    const paid = await request(b.app).post('/api/payments/webhook').set('content-type', 'application/json').set('stripe-signature', signature).send(payload).expect(200);
+    const paid = await postSignedEvent(b, { id: `evt_review_${session.id}`, object: 'event', type: 'checkout.session.completed', data: { object: session } }).expect(200);
     expect(paid.body.outcome).toBe('handled');
     orderNumber = (await request(b.app).get(new URL(session.success_url!).pathname.replace('/s/', '/api/storefront/') + new URL(session.success_url!).search).expect(200)).body.number;
   });

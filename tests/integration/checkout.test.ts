@@ -12,7 +12,7 @@ import { Order, OrderEvent } from '../../server/features/orders/order.entity.ts'
 import { ShippingRate } from '../../server/features/shipping/shipping-rate.entity.ts';
 import { Studio } from '../../server/features/studios/studio.entity.ts';
 import { eventually } from '../support/fakes.ts';
-import { usePaymentsFake } from '../support/payments.ts';
+import { postSignedEvent, usePaymentsFake } from '../support/payments.ts';
 import { useTestApp } from '../support/test-app.ts';
 import { agentFor, createUser } from '../support/factories.ts';
 
@@ -129,11 +129,7 @@ describe('checkout and payment', () => {
   });
 
   /** A webhook the app receives as from the provider, signed with its secret. */
-  const signedWebhook = (event: object, secret = payments.webhookSecret) => {
-    const payload = JSON.stringify(event);
-    const signature = t.payments.stripe.webhooks.generateTestHeaderString({ payload, secret });
-    return request(t.app).post('/api/payments/webhook').set('content-type', 'application/json').set('stripe-signature', signature).send(payload);
-  };
+  const signedWebhook = (event: object, secret?: string) => postSignedEvent(t, event, secret);
 
   it('ignores an expiry that arrives after the payment', async () => {
     const res = await checkout([item(small)]).expect(201);

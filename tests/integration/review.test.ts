@@ -8,6 +8,7 @@ import { OutboxEmail } from '../../server/features/outbox/outbox-email.entity.ts
 import { OrderItem } from '../../server/features/orders/order.entity.ts';
 import { Studio } from '../../server/features/studios/studio.entity.ts';
 import { useTestApp } from '../support/test-app.ts';
+import { payWithTestCard, postSignedEvent } from '../support/payments.ts';
 import { signIn } from '../support/factories.ts';
 import { DEMO_PASSWORD } from '../../server/db/demo-scenario.ts';
 
@@ -53,11 +54,9 @@ describe('photo review', () => {
       .expect(201);
     const sessionId = new URL(placed.body.paymentUrl).pathname.split('/').pop()!;
     // Paid on the stand-in's pay page; its event reaches the app as the provider's webhook would.
-    await fetch(placed.body.paymentUrl, { method: 'POST', headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: new URLSearchParams({ card: '4242424242424242', expiry: '12/34', cvc: '123' }), redirect: 'manual' });
+    await payWithTestCard(placed.body.paymentUrl);
     const session = await t.payments.stripe.checkout.sessions.retrieve(sessionId);
-    const payload = JSON.stringify({ id: `evt_${sessionId}`, object: 'event', type: 'checkout.session.completed', data: { object: session } });
-    const signature = t.payments.stripe.webhooks.generateTestHeaderString({ payload, secret: t.env.STRIPE_WEBHOOK_SECRET });
-    await request(t.app).post('/api/payments/webhook').set('content-type', 'application/json').set('stripe-signature', signature).send(payload).expect(200);
+    await postSignedEvent(t, { id: `evt_${sessionId}`, object: 'event', type: 'checkout.session.completed', data: { object: session } }).expect(200);
     return placed.body.orderId as string;
   }
 

@@ -8,6 +8,7 @@ import type { WorkspaceFixtures, WorkspaceRoute } from '../../server/middleware/
 import { Invite } from '../../server/features/team/invite.entity.ts';
 import { Studio } from '../../server/features/studios/studio.entity.ts';
 import { useTestApp } from '../support/test-app.ts';
+import { payWithTestCard } from '../support/payments.ts';
 import * as catalog from '../../server/features/catalog/catalog.service.ts';
 import { TENANT_FILTER } from '../../server/db/tenant.ts';
 import { ShippingRate } from '../../server/features/shipping/shipping-rate.entity.ts';
@@ -56,7 +57,7 @@ describe('workspace isolation matrix', () => {
         let paymentIntentId: string | null = null;
         if (paid) {
           const session = await t.payments.stripe.checkout.sessions.create({ mode: 'payment', line_items: [{ quantity: 1, price_data: { currency: 'usd', unit_amount: 100, product_data: { name: 'B' } } }], success_url: 'http://127.0.0.1/ok', cancel_url: 'http://127.0.0.1/no' });
-          await fetch(session.url!, { method: 'POST', headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: new URLSearchParams({ card: '4242424242424242', expiry: '12/34', cvc: '123' }), redirect: 'manual' });
+          await payWithTestCard(session.url!);
           paymentIntentId = session.payment_intent as string;
         }
         const fork = t.orm.em.fork();

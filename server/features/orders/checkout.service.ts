@@ -2,6 +2,7 @@ import type { EntityManager } from '@mikro-orm/postgresql';
 import { AppError, type FieldIssue } from '../../../shared/errors.ts';
 import { formatMoney } from '../../../shared/money.ts';
 import { effectivePpi, largestFairOffered, verdictFor } from '../../../shared/imaging/photo-checks.ts';
+import { orientedArea } from '../../../shared/imaging/sizing.ts';
 import type { checkoutInputSchema } from '../../../shared/schemas/checkout.ts';
 import { formatSize } from '../../../shared/units.ts';
 import type { z } from 'zod';
@@ -9,7 +10,7 @@ import type { Env } from '../../env.ts';
 import type { BaseEntity } from '../../db/base.entity.ts';
 import type { Payments } from '../../adapters/payments.ts';
 import { newLinkToken } from '../../lib/tokens.ts';
-import { Blank, type BlankSize, Recipe } from '../catalog/catalog.entity.ts';
+import { Blank, Recipe } from '../catalog/catalog.entity.ts';
 import { snapshotForOrder } from '../catalog/catalog.service.ts';
 import { findBuyerPhoto } from '../photos/photos.service.ts';
 import { ShippingRate } from '../shipping/shipping-rate.entity.ts';
@@ -25,11 +26,6 @@ const refuse = (path: Array<string | number>, message: string): never => {
   throw new AppError('VALIDATION_FAILED', message, { issues: [{ path, message } satisfies FieldIssue] });
 };
 
-/** The engraving area as the buyer turned it: a size's area is stored as entered, either way round. */
-export function orientedArea(size: BlankSize, orientation: 'portrait' | 'landscape') {
-  const [short, long] = [Math.min(size.areaWidthMm, size.areaHeightMm), Math.max(size.areaWidthMm, size.areaHeightMm)];
-  return orientation === 'portrait' ? { widthMm: short, heightMm: long } : { widthMm: long, heightMm: short };
-}
 
 /** The recipe a blank burns with: its material's first recipe (any machine), or none yet. */
 export const recipeFor = (em: EntityManager, studio: Studio, blank: Blank) => em.findOne(Recipe, { studio, material: blank.material }, { orderBy: { createdAt: 'asc' } });

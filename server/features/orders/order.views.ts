@@ -1,4 +1,5 @@
 import { formatMoney } from '../../../shared/money.ts';
+import { orientedArea } from '../../../shared/imaging/sizing.ts';
 import type { HalftoneMethod } from '../../../shared/imaging/halftone/halftone.ts';
 import type { BurnLook, OrderView } from '../../../shared/schemas/checkout.ts';
 import type { Order, OrderItem } from './order.entity.ts';
@@ -8,8 +9,7 @@ export const DEFAULT_LOOK_METHOD: HalftoneMethod = 'jarvis-judice-ninke';
 
 export function lookOf(item: OrderItem): BurnLook {
   const { blank, size, recipe } = item.snapshot;
-  const portrait = item.orientation === 'portrait';
-  const [short, long] = [Math.min(size.areaWidthMm, size.areaHeightMm), Math.max(size.areaWidthMm, size.areaHeightMm)];
+  const area = orientedArea(size, item.orientation);
   return {
     shape: blank.shape,
     surfaceColour: blank.material.surfaceColour,
@@ -17,8 +17,8 @@ export function lookOf(item: OrderItem): BurnLook {
     tone: recipe?.tone ?? blank.material.defaultTone,
     halftoneMethod: (recipe?.halftoneMethod as HalftoneMethod | undefined) ?? DEFAULT_LOOK_METHOD,
     linesPerInch: recipe?.linesPerInch ?? blank.material.linesPerInchMax,
-    areaWidthMm: portrait ? short : long,
-    areaHeightMm: portrait ? long : short,
+    areaWidthMm: area.widthMm,
+    areaHeightMm: area.heightMm,
   };
 }
 

@@ -1,16 +1,15 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { AppError } from '../../../shared/errors.ts';
-import { assertMove, ITEM_TRANSITIONS, type ItemStage } from '../../../shared/orders/stages.ts';
 import type { PrepSettings, ProofDecision } from '../../../shared/schemas/prep.ts';
-import { hashToken, isUuid, newLinkToken } from '../../lib/tokens.ts';
+import { hashToken, newLinkToken } from '../../lib/tokens.ts';
 import type { User } from '../accounts/user.entity.ts';
 import { queueEmail } from '../outbox/outbox.service.ts';
 import type { Studio } from '../studios/studio.entity.ts';
 import { proofMail } from './order-mail.ts';
+import { actorName, findItem, moveItem } from './item-moves.ts';
 import { OrderEvent, OrderItem } from './order.entity.ts';
 import { lookOf } from './order.views.ts';
 
-const actorName = (user: User) => user.name ?? user.email;
 
 /** Prep settings an item starts from: its recipe's method, density and tone, a hard sharpen (common practice, no source). */
 export function defaultPrep(item: OrderItem): PrepSettings {
@@ -20,17 +19,7 @@ export function defaultPrep(item: OrderItem): PrepSettings {
 
 export const currentPrep = (item: OrderItem): PrepSettings => item.prepVersions.at(-1)?.settings ?? defaultPrep(item);
 
-export async function findItem(em: EntityManager, studio: Studio, id: string): Promise<OrderItem> {
-  const item = isUuid(id) ? await em.findOne(OrderItem, { id, studio }, { populate: ['order', 'photo'] }) : null;
-  if (!item) throw new AppError('NOT_FOUND', 'There is no such item.');
-  return item;
-}
 
-function move(em: EntityManager, item: OrderItem, to: ItemStage, actor: string, text: string, type: string): void {
-  assertMove('item', ITEM_TRANSITIONS, item.stage, to);
-  item.stage = to;
-  em.create(OrderEvent, { studio: item.studio, order: item.order, item, type, actor, text });
-}
 
 /** Saves prep settings as a new version; only while the item is being prepared. */
 export async function savePrep(em: EntityManager, studio: Studio, itemId: string, user: User, settings: PrepSettings): Promise<OrderItem> {
@@ -47,7 +36,7 @@ export async function savePrep(em: EntityManager, studio: Studio, itemId: string
 export async function sendProof(em: EntityManager, studio: Studio, itemId: string, user: User, appUrl: string): Promise<OrderItem> {
   const item = await findItem(em, studio, itemId);
   const token = newLinkToken();
-  move(em, item, 'proof_sent', actorName(user), `Proof sent to the buyer by ${actorName(user)}.`, 'proof_sent');
+  moveItem(em, item, 'proof_sent', actorName(user), `Proof sent to the buyer by ${actorName(user)}.`, 'proof_sent');
   item.proofTokenHash = token.hash;
   queueEmail(em, { to: item.order.buyerEmail, ...proofMail({ studioName: studio.name, number: item.order.number, buyerName: item.order.buyerName, what: `${item.snapshot.blank.name}, ${item.snapshot.size.label}`, url: `${appUrl}/s/${studio.slug}/proofs/${token.token}` }) });
   await em.flush();
@@ -58,7 +47,7 @@ export async function sendProof(em: EntityManager, studio: Studio, itemId: strin
 export async function approveWithoutProof(em: EntityManager, studio: Studio, itemId: string, user: User): Promise<OrderItem> {
   const item = await findItem(em, studio, itemId);
   if (studio.proofsRequired) throw new AppError('CONFLICT', 'This studio sends every buyer a proof before engraving. Send a proof, or change that in Settings.');
-  move(em, item, 'approved', actorName(user), `Approved for engraving without a proof by ${actorName(user)}.`, 'approved');
+  moveItem(em, item, 'approved', actorName(user), `Approved for engraving without a proof by ${actorName(user)}.`, 'approved');
   await em.flush();
   return item;
 }
@@ -73,8 +62,8 @@ export async function findProof(em: EntityManager, studio: Studio, token: string
 export async function answerProof(em: EntityManager, studio: Studio, token: string, decision: ProofDecision): Promise<OrderItem> {
   const item = await findProof(em, studio, token);
   item.proofTokenHash = null;
-  if (decision.decision === 'approve') move(em, item, 'approved', 'buyer', 'The buyer approved the proof.', 'proof_approved');
-  else move(em, item, 'changes_requested', 'buyer', `The buyer asked for changes: “${decision.message}”`, 'changes_requested');
+  if (decision.decision === 'approve') moveItem(em, item, 'approved', 'buyer', 'The buyer approved the proof.', 'proof_approved');
+  else moveItem(em, item, 'changes_requested', 'buyer', `The buyer asked for changes: “${decision.message}”`, 'changes_requested');
   await em.flush();
   return item;
 }
@@ -82,7 +71,7 @@ export async function answerProof(em: EntityManager, studio: Studio, token: stri
 /** After a change request, back to prep. */
 export async function reopenPrep(em: EntityManager, studio: Studio, itemId: string, user: User): Promise<OrderItem> {
   const item = await findItem(em, studio, itemId);
-  move(em, item, 'prep', actorName(user), `Back to prep, by ${actorName(user)}.`, 'prep_reopened');
+  moveItem(em, item, 'prep', actorName(user), `Back to prep, by ${actorName(user)}.`, 'prep_reopened');
   await em.flush();
   return item;
 }

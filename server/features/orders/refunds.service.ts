@@ -7,10 +7,10 @@ import type { User } from '../accounts/user.entity.ts';
 import { queueEmail } from '../outbox/outbox.service.ts';
 import type { Studio } from '../studios/studio.entity.ts';
 import { cancelledMail, refundedMail } from './order-mail.ts';
+import { actorName, findItem, moveItem } from './item-moves.ts';
 import { OrderEvent, type Order } from './order.entity.ts';
 import { findOrder } from './review.service.ts';
 
-const actorName = (user: User) => user.name ?? user.email;
 /** Once an item is on the machine its blank is used: the order can be refunded, not cancelled. */
 const CANCELLABLE: readonly ItemStage[] = ['unpaid', 'photo_review', 'needs_new_photo', 'prep', 'proof_sent', 'changes_requested', 'approved'];
 

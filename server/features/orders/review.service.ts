@@ -2,7 +2,7 @@ import type { EntityManager, FilterQuery } from '@mikro-orm/postgresql';
 import { AppError } from '../../../shared/errors.ts';
 import { formatMoney } from '../../../shared/money.ts';
 import { effectivePpi, verdictFor } from '../../../shared/imaging/photo-checks.ts';
-import { assertMove, ITEM_STAGE_LABELS, ITEM_TRANSITIONS, type ItemStage } from '../../../shared/orders/stages.ts';
+import { ITEM_STAGE_LABELS } from '../../../shared/orders/stages.ts';
 import type { Placement } from '../../../shared/schemas/checkout.ts';
 import { REVIEW_REASONS, type OrderList, type orderListQuerySchema, type ReviewItem, type ReviewReason } from '../../../shared/schemas/workspace-orders.ts';
 import type { z } from 'zod';
@@ -12,10 +12,10 @@ import { queueEmail } from '../outbox/outbox.service.ts';
 import { buyerPhotoView, findBuyerPhoto } from '../photos/photos.service.ts';
 import type { Studio } from '../studios/studio.entity.ts';
 import { newPhotoNeededMail } from './order-mail.ts';
-import { Order, OrderEvent, OrderItem } from './order.entity.ts';
+import { actorName, findItem, moveItem } from './item-moves.ts';
+import { Order, OrderItem } from './order.entity.ts';
 import { lookOf } from './order.views.ts';
 
-const actorName = (user: User) => user.name ?? user.email;
 
 /** Orders of the studio, searched, filtered, sorted and paged in the database. */
 export async function listOrders(em: EntityManager, studio: Studio, query: z.output<typeof orderListQuerySchema>): Promise<OrderList> {
@@ -61,11 +61,6 @@ export async function findOrder(em: EntityManager, studio: Studio, id: string): 
   return order;
 }
 
-async function findItem(em: EntityManager, studio: Studio, id: string): Promise<OrderItem> {
-  const item = isUuid(id) ? await em.findOne(OrderItem, { id, studio }, { populate: ['order', 'photo'] }) : null;
-  if (!item) throw new AppError('NOT_FOUND', 'There is no such item.');
-  return item;
-}
 
 /** Photos waiting for review, oldest payment first. */
 export async function reviewQueue(em: EntityManager, studio: Studio): Promise<ReviewItem[]> {
@@ -93,15 +88,10 @@ export async function reviewQueue(em: EntityManager, studio: Studio): Promise<Re
   });
 }
 
-function move(em: EntityManager, item: OrderItem, to: ItemStage, actor: string, text: string, type: string): void {
-  assertMove('item', ITEM_TRANSITIONS, item.stage, to);
-  item.stage = to;
-  em.create(OrderEvent, { studio: item.studio, order: item.order, item, type, actor, text });
-}
 
 export async function approvePhoto(em: EntityManager, studio: Studio, itemId: string, user: User): Promise<OrderItem> {
   const item = await findItem(em, studio, itemId);
-  move(em, item, 'prep', actorName(user), `Photo for ${item.snapshot.blank.name}, ${item.snapshot.size.label} approved by ${actorName(user)}.`, 'photo_approved');
+  moveItem(em, item, 'prep', actorName(user), `Photo for ${item.snapshot.blank.name}, ${item.snapshot.size.label} approved by ${actorName(user)}.`, 'photo_approved');
   await em.flush();
   return item;
 }
@@ -113,7 +103,7 @@ export async function approvePhoto(em: EntityManager, studio: Studio, itemId: st
 export async function askNewPhoto(em: EntityManager, studio: Studio, itemId: string, user: User, input: { reason: ReviewReason; note: string }, appUrl: string): Promise<OrderItem> {
   const item = await findItem(em, studio, itemId);
   const token = newLinkToken();
-  move(em, item, 'needs_new_photo', actorName(user), `New photo asked for by ${actorName(user)}: ${REVIEW_REASONS[input.reason].toLowerCase()}${input.note ? ` (“${input.note}”)` : ''}.`, 'new_photo_asked');
+  moveItem(em, item, 'needs_new_photo', actorName(user), `New photo asked for by ${actorName(user)}: ${REVIEW_REASONS[input.reason].toLowerCase()}${input.note ? ` (“${input.note}”)` : ''}.`, 'new_photo_asked');
   Object.assign(item, { replacementTokenHash: token.hash, replacementReason: input.reason, replacementNote: input.note });
   queueEmail(em, {
     to: item.order.buyerEmail,
@@ -145,7 +135,7 @@ export async function submitReplacement(em: EntityManager, studio: Studio, token
   const look = lookOf(item);
   const ppi = effectivePpi(input.placement.crop, { widthMm: look.areaWidthMm, heightMm: look.areaHeightMm });
   Object.assign(item, { photo, placement: input.placement, effectivePpi: Math.floor(ppi), replacementTokenHash: null, replacements: item.replacements + 1 });
-  move(em, item, 'photo_review', 'buyer', `The buyer sent a new photo (${Math.floor(ppi)} pixels per inch at the size): ${ITEM_STAGE_LABELS.photo_review.toLowerCase()}.`, 'new_photo_received');
+  moveItem(em, item, 'photo_review', 'buyer', `The buyer sent a new photo (${Math.floor(ppi)} pixels per inch at the size): ${ITEM_STAGE_LABELS.photo_review.toLowerCase()}.`, 'new_photo_received');
   await em.flush();
   return item;
 }

@@ -3,7 +3,8 @@ import { askNewPhotoInputSchema, cancelInputSchema, orderListQuerySchema, refund
 import type { Payments } from '../../adapters/payments.ts';
 import { cancelOrder, refundOrder } from './refunds.service.ts';
 import { today } from './today.service.ts';
-import { approveWithoutProof, currentPrep, defaultPrep, findItem, reopenPrep, savePrep, sendProof } from './prep.service.ts';
+import { approveWithoutProof, currentPrep, defaultPrep, reopenPrep, savePrep, sendProof } from './prep.service.ts';
+import { findItem } from './item-moves.ts';
 import { prepSettingsSchema, type PrepSettings } from '../../../shared/schemas/prep.ts';
 import { ITEM_TRANSITIONS } from '../../../shared/orders/stages.ts';
 import type { StaffItem } from '../../../shared/schemas/workspace-orders.ts';

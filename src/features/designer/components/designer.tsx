@@ -1,6 +1,7 @@
 import { useEffect, useMemo, useRef, useState, type KeyboardEvent, type PointerEvent } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { effectivePpi, largestFairOffered, verdictFor } from '../../../../shared/imaging/photo-checks.ts';
+import { orientedArea } from '../../../../shared/imaging/sizing.ts';
 import { formatMoney } from '../../../../shared/money.ts';
 import type { StorefrontCatalog } from '../../../../shared/schemas/catalog.ts';
 import { INSCRIPTION_FONTS, type Inscription } from '../../../../shared/schemas/checkout.ts';
@@ -21,11 +22,6 @@ type Blank = StorefrontCatalog['blanks'][number];
 type Size = Blank['sizes'][number];
 type Orientation = 'portrait' | 'landscape';
 
-/** The engraving area as the buyer turned it (sizes are entered either way round). */
-export const orientedArea = (size: { areaWidthMm: number; areaHeightMm: number }, orientation: Orientation) => {
-  const [short, long] = [Math.min(size.areaWidthMm, size.areaHeightMm), Math.max(size.areaWidthMm, size.areaHeightMm)];
-  return orientation === 'portrait' ? { widthMm: short, heightMm: long } : { widthMm: long, heightMm: short };
-};
 const naturalOrientation = (size: Size): Orientation => (size.orientation === 'landscape' ? 'landscape' : size.orientation === 'portrait' ? 'portrait' : size.areaWidthMm > size.areaHeightMm ? 'landscape' : 'portrait');
 const shapeRadius = { rectangle: '4px', 'rounded-rectangle': '7%', oval: '50%', circle: '50%' } as const;
 const STAGE = { width: 460, height: 520 };

@@ -1,0 +1,24 @@
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { AppError } from '../../../shared/errors.ts';
+import { assertMove, ITEM_TRANSITIONS, type ItemStage } from '../../../shared/orders/stages.ts';
+import { isUuid } from '../../lib/tokens.ts';
+import type { User } from '../accounts/user.entity.ts';
+import type { Studio } from '../studios/studio.entity.ts';
+import { OrderEvent, OrderItem } from './order.entity.ts';
+
+/** How a member appears on an order's timeline. */
+export const actorName = (user: User) => user.name ?? user.email;
+
+/** One item of the studio, with its order and photo; another studio's answers 404. */
+export async function findItem(em: EntityManager, studio: Studio, id: string): Promise<OrderItem> {
+  const item = isUuid(id) ? await em.findOne(OrderItem, { id, studio }, { populate: ['order', 'photo'] }) : null;
+  if (!item) throw new AppError('NOT_FOUND', 'There is no such item.');
+  return item;
+}
+
+/** Moves an item through the state machine (409 with the allowed moves otherwise) and records who and why. */
+export function moveItem(em: EntityManager, item: OrderItem, to: ItemStage, actor: string, text: string, type: string): void {
+  assertMove('item', ITEM_TRANSITIONS, item.stage, to);
+  item.stage = to;
+  em.create(OrderEvent, { studio: item.studio, order: item.order, item, type, actor, text });
+}
