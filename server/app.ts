@@ -12,6 +12,7 @@ import { apiNotFound, errorHandler } from './middleware/error-handler.ts';
 import type { Auth } from './auth/auth.ts';
 import type { Storage } from './adapters/storage.ts';
 import type { Payments } from './adapters/payments.ts';
+import type { Jobs } from './adapters/jobs.ts';
 import { paymentsWebhookRouter } from './features/orders/payments-webhook.router.ts';
 import { storefrontOrdersRouter } from './features/orders/storefront-orders.router.ts';
 import { myOrdersRouter } from './features/orders/my-orders.router.ts';
@@ -26,6 +27,7 @@ import { platformRouter } from './features/platform/platform.router.ts';
 import { catalogRoutes } from './features/catalog/catalog.routes.ts';
 import { shippingRoutes } from './features/shipping/shipping.routes.ts';
 import { workspaceOrderRoutes } from './features/orders/workspace-orders.routes.ts';
+import { productionRoutes } from './features/production/production.routes.ts';
 import { storefrontCatalogRouter } from './features/catalog/storefront-catalog.router.ts';
 import { storefrontPhotosRouter } from './features/photos/storefront-photos.router.ts';
 
@@ -37,11 +39,12 @@ export type AppDeps = {
   auth: Auth;
   storage: Storage;
   payments: Payments;
+  jobs: Jobs;
 };
 
 /** Every route under /api/studios/:studioSlug, from every feature. The isolation tests walk this list. */
 export function workspaceRoutes(deps: AppDeps): WorkspaceRoute[] {
-  return [...studioRoutes(deps), ...teamRoutes(deps), ...catalogRoutes(deps), ...shippingRoutes(deps), ...workspaceOrderRoutes(deps)];
+  return [...studioRoutes(deps), ...teamRoutes(deps), ...catalogRoutes(deps), ...shippingRoutes(deps), ...workspaceOrderRoutes(deps), ...productionRoutes(deps)];
 }
 
 /** Where presigned upload URLs point: the endpoint itself, or the bucket's own host. */

@@ -50,6 +50,13 @@ const envSchema = z.object({
   // E-mail over SMTP (smtp:// or smtps://, credentials in the URL).
   SMTP_URL: z.url({ protocol: /^smtps?$/, error: 'must be an smtp:// or smtps:// URL' }).default('smtp://127.0.0.1:54325'),
   MAIL_FROM: z.string().min(3).default('Etchwell <no-reply@etchwell.localhost>'),
+
+  /** What this process does: serve the web app, work background jobs, or both (one machine). */
+  PROCESS_ROLE: z.enum(['all', 'web', 'worker']).default('all'),
+  /** A render still running after this long is taken for dead and handed to another worker. */
+  RENDER_TIMEOUT_SECONDS: z.coerce.number().int().min(2).max(3600).default(900),
+  /** How often the job queue looks for timed-out jobs. */
+  JOBS_MAINTENANCE_SECONDS: z.coerce.number().int().min(1).max(3600).default(30),
 }).superRefine((env, ctx) => {
   // The built-in keys are for the local stand-ins only: production must bring its own.
   if (env.NODE_ENV !== 'production') return;

@@ -225,6 +225,12 @@ export async function startStorageFake(options: StorageFakeOptions): Promise<Sto
       'accept-ranges': 'bytes',
     };
     for (const [name, value] of Object.entries(object.metadata)) headers[`x-amz-meta-${name}`] = value;
+    // As S3 does for signed requests: response-content-disposition and friends override the stored headers.
+    const query = new URL(req.url ?? '/', 'http://store').searchParams;
+    for (const header of ['content-type', 'content-disposition', 'cache-control', 'content-language', 'expires', 'content-encoding']) {
+      const override = query.get(`response-${header}`);
+      if (override) headers[header] = override;
+    }
     const ifNoneMatch = req.headers['if-none-match'];
     if (ifNoneMatch && ifNoneMatch === object.etag) return void res.writeHead(304, headers).end();
 

@@ -4,6 +4,7 @@ import {
   GetObjectCommand,
   HeadBucketCommand,
   HeadObjectCommand,
+  ListObjectsV2Command,
   PutBucketCorsCommand,
   PutObjectCommand,
   S3Client,
@@ -77,6 +78,18 @@ export function createStorage(env: Pick<Env, 'S3_ENDPOINT' | 'S3_REGION' | 'S3_A
         if (error instanceof S3ServiceException && error.$metadata.httpStatusCode === 404) return undefined;
         throw error;
       }
+    },
+
+    /** Keys under a prefix (all pages). */
+    async list(prefix: string): Promise<string[]> {
+      const keys: string[] = [];
+      let token: string | undefined;
+      do {
+        const page = await client.send(new ListObjectsV2Command({ Bucket: bucket, Prefix: prefix, ContinuationToken: token }));
+        keys.push(...(page.Contents ?? []).flatMap((object) => (object.Key ? [object.Key] : [])));
+        token = page.IsTruncated ? page.NextContinuationToken : undefined;
+      } while (token);
+      return keys;
     },
 
     async remove(key: string): Promise<void> {

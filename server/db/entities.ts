@@ -11,6 +11,7 @@ import { BuyerPhoto } from '../features/photos/buyer-photo.entity.ts';
 
 import { ShippingRate } from '../features/shipping/shipping-rate.entity.ts';
 import { Order, OrderEvent, OrderItem, PaymentEvent } from '../features/orders/order.entity.ts';
+import { ProductionBatch, Render } from '../features/production/production.entity.ts';
 
 /** Every entity the ORM knows, listed by hand: discovery by folder scan needs compiled files. */
-export const entities = [Studio, User, Membership, Invite, VerificationToken, OutboxEmail, SignInLimit, Material, Machine, Recipe, Blank, BlankSize, BlankPhoto, BuyerPhoto, ShippingRate, Order, OrderItem, OrderEvent, PaymentEvent];
+export const entities = [Studio, User, Membership, Invite, VerificationToken, OutboxEmail, SignInLimit, Material, Machine, Recipe, Blank, BlankSize, BlankPhoto, BuyerPhoto, ShippingRate, Order, OrderItem, OrderEvent, PaymentEvent, ProductionBatch, Render];

@@ -32,7 +32,9 @@ export type WorkspaceFixtures = {
   upload(purpose: 'blank-photos' | 'logo'): Promise<string>;
   shippingRate(): Promise<string>;
   /** A paid order with one item waiting for photo review, its photo stored. */
-  orderItem(options?: { paid?: boolean; stage?: 'photo_review' | 'prep' | 'changes_requested' }): Promise<{ orderId: string; itemId: string; photoId: string }>;
+  orderItem(options?: { paid?: boolean; stage?: 'photo_review' | 'prep' | 'changes_requested' | 'approved' | 'burned' }): Promise<{ orderId: string; itemId: string; photoId: string }>;
+  /** An item in production in a batch of its own, its render done (files stored) or failed. */
+  production(render: 'done' | 'failed'): Promise<{ orderId: string; itemId: string; batchId: string; renderId: string }>;
 };
 
 export function workspaceRouter({ auth, orm, routes }: { auth: Auth; orm: Orm; routes: WorkspaceRoute[] }): Router {

@@ -25,3 +25,21 @@ export function estimateBurnSeconds(input: BurnTimeInput): number {
   const perRow = (widthMm + 2 * overscanMm) / speedMmPerSecond + turnaroundSeconds;
   return rows * perRow * passes;
 }
+
+/** A machine speed in its own unit as mm/s, or null when the unit is a share of the machine's top speed. */
+export function speedInMmPerSecond(speed: number, unit: 'mm/s' | 'in/s' | 'percent'): number | null {
+  if (unit === 'mm/s') return speed;
+  if (unit === 'in/s') return speed * 25.4;
+  return null;
+}
+
+/** "1 h 05 min", "12 min 30 s", "45 s": rounded to the second. */
+export function formatBurnTime(seconds: number): string {
+  const total = Math.round(seconds);
+  const h = Math.floor(total / 3600);
+  const m = Math.floor((total % 3600) / 60);
+  const s = total % 60;
+  if (h) return `${h} h ${String(m).padStart(2, '0')} min`;
+  if (m) return `${m} min ${String(s).padStart(2, '0')} s`;
+  return `${s} s`;
+}

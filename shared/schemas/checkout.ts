@@ -87,6 +87,10 @@ export const burnLookSchema = z.object({
 });
 export type BurnLook = z.infer<typeof burnLookSchema>;
 
+/** How an item left the studio: by carrier with a tracking number, or collected. */
+export const handoverSchema = z.object({ method: z.enum(['ship', 'pickup']), carrier: z.string().nullable(), trackingNumber: z.string().nullable(), at: z.string(), by: z.string() });
+export type Handover = z.infer<typeof handoverSchema>;
+
 export const orderViewSchema = z.object({
   id: z.uuid(),
   number: z.number().int(),
@@ -116,6 +120,7 @@ export const orderViewSchema = z.object({
       orientation: z.enum(['portrait', 'landscape']),
       inscription: inscriptionSchema.nullable(),
       look: burnLookSchema,
+      handover: handoverSchema.nullable(),
     }),
   ),
   events: z.array(z.object({ at: z.string(), text: z.string() })),

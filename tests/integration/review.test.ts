@@ -1,4 +1,3 @@
-import sharp from 'sharp';
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { seedDemo } from '../../server/db/seed.ts';
@@ -8,7 +7,7 @@ import { OutboxEmail } from '../../server/features/outbox/outbox-email.entity.ts
 import { OrderItem } from '../../server/features/orders/order.entity.ts';
 import { Studio } from '../../server/features/studios/studio.entity.ts';
 import { useTestApp } from '../support/test-app.ts';
-import { payWithTestCard, postSignedEvent } from '../support/payments.ts';
+import { uploadBuyerPhoto, placePaidOrder } from '../support/orders.ts';
 import { signIn } from '../support/factories.ts';
 import { DEMO_PASSWORD } from '../../server/db/demo-scenario.ts';
 
@@ -33,31 +32,13 @@ describe('photo review', () => {
     glass = await em.findOneOrFail(Blank, { name: 'Black-backed glass portrait' }, { populate: ['sizes'], filters: { [TENANT_FILTER]: { studioId: studio.id } } });
   });
 
-  async function upload(width: number, height: number) {
-    const bytes = await sharp({ create: { width, height, channels: 3, background: '#5a6b7c' } }).jpeg().toBuffer();
-    const ticket = (await request(t.app).post(`${store}/photo-uploads`).send({ contentType: 'image/jpeg', contentLength: bytes.length }).expect(201)).body;
-    await fetch(ticket.url, { method: 'PUT', headers: ticket.headers, body: new Uint8Array(bytes) });
-    return (await request(t.app).post(`${store}/buyer-photos`).send({ key: ticket.key }).expect(201)).body as { id: string; width: number; height: number };
-  }
+  const upload = (width: number, height: number) => uploadBuyerPhoto(t, 'harbour-light', width, height);
 
   /** A paid order for one 5 × 7 in portrait, as checkout and the payment webhook make it. */
   async function paidOrder(email: string) {
     const photo = await upload(1500, 2100);
     const size = glass.sizes.getItems().find((s) => s.label === '5 × 7 in')!;
-    const placed = await request(t.app)
-      .post(`${store}/orders`)
-      .send({
-        items: [{ blankId: glass.id, sizeId: size.id, orientation: 'portrait', quantity: 1, photoId: photo.id, placement: { crop: { left: 0, top: 0, width: 1500, height: 2100 } }, rightsConfirmed: true }],
-        buyer: { email, name: 'Ivy Marsh' },
-        delivery: { method: 'pickup' },
-      })
-      .expect(201);
-    const sessionId = new URL(placed.body.paymentUrl).pathname.split('/').pop()!;
-    // Paid on the stand-in's pay page; its event reaches the app as the provider's webhook would.
-    await payWithTestCard(placed.body.paymentUrl);
-    const session = await t.payments.stripe.checkout.sessions.retrieve(sessionId);
-    await postSignedEvent(t, { id: `evt_${sessionId}`, object: 'event', type: 'checkout.session.completed', data: { object: session } }).expect(200);
-    return placed.body.orderId as string;
+    return placePaidOrder(t, 'harbour-light', [{ blankId: glass.id, sizeId: size.id, photo }], { email, name: 'Ivy Marsh' });
   }
 
   it('queues paid items oldest first; approving moves one to prep; moving it again is refused with what is allowed', async () => {

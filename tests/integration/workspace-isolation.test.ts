@@ -14,6 +14,8 @@ import { TENANT_FILTER } from '../../server/db/tenant.ts';
 import { ShippingRate } from '../../server/features/shipping/shipping-rate.entity.ts';
 import { BuyerPhoto } from '../../server/features/photos/buyer-photo.entity.ts';
 import { Order, OrderItem } from '../../server/features/orders/order.entity.ts';
+import { ProductionBatch, Render } from '../../server/features/production/production.entity.ts';
+import type { RenderFiles } from '../../shared/schemas/production.ts';
 import { agentFor, createMember, createStudio, createUser } from '../support/factories.ts';
 
 /**
@@ -70,6 +72,22 @@ describe('workspace isolation matrix', () => {
         const item = fork.create(OrderItem, { studio: studioA.id, order, stage, size: null, snapshot, quantity: 1, unitPriceMinor: 100, photo, placement: { crop: { left: 0, top: 0, width: 400, height: 400 }, rotation: 0, flipHorizontal: false }, orientation: 'portrait', inscription: null, effectivePpi: 100, lowResolutionConfirmed: false });
         await fork.flush();
         return { orderId: order.id, itemId: item.id, photoId: photo.id };
+      },
+      production: async (status) => {
+        const { orderId, itemId } = await fixtures.orderItem({ stage: 'approved' });
+        const fork = t.orm.em.fork();
+        fork.setFilterParams(TENANT_FILTER, { studioId: studioA.id });
+        const keyPrefix = `studios/${studioA.id}/renders/${randomUUID()}`;
+        const files = status === 'done' ? Object.fromEntries(await Promise.all((['engrave', 'master', 'sheet'] as const).map(async (kind) => {
+          const key = `${keyPrefix}/${kind}`;
+          await t.storage.put(key, Buffer.from('file'), 'application/octet-stream');
+          return [kind, { key, bytes: 4, contentType: 'application/octet-stream' }];
+        }))) as RenderFiles : null;
+        await fork.nativeUpdate(OrderItem, { id: itemId }, { stage: 'in_production' });
+        const batch = fork.create(ProductionBatch, { studio: studioA.id, number: Math.floor(Math.random() * 1e9), materialName: 'Slate', recipeId: null, machine: null, createdBy: 'Test' });
+        const render = fork.create(Render, { studio: studioA.id, item: itemId, batch, status, keyPrefix, prepVersion: 0, files, error: status === 'failed' ? 'The photo could not be read.' : null });
+        await fork.flush();
+        return { orderId, itemId, batchId: batch.id, renderId: render.id };
       },
       shippingRate: async () => {
         const fork = t.orm.em.fork();

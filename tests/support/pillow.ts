@@ -59,3 +59,9 @@ export function unpackBits(packed: Buffer, width: number, height: number): Uint8
 
 /** Where `npm test` unpacks the open-licensed photographs of Debian's python3-skimage. */
 export const referencePhotoDir = join(import.meta.dirname, '..', '..', '.data', 'reference-photos');
+
+/** What Pillow reads from an image file's bytes: its mode, size and the resolution it records. */
+export function pillowImageInfo(bytes: Uint8Array): { format: string; mode: string; width: number; height: number; dpi: [number, number] | null } {
+  const out = execFileSync(PYTHON, ['-c', 'import sys, io, json; from PIL import Image; i = Image.open(io.BytesIO(sys.stdin.buffer.read())); print(json.dumps({"format": i.format, "mode": i.mode, "width": i.size[0], "height": i.size[1], "dpi": [float(v) for v in i.info["dpi"]] if "dpi" in i.info else None}))'], { input: bytes, encoding: 'utf8' });
+  return JSON.parse(out);
+}

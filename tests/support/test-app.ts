@@ -10,8 +10,10 @@ import { startOutboxSender } from '../../server/features/outbox/outbox.service.t
 import { createAuth, type Auth } from '../../server/auth/auth.ts';
 import { createStorage, type Storage } from '../../server/adapters/storage.ts';
 import { createPayments, type Payments } from '../../server/adapters/payments.ts';
+import { createJobs, type Jobs } from '../../server/adapters/jobs.ts';
+import { startWorker } from '../../server/worker.ts';
 
-export type TestApp = { app: Express; orm: Orm; env: Env; databaseUrl: string; auth: Auth; storage: Storage; payments: Payments };
+export type TestApp = { app: Express; orm: Orm; env: Env; databaseUrl: string; auth: Auth; storage: Storage; payments: Payments; jobs: Jobs };
 
 /**
  * Builds the app as the server does, on a database of its own. `databasePort` makes the app
@@ -19,7 +21,7 @@ export type TestApp = { app: Express; orm: Orm; env: Env; databaseUrl: string; a
  */
 export async function buildTestApp(
   overrides: Record<string, string> = {},
-  { databasePort }: { databasePort?: number } = {},
+  { databasePort, worker = false }: { databasePort?: number; worker?: boolean } = {},
 ): Promise<TestApp & { close(): Promise<void> }> {
   const database = await createTestDatabase();
   const url = new URL(database.url);
@@ -32,10 +34,12 @@ export async function buildTestApp(
   const auth = createAuth({ orm, env, logger });
   const storage = createStorage(env);
   const payments = createPayments(env);
-  const app = createApp({ env, orm, logger, version: 'test', auth, storage, payments });
-  // As in the server: e-mails go out through the outbox, here checked often.
+  const jobs = createJobs(env, logger);
+  const app = createApp({ env, orm, logger, version: 'test', auth, storage, payments, jobs });
+  // As in the server: e-mails go out through the outbox, here checked often; renders are
+  // worked in this process only when the test asks (a test may bring worker processes of its own).
   const mailer = createMailer(env);
-  const outbox = startOutboxSender(orm, mailer, logger, 100);
+  const outbox = worker ? await startWorker({ env, orm, logger, storage, jobs, mailer, outboxIntervalMs: 100 }) : startOutboxSender(orm, mailer, logger, 100);
   return {
     app,
     orm,
@@ -43,9 +47,11 @@ export async function buildTestApp(
     auth,
     storage,
     payments,
+    jobs,
     databaseUrl: database.url,
     async close() {
       await outbox.stop();
+      await jobs.stop();
       mailer.close();
       await auth.close();
       await orm.close();
@@ -58,10 +64,10 @@ export async function buildTestApp(
  * For a test file: one app and database, built before its tests and dropped after them.
  * `overrides` may be a function run first (to start a stand-in and hand over its address).
  */
-export function useTestApp(overrides: Record<string, string> | (() => Promise<Record<string, string>>) = {}): TestApp {
+export function useTestApp(overrides: Record<string, string> | (() => Promise<Record<string, string>>) = {}, options: { worker?: boolean } = {}): TestApp {
   const holder = {} as TestApp & { close(): Promise<void> };
   beforeAll(async () => {
-    Object.assign(holder, await buildTestApp(typeof overrides === 'function' ? await overrides() : overrides));
+    Object.assign(holder, await buildTestApp(typeof overrides === 'function' ? await overrides() : overrides, options));
   });
   afterAll(async () => {
     await holder.close?.();

@@ -65,3 +65,14 @@ export function proofMail(input: { studioName: string; number: number; buyerName
     html: `<p>Hello ${escapeHtml(input.buyerName)},</p><p>${escapeHtml(input.studioName)} has prepared ${escapeHtml(input.what)} for engraving.</p><p><a href="${escapeHtml(input.url)}">See the proof, approve it or ask for changes</a></p><p>Nothing is engraved until you approve.</p>`,
   };
 }
+
+/** To the buyer when items leave the studio: by carrier with tracking, or handed over in person. */
+export function handedOverMail(input: { studioName: string; number: number; buyerName: string; what: string[]; method: 'ship' | 'pickup'; carrier?: string; trackingNumber?: string; complete: boolean }) {
+  const how = input.method === 'ship' ? `is on its way with ${input.carrier}. Tracking number: ${input.trackingNumber}` : 'was collected at the studio';
+  const rest = input.complete ? 'That completes your order. Thank you for ordering from us!' : 'The rest of your order follows; we will write again.';
+  return {
+    subject: input.method === 'ship' ? `Order ${input.number} has shipped` : `Order ${input.number}: picked up`,
+    text: `Hello ${input.buyerName},\n\nYour ${input.what.join(', ')} from ${input.studioName} ${how}.\n\n${rest}\n\nYour order page (the link in your first e-mail) shows this too.`,
+    html: `<p>Hello ${escapeHtml(input.buyerName)},</p><p>Your ${escapeHtml(input.what.join(', '))} from ${escapeHtml(input.studioName)} ${escapeHtml(how)}.</p><p>${escapeHtml(rest)}</p><p>Your order page (the link in your first e-mail) shows this too.</p>`,
+  };
+}

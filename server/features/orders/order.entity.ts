@@ -1,5 +1,5 @@
 import { Collection, Entity, Enum, Filter, Index, ManyToOne, OneToMany, PrimaryKey, Property, Unique } from '@mikro-orm/core';
-import type { Address, Inscription, Placement } from '../../../shared/schemas/checkout.ts';
+import type { Address, Handover, Inscription, Placement } from '../../../shared/schemas/checkout.ts';
 import type { PrepVersion } from '../../../shared/schemas/prep.ts';
 import { ITEM_STAGES, ORDER_STATUSES, type ItemStage, type OrderStatus } from '../../../shared/orders/stages.ts';
 import { BaseEntity } from '../../db/base.entity.ts';
@@ -43,7 +43,7 @@ export class Order extends BaseEntity<'refundedMinor'> {
 
 @Entity({ tableName: 'order_item' })
 @Filter(tenantFilter)
-export class OrderItem extends BaseEntity<'replacementTokenHash' | 'replacementReason' | 'replacementNote' | 'replacements' | 'prepVersions' | 'proofTokenHash'> {
+export class OrderItem extends BaseEntity<'replacementTokenHash' | 'replacementReason' | 'replacementNote' | 'replacements' | 'prepVersions' | 'proofTokenHash' | 'handover'> {
   @ManyToOne(() => Studio, { deleteRule: 'cascade' }) studio!: Studio;
   @ManyToOne(() => Order, { deleteRule: 'cascade' }) order!: Order;
   @Enum({ items: [...ITEM_STAGES], type: 'string' }) stage!: ItemStage;
@@ -68,6 +68,8 @@ export class OrderItem extends BaseEntity<'replacementTokenHash' | 'replacementR
   @Property({ type: 'json', defaultRaw: "'[]'" }) prepVersions: PrepVersion[] = [];
   /** While a proof waits for the buyer: the SHA-256 of the proof link's token. */
   @Property({ type: 'string', length: 64, nullable: true }) proofTokenHash: string | null = null;
+  /** How the item left the studio, once it has. */
+  @Property({ type: 'json', nullable: true }) handover: Handover | null = null;
 }
 
 /** One thing that happened to an order: who, when, what and why. Never changed once written. */

@@ -60,6 +60,7 @@ export function orderView(order: Order): OrderView {
       orientation: item.orientation,
       inscription: item.inscription,
       look: lookOf(item),
+      handover: item.handover,
     })),
     events: order.events
       .getItems()

@@ -1,6 +1,6 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { AppError } from '../../../shared/errors.ts';
-import type { PrepSettings, ProofDecision } from '../../../shared/schemas/prep.ts';
+import { NO_CUTOUT, prepSettingsSchema, type PrepSettings, type ProofDecision } from '../../../shared/schemas/prep.ts';
 import { hashToken, newLinkToken } from '../../lib/tokens.ts';
 import type { User } from '../accounts/user.entity.ts';
 import { queueEmail } from '../outbox/outbox.service.ts';
@@ -14,10 +14,14 @@ import { lookOf } from './order.views.ts';
 /** Prep settings an item starts from: its recipe's method, density and tone, a hard sharpen (common practice, no source). */
 export function defaultPrep(item: OrderItem): PrepSettings {
   const look = lookOf(item);
-  return { brightness: 0, contrast: 10, gamma: 1, autoLevels: true, sharpenAmount: 150, sharpenRadius: 2, sharpenThreshold: 2, halftoneMethod: look.halftoneMethod, linesPerInch: look.linesPerInch, negative: look.tone === 'negative', featherRadius: 4 };
+  return { brightness: 0, contrast: 10, gamma: 1, autoLevels: true, sharpenAmount: 150, sharpenRadius: 2, sharpenThreshold: 2, halftoneMethod: look.halftoneMethod, linesPerInch: look.linesPerInch, negative: look.tone === 'negative', featherRadius: 4, cutout: NO_CUTOUT };
 }
 
-export const currentPrep = (item: OrderItem): PrepSettings => item.prepVersions.at(-1)?.settings ?? defaultPrep(item);
+/** What burns: the last saved version (read through the schema, so older versions gain new fields' defaults). */
+export const currentPrep = (item: OrderItem): PrepSettings => {
+  const saved = item.prepVersions.at(-1)?.settings;
+  return saved ? prepSettingsSchema.parse(saved) : defaultPrep(item);
+};
 
 
 

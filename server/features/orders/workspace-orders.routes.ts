@@ -9,7 +9,7 @@ import { prepSettingsSchema, type PrepSettings } from '../../../shared/schemas/p
 import { ITEM_TRANSITIONS } from '../../../shared/orders/stages.ts';
 import type { StaffItem } from '../../../shared/schemas/workspace-orders.ts';
 
-const SAMPLE_PREP: PrepSettings = { brightness: 5, contrast: 10, gamma: 1.1, autoLevels: true, sharpenAmount: 200, sharpenRadius: 2, sharpenThreshold: 2, halftoneMethod: 'stucki', linesPerInch: 300, negative: true, featherRadius: 3 };
+const SAMPLE_PREP: PrepSettings = { brightness: 5, contrast: 10, gamma: 1.1, autoLevels: true, sharpenAmount: 200, sharpenRadius: 2, sharpenThreshold: 2, halftoneMethod: 'stucki', linesPerInch: 300, negative: true, featherRadius: 3, cutout: { start: 'plain-background', tolerance: 30, strokes: [{ mode: 'remove', size: 0.05, points: [[0.1, 0.1], [0.2, 0.15]] }] } };
 import type { Storage } from '../../adapters/storage.ts';
 import type { Env } from '../../env.ts';
 import type { Orm } from '../../db/orm.ts';

@@ -14,12 +14,14 @@ async function aptInstall(packages: string[]): Promise<void> {
 
 const pillowInstalled = () => run('/usr/bin/python3', ['-c', 'import PIL'], { quiet: true }).then(() => true, () => false);
 
-/** What the tests and benchmarks check against: Chromium, Pillow, ImageMagick, open-licensed photographs. */
+/** What the tests and benchmarks check against: Chromium, Pillow, Poppler, ImageMagick, open-licensed photographs. */
 export async function ensureReferenceTools(need: { chromium?: boolean; imagemagick?: boolean } = {}): Promise<void> {
   const missing: string[] = [];
   if (need.chromium && !existsSync('/usr/bin/chromium')) missing.push('chromium');
   if (need.imagemagick && !existsSync('/usr/bin/convert')) missing.push('imagemagick');
   if (!(await pillowInstalled())) missing.push('python3-pil');
+  // Poppler's pdftotext and pdftoppm read the job sheets back.
+  if (!existsSync('/usr/bin/pdftotext')) missing.push('poppler-utils');
   if (missing.length) {
     log(`installing Debian packages for the tests: ${missing.join(', ')} (a minute or two)…`);
     await aptInstall(missing);

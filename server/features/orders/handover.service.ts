@@ -1,0 +1,47 @@
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { AppError } from '../../../shared/errors.ts';
+import { assertMove, ORDER_TRANSITIONS } from '../../../shared/orders/stages.ts';
+import type { ShipInput } from '../../../shared/schemas/production.ts';
+import type { User } from '../accounts/user.entity.ts';
+import { queueEmail } from '../outbox/outbox.service.ts';
+import type { Studio } from '../studios/studio.entity.ts';
+import { actorName, moveItem } from './item-moves.ts';
+import { handedOverMail } from './order-mail.ts';
+import { OrderEvent, type Order } from './order.entity.ts';
+import { findOrder } from './review.service.ts';
+
+const DONE = ['shipped', 'picked_up', 'cancelled'];
+
+/**
+ * Burned items leave the studio: shipped with a carrier and tracking number, or picked up. The
+ * buyer is told; the order is fulfilled once every item that is not cancelled has left.
+ */
+export async function handOver(em: EntityManager, studio: Studio, orderId: string, user: User, input: ShipInput): Promise<Order> {
+  const order = await findOrder(em, studio, orderId);
+  const items = [...new Set(input.itemIds)].map((id) => order.items.getItems().find((item) => item.id === id));
+  if (items.some((item) => !item)) throw new AppError('NOT_FOUND', 'Some of these items are not in this order.');
+  if (order.status !== 'paid') throw new AppError('CONFLICT', `This order is ${order.status.replaceAll('_', ' ')}: only paid orders are shipped.`);
+  const by = actorName(user);
+  const at = new Date().toISOString();
+  for (const item of items) {
+    if (input.method === 'ship') {
+      moveItem(em, item!, 'shipped', by, `Shipped with ${input.carrier}, tracking ${input.trackingNumber}, by ${by}.`, 'shipped');
+      item!.handover = { method: 'ship', carrier: input.carrier, trackingNumber: input.trackingNumber, at, by };
+    } else {
+      moveItem(em, item!, 'picked_up', by, `Picked up at the studio; handed over by ${by}.`, 'picked_up');
+      item!.handover = { method: 'pickup', carrier: null, trackingNumber: null, at, by };
+    }
+  }
+  const complete = order.items.getItems().every((item) => DONE.includes(item.stage));
+  if (complete) {
+    assertMove('order', ORDER_TRANSITIONS, order.status, 'fulfilled');
+    order.status = 'fulfilled';
+    em.create(OrderEvent, { studio, order, type: 'fulfilled', actor: by, text: 'Every item has left the studio: the order is complete.' });
+  }
+  queueEmail(em, {
+    to: order.buyerEmail,
+    ...handedOverMail({ studioName: studio.name, number: order.number, buyerName: order.buyerName, what: items.map((i) => `${i!.snapshot.blank.name} (${i!.snapshot.size.label})`), method: input.method, carrier: input.method === 'ship' ? input.carrier : undefined, trackingNumber: input.method === 'ship' ? input.trackingNumber : undefined, complete }),
+  });
+  await em.flush();
+  return order;
+}

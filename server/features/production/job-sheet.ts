@@ -1,0 +1,96 @@
+import { createRequire } from 'node:module';
+import PDFDocument from 'pdfkit';
+import QRCode from 'qrcode';
+import { LASER_CAUTIONS } from '../../../shared/safety.ts';
+
+/**
+ * The job sheet: one printed page that goes with the piece from the machine to the parcel. It
+ * says what to burn with which settings, how long it should take, what to check, the cautions,
+ * and carries a QR code that opens the order in the workspace. Drawn with PDFKit in Nunito (the
+ * app's own font, from @fontsource/nunito).
+ */
+export type JobSheet = {
+  studioName: string;
+  title: string;
+  subtitle: string;
+  orderUrl: string;
+  /** A small PNG of the engrave file, as it will burn. */
+  preview: Buffer;
+  /** Label and value rows, in the order printed; sections start with a row whose value is null. */
+  rows: Array<[string, string | null]>;
+  checks: string[];
+  paper: 'A4' | 'LETTER';
+};
+
+const require = createRequire(import.meta.url);
+const FONT = {
+  regular: require.resolve('@fontsource/nunito/files/nunito-latin-400-normal.woff'),
+  bold: require.resolve('@fontsource/nunito/files/nunito-latin-800-normal.woff'),
+};
+const INK = '#2b2622';
+const MUTED = '#6b625a';
+
+export async function jobSheetPdf(sheet: JobSheet): Promise<Buffer> {
+  const qr = await QRCode.toBuffer(sheet.orderUrl, { type: 'png', errorCorrectionLevel: 'M', margin: 1, scale: 6 });
+  const doc = new PDFDocument({ size: sheet.paper, margin: 40, info: { Title: sheet.title, Author: sheet.studioName, Creator: 'Etchwell' } });
+  const chunks: Buffer[] = [];
+  doc.on('data', (chunk: Buffer) => chunks.push(chunk));
+  const finished = new Promise<Buffer>((resolve, reject) => {
+    doc.on('end', () => resolve(Buffer.concat(chunks)));
+    doc.on('error', reject);
+  });
+  doc.registerFont('regular', FONT.regular);
+  doc.registerFont('bold', FONT.bold);
+  const left = doc.page.margins.left;
+  const width = doc.page.width - left - doc.page.margins.right;
+
+  // Header: who, what, and the code that opens the order.
+  doc.font('regular').fontSize(10).fillColor(MUTED).text(sheet.studioName, left, 40);
+  doc.font('bold').fontSize(22).fillColor(INK).text(sheet.title, left, 54, { width: width - 110 });
+  doc.font('regular').fontSize(11).fillColor(MUTED).text(sheet.subtitle, { width: width - 110 });
+  doc.image(qr, left + width - 96, 36, { fit: [96, 96] });
+  doc.fontSize(7).text('Scan to open the order', left + width - 100, 134, { width: 104, align: 'center' });
+
+  // The preview beside the facts.
+  const top = 160;
+  // Framed at its own proportions (a PNG's IHDR holds width and height at bytes 16 and 20).
+  const [pw, ph] = [sheet.preview.readUInt32BE(16), sheet.preview.readUInt32BE(20)];
+  const scale = Math.min(170 / pw, 220 / ph);
+  doc.image(sheet.preview, left, top, { width: pw * scale, height: ph * scale });
+  doc.rect(left, top, pw * scale, ph * scale).lineWidth(0.5).strokeColor('#cfc6bb').stroke();
+  let y = top;
+  const labelX = left + 190;
+  const valueX = labelX + 120;
+  for (const [label, value] of sheet.rows) {
+    if (value === null) {
+      y += y === top ? 0 : 6;
+      doc.font('bold').fontSize(10).fillColor(INK).text(label.toUpperCase(), labelX, y, { characterSpacing: 0.6 });
+      y = doc.y + 2;
+      continue;
+    }
+    doc.font('regular').fontSize(9.5).fillColor(MUTED).text(label, labelX, y, { width: 115 });
+    doc.font('bold').fontSize(9.5).fillColor(INK).text(value, valueX, y, { width: left + width - valueX });
+    y = Math.max(doc.y, y + 13) + 1;
+  }
+
+  // Checks to tick by hand.
+  y = Math.max(y, top + 230) + 14;
+  doc.font('bold').fontSize(10).fillColor(INK).text('CHECKS', left, y, { characterSpacing: 0.6 });
+  y = doc.y + 4;
+  for (const check of sheet.checks) {
+    doc.rect(left, y + 1, 9, 9).lineWidth(0.8).strokeColor(INK).stroke();
+    doc.font('regular').fontSize(10).fillColor(INK).text(check, left + 16, y, { width: width - 16 });
+    y = doc.y + 4;
+  }
+
+  // The cautions, boxed.
+  y += 10;
+  const boxTop = y;
+  doc.font('bold').fontSize(10).fillColor(INK).text('Before you burn', left + 12, y + 10);
+  doc.font('regular').fontSize(9);
+  for (const caution of LASER_CAUTIONS) doc.text(`•  ${caution}`, left + 12, doc.y + 3, { width: width - 24 });
+  doc.rect(left, boxTop, width, doc.y - boxTop + 10).lineWidth(1.2).strokeColor('#b7791f').stroke();
+
+  doc.end();
+  return finished;
+}

@@ -1,0 +1,156 @@
+import request from 'supertest';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { seedDemo } from '../../server/db/seed.ts';
+import { DEMO_PASSWORD } from '../../server/db/demo-scenario.ts';
+import { TENANT_FILTER } from '../../server/db/tenant.ts';
+import { Blank } from '../../server/features/catalog/catalog.entity.ts';
+import { OutboxEmail } from '../../server/features/outbox/outbox-email.entity.ts';
+import { Studio } from '../../server/features/studios/studio.entity.ts';
+import type { BatchView, ProductionBoard } from '../../shared/schemas/production.ts';
+import { signIn } from '../support/factories.ts';
+import { placePaidOrder, uploadBuyerPhoto } from '../support/orders.ts';
+import { pdfFirstPageQr, pdfPages, pdfText } from '../support/pdf.ts';
+import { pillowImageInfo } from '../support/pillow.ts';
+import { useTestApp } from '../support/test-app.ts';
+
+/** From approved items to shipped: batches, renders with their files, burned, handed over. */
+describe('production and shipping', () => {
+  const t = useTestApp({}, { worker: true });
+  const work = '/api/studios/harbour-light';
+  let staff: ReturnType<typeof request.agent>;
+  let glass: Blank;
+  let maple: Blank;
+
+  beforeAll(async () => {
+    await seedDemo(t.orm.em.fork());
+    const em = t.orm.em.fork();
+    const studio = await em.findOneOrFail(Studio, { slug: 'harbour-light' });
+    // This studio approves prepared items itself here (the proof flow has tests of its own).
+    await em.nativeUpdate(Studio, { id: studio.id }, { proofsRequired: false });
+    const filters = { [TENANT_FILTER]: { studioId: studio.id } };
+    glass = await em.findOneOrFail(Blank, { name: 'Black-backed glass portrait' }, { populate: ['sizes'], filters });
+    maple = await em.findOneOrFail(Blank, { name: 'Maple keepsake plaque' }, { populate: ['sizes'], filters });
+    staff = request.agent(t.app);
+    await signIn(staff, 'tobias@harbour-light.test', DEMO_PASSWORD);
+  });
+
+  /** A paid order of a 5 × 7 in glass portrait and a maple plaque, both photos approved and prepared. */
+  async function approvedOrder(email: string) {
+    const photo = await uploadBuyerPhoto(t, 'harbour-light', 1500, 2100);
+    const orderId = await placePaidOrder(t, 'harbour-light', [
+      { blankId: glass.id, sizeId: glass.sizes.getItems().find((s) => s.label === '5 × 7 in')!.id, photo },
+      { blankId: maple.id, sizeId: maple.sizes[0]!.id, photo },
+    ], { email, name: 'Ada Penrose' });
+    const order = (await staff.get(`${work}/orders/${orderId}`).expect(200)).body as { items: Array<{ id: string; blankName: string }> };
+    for (const item of order.items) {
+      await staff.post(`${work}/items/${item.id}/approve-photo`).expect(200);
+      await staff.post(`${work}/items/${item.id}/approve-without-proof`).expect(200, { stage: 'approved' });
+    }
+    const byName = (name: string) => order.items.find((i) => i.blankName === name)!.id;
+    return { orderId, glassItem: byName(glass.name), mapleItem: byName(maple.name) };
+  }
+
+  async function renderedBatch(batchId: string): Promise<BatchView> {
+    for (let i = 0; i < 600; i++) {
+      const batch = (await staff.get(`${work}/production/batches/${batchId}`).expect(200)).body as BatchView;
+      if (batch.items.every((item) => item.render.status === 'done' || item.render.status === 'failed')) return batch;
+      await new Promise((r) => setTimeout(r, 100));
+    }
+    throw new Error('the render did not finish within a minute');
+  }
+
+  const download = async (renderId: string, kind: string) => {
+    const link = (await staff.get(`${work}/production/renders/${renderId}/files/${kind}`).expect(200)).body as { url: string; expiresInSeconds: number; fileName: string };
+    const response = await fetch(link.url);
+    expect(response.status).toBe(200);
+    return { link, response, bytes: new Uint8Array(await response.arrayBuffer()) };
+  };
+
+  it('groups approved items by material and recipe, and refuses a batch that mixes them', async () => {
+    const { glassItem, mapleItem } = await approvedOrder('ada@buyers.test');
+    const board = (await staff.get(`${work}/production`).expect(200)).body as ProductionBoard;
+    const glassGroup = board.groups.find((g) => g.items.some((i) => i.itemId === glassItem))!;
+    expect(glassGroup).toMatchObject({ materialName: 'Black-backed (painted) glass', machineName: 'Workshop CO2, 100 W', recipe: '360 lines per inch, Jarvis–Judice–Ninke, negative' });
+    expect(board.groups.find((g) => g.items.some((i) => i.itemId === mapleItem))).toMatchObject({ materialName: 'Maple', machineName: null });
+    const mixed = await staff.post(`${work}/production/batches`).send({ itemIds: [glassItem, mapleItem] }).expect(400);
+    expect(mixed.body.message).toMatch(/one material on one machine recipe/);
+    await staff.post(`${work}/production/batches`).send({ itemIds: [] }).expect(400);
+    // Marking an item burned before it is in production is an illegal move.
+    const early = await staff.post(`${work}/items/${glassItem}/burned`).expect(409);
+    expect(early.body.message).toMatch(/is approved and cannot become burned\. It can become: in production, prep, cancelled\./);
+  });
+
+  it('renders the engrave file, grayscale master and job sheet; burned and handed over, the order is fulfilled', async () => {
+    const { orderId, glassItem, mapleItem } = await approvedOrder('bea@buyers.test');
+    const created = await staff.post(`${work}/production/batches`).send({ itemIds: [glassItem] }).expect(201);
+    const batch = await renderedBatch(created.body.id);
+    const [entry] = batch.items;
+    expect(entry!.stage).toBe('in_production');
+    expect(entry!.render).toMatchObject({ status: 'done', progress: 100, attempts: 1, stalled: false });
+    expect(entry!.render.files.map((f) => f.kind)).toEqual(['engrave', 'master', 'sheet']);
+
+    // The engrave file, read by Pillow (an independent PNG reader): mode '1' is bit depth 1, and
+    // its dpi comes from pHYs. 5 × 7 in has a 4.5 × 6.5 in area; at the recipe's 360 lines per
+    // inch that is 1620 × 2340 pixels (PNG spec §11.3.5.3: pixels per metre = round(360 / 0.0254)
+    // = 14173, which Pillow reads back as 359.99 dpi).
+    const engrave = await download(entry!.render.id, 'engrave');
+    expect(engrave.link.expiresInSeconds).toBe(60);
+    expect(new URL(engrave.link.url).searchParams.get('X-Amz-Expires')).toBe('60');
+    expect(engrave.response.headers.get('content-disposition')).toMatch(/^attachment; filename="order-\d+-[0-9a-f]{8}-engrave\.png"$/);
+    const engraveInfo = pillowImageInfo(engrave.bytes);
+    expect(engraveInfo).toMatchObject({ format: 'PNG', mode: '1', width: 1620, height: 2340 });
+    expect(engraveInfo.dpi![0]).toBeCloseTo(360, 1);
+    const master = pillowImageInfo((await download(entry!.render.id, 'master')).bytes);
+    expect(master).toMatchObject({ format: 'PNG', mode: 'LA', width: 1620, height: 2340 });
+    expect(master.dpi![0]).toBeCloseTo(360, 1);
+
+    // The job sheet, read back by Poppler: one page with the settings, the burn estimate and the
+    // cautions, and a QR code that opens the order.
+    const sheet = (await download(entry!.render.id, 'sheet')).bytes;
+    expect(pdfPages(sheet)).toBe(1);
+    const text = pdfText(sheet).replace(/\s+/g, ' ');
+    expect(text).toMatch(/Order \d+: item 1 of 2/);
+    for (const words of ['Workshop CO2, 100 W', '5 in/s', '10–14.5 %', '360 lines per inch', 'Negative', 'Before you burn', 'Class 4 laser product', 'Never burn PVC or vinyl', 'licensed practice']) expect(text).toContain(words);
+    // Burn time by hand: ceil(6.5 in × 360) = 2340 rows, each (114.3 + 2 × 5) mm at 5 in/s
+    // (127 mm/s) plus a 0.05 s turnaround = 1.02874 s, so 2407 s (common practice, no source).
+    expect(text).toContain('40 min 07 s per piece');
+    expect(await pdfFirstPageQr(sheet)).toBe(`${t.env.APP_URL}/studio/harbour-light/orders/${orderId}`);
+
+    // The maple plaque has no recipe: it batches alone, and its sheet says to set the machine by hand.
+    const mapleBatch = await renderedBatch((await staff.post(`${work}/production/batches`).send({ itemIds: [mapleItem] }).expect(201)).body.id);
+    expect(mapleBatch.machineName).toBeNull();
+    expect(pdfText((await download(mapleBatch.items[0]!.render.id, 'sheet')).bytes)).toContain('None for this material');
+
+    await staff.post(`${work}/items/${glassItem}/burned`).expect(200, { stage: 'burned' });
+    const notYet = await staff.post(`${work}/orders/${orderId}/handover`).send({ method: 'pickup', itemIds: [mapleItem] }).expect(409);
+    expect(notYet.body.message).toMatch(/is in production and cannot become picked up\. It can become: burned, approved\./);
+    await staff.post(`${work}/orders/${orderId}/handover`).send({ method: 'ship', itemIds: [glassItem], carrier: '', trackingNumber: '' }).expect(400);
+    await staff.post(`${work}/orders/${orderId}/handover`).send({ method: 'ship', itemIds: [glassItem], carrier: 'Parcelway', trackingNumber: 'PW 4471 0923' }).expect(200, { status: 'paid' });
+    await staff.post(`${work}/items/${mapleItem}/burned`).expect(200);
+    await staff.post(`${work}/orders/${orderId}/handover`).send({ method: 'pickup', itemIds: [mapleItem] }).expect(200, { status: 'fulfilled' });
+
+    const order = (await staff.get(`${work}/orders/${orderId}`).expect(200)).body;
+    expect(order.items.find((i: { id: string }) => i.id === glassItem).handover).toMatchObject({ method: 'ship', carrier: 'Parcelway', trackingNumber: 'PW 4471 0923', by: 'Tobias Renn' });
+    expect(order.events.map((e: { text: string }) => e.text)).toEqual(expect.arrayContaining([expect.stringMatching(/^Engrave file, grayscale master and job sheet made for batch \d+\.$/), 'Shipped with Parcelway, tracking PW 4471 0923, by Tobias Renn.', 'Every item has left the studio: the order is complete.']));
+    const mails = await t.orm.em.fork().find(OutboxEmail, { to: 'bea@buyers.test' }, { orderBy: { createdAt: 'asc' } });
+    expect(mails.map((m) => m.subject)).toEqual(expect.arrayContaining([expect.stringMatching(/^Order \d+ has shipped$/), expect.stringMatching(/^Order \d+: picked up$/)]));
+    expect(mails.find((m) => m.subject.endsWith('has shipped'))!.text).toContain('Tracking number: PW 4471 0923');
+  });
+
+  it('takes an item out of its batch: the render and its files go, and it waits for a new batch', async () => {
+    const { glassItem } = await approvedOrder('cal@buyers.test');
+    const batch = await renderedBatch((await staff.post(`${work}/production/batches`).send({ itemIds: [glassItem] }).expect(201)).body.id);
+    const renderId = batch.items[0]!.render.id;
+    await staff.post(`${work}/items/${glassItem}/out-of-batch`).expect(200, { stage: 'approved' });
+    await staff.get(`${work}/production/renders/${renderId}/files/engrave`).expect(404);
+    const prefixes = await t.storage.list(`studios/`);
+    expect(prefixes.filter((key) => key.includes('/renders/') && key.includes(renderId))).toEqual([]);
+    const board = (await staff.get(`${work}/production`).expect(200)).body as ProductionBoard;
+    expect(board.groups.flatMap((g) => g.items.map((i) => i.itemId))).toContain(glassItem);
+    // Only a failed render can be retried.
+    const again = await staff.post(`${work}/production/batches`).send({ itemIds: [glassItem] }).expect(201);
+    const done = await renderedBatch(again.body.id);
+    const retry = await staff.post(`${work}/production/renders/${done.items[0]!.render.id}/retry`).expect(409);
+    expect(retry.body.message).toBe('This render is done already.');
+  });
+});
