@@ -63,7 +63,7 @@ export const batchSummarySchema = z.object({
   machineName: z.string().nullable(),
   createdAt: z.string(),
   createdBy: z.string(),
-  items: z.number().int(),
+  itemCount: z.number().int(),
   rendered: z.number().int(),
   failed: z.number().int(),
   burned: z.number().int(),
@@ -105,3 +105,5 @@ export const shipInputSchema = z.discriminatedUnion('method', [
   z.object({ method: z.literal('pickup'), itemIds: z.array(z.uuid()).min(1, 'Choose the items handed over.').max(100) }),
 ], { error: 'Choose shipped or picked up.' });
 export type ShipInput = z.infer<typeof shipInputSchema>;
+
+export const createdBatchSchema = z.object({ id: z.uuid(), number: z.number().int() });

@@ -1,3 +1,4 @@
+import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import sharp from 'sharp';
 import request from 'supertest';
@@ -8,10 +9,12 @@ import { DEMO_PASSWORD } from '../../server/db/demo-scenario.ts';
 import { TENANT_FILTER } from '../../server/db/tenant.ts';
 import { Blank } from '../../server/features/catalog/catalog.entity.ts';
 import { Studio } from '../../server/features/studios/studio.entity.ts';
+import { ShippingRate } from '../../server/features/shipping/shipping-rate.entity.ts';
 import { freePort, screenshotDir, signInOnPage, useBrowser } from '../support/browser.ts';
 import { useMailFake } from '../support/mail.ts';
 import { payWithTestCard, postSignedEvent } from '../support/payments.ts';
-import { referencePhotoDir } from '../support/pillow.ts';
+import { pillowImageInfo, referencePhotoDir } from '../support/pillow.ts';
+import { pdfText } from '../support/pdf.ts';
 import { eventually } from '../support/fakes.ts';
 
 /**
@@ -24,7 +27,7 @@ describe('photo review: asking the buyer for a better photo', () => {
   const b = useBrowser(async () => {
     await mail.start();
     return { SMTP_URL: mail.smtpUrl, APP_URL: `http://127.0.0.1:${await freePort()}` };
-  });
+  }, { worker: true });
   const shot = (page: Page, name: string) => page.screenshot({ path: join(screenshotDir, `${name}.png`), fullPage: true });
   let orderNumber: number;
 
@@ -34,6 +37,7 @@ describe('photo review: asking the buyer for a better photo', () => {
     const studio = await em.findOneOrFail(Studio, { slug: 'harbour-light' });
     const glass = await em.findOneOrFail(Blank, { name: 'Black-backed glass portrait' }, { populate: ['sizes'], filters: { [TENANT_FILTER]: { studioId: studio.id } } });
     const size = glass.sizes.getItems().find((s) => s.label === '5 × 7 in')!;
+    const rate = await em.findOneOrFail(ShippingRate, { studio, priceMinor: 895 }, { filters: { [TENANT_FILTER]: { studioId: studio.id } } });
     // The buyer's order, placed and paid as the storefront and the payment webhook do it.
     const bytes = await sharp(join(referencePhotoDir, 'chelsea.png')).jpeg().toBuffer();
     const store = '/api/storefront/harbour-light';
@@ -45,7 +49,7 @@ describe('photo review: asking the buyer for a better photo', () => {
       .send({
         items: [{ blankId: glass.id, sizeId: size.id, orientation: 'landscape', quantity: 1, photoId: photo.id, placement: { crop: { left: 0, top: 12, width: 451, height: 276 } }, rightsConfirmed: true, lowResolutionConfirmed: true }],
         buyer: { email: 'june@buyers.test', name: 'June Aldous' },
-        delivery: { method: 'pickup' },
+        delivery: { method: 'ship', rateId: rate.id, address: { line1: '7 Gull Row', city: 'Port Alder', postalCode: '04412', country: 'US' } },
       })
       .expect(201);
     await payWithTestCard(placed.body.paymentUrl);
@@ -158,4 +162,54 @@ describe('photo review: asking the buyer for a better photo', () => {
     await expect.poll(() => staff.page.getByText('Approved for engraving', { exact: true }).count()).toBe(1);
     expect([...staff.problems, ...buyer.problems]).toEqual([]);
   });
+
+  it('staff render the approved item, download the engrave file and the job sheet, mark it burned and shipped', async () => {
+    const staff = await b.newPage();
+    await signInOnPage(staff.page, b.baseUrl, 'tobias@harbour-light.test', DEMO_PASSWORD, `${b.baseUrl}/studio/harbour-light`);
+    await staff.page.getByRole('navigation', { name: 'Workspace' }).getByRole('link', { name: 'Production' }).click();
+    await expect.poll(() => staff.page.getByRole('heading', { name: 'Black-backed (painted) glass · Workshop CO2, 100 W' }).count()).toBe(1);
+    await shot(staff.page, 'production');
+    await staff.page.getByRole('button', { name: 'Start a batch of 1 item' }).click();
+    await staff.page.waitForURL(/\/production\/batches\//);
+    // The render runs as a background job; the page follows its progress until the files are ready.
+    await expect.poll(() => staff.page.getByRole('heading', { name: /^Batch \d+$/ }).count()).toBe(1);
+    await expect.poll(() => staff.page.getByRole('progressbar').getAttribute('aria-valuenow'), { timeout: 60_000 }).toBe('100');
+    await expect.poll(() => staff.page.getByRole('button', { name: /^Download engrave file/ }).count()).toBe(1);
+    await shot(staff.page, 'batch-rendered');
+
+    const engrave = await downloadFrom(staff.page, /^Download engrave file/);
+    // Read by Pillow: bit depth 1 (mode '1') at the recipe's 360 lines per inch (PNG pHYs).
+    const info = pillowImageInfo(engrave.bytes);
+    expect(info).toMatchObject({ format: 'PNG', mode: '1' });
+    expect(info.dpi![0]).toBeCloseTo(360, 1);
+    expect(engrave.name).toMatch(/^order-\d+-[0-9a-f]{8}-engrave\.png$/);
+    const sheet = await downloadFrom(staff.page, /^Download job sheet/);
+    expect(pdfText(sheet.bytes)).toContain('Before you burn');
+    writeFileSync(join(screenshotDir, 'job-sheet.pdf'), sheet.bytes);
+
+    await staff.page.getByRole('button', { name: 'Mark burned' }).click();
+    await expect.poll(() => staff.page.getByText(`Order ${orderNumber}: marked burned.`).count()).toBe(1);
+    await staff.page.getByRole('link', { name: `Order ${orderNumber}` }).click();
+    await staff.page.getByLabel('Carrier').fill('Parcelway');
+    await staff.page.getByLabel('Tracking number').fill('PW 7781 2290');
+    await staff.page.getByRole('button', { name: 'Mark shipped and tell the buyer' }).click();
+    await expect.poll(() => staff.page.getByText('Complete', { exact: true }).count()).toBe(1);
+    await expect.poll(() => staff.page.getByText(/^Shipped with Parcelway, tracking PW 7781 2290, on /).count()).toBe(1);
+    await shot(staff.page, 'order-shipped');
+
+    const shipped = await eventually(async () => {
+      const newest = await mail.latestTo('june@buyers.test');
+      return newest.subject.includes('has shipped') ? newest : undefined;
+    });
+    expect(shipped.subject).toBe(`Order ${orderNumber} has shipped`);
+    expect(shipped.text).toContain('Tracking number: PW 7781 2290');
+    expect(staff.problems).toEqual([]);
+  });
 });
+
+/** Clicks a download button and answers the file the browser saved, with its suggested name. */
+async function downloadFrom(page: Page, name: RegExp): Promise<{ name: string; bytes: Uint8Array }> {
+  const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name }).click()]);
+  const path = await download.path();
+  return { name: download.suggestedFilename(), bytes: new Uint8Array(readFileSync(path)) };
+}

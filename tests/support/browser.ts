@@ -31,11 +31,11 @@ export type BrowserContext = TestApp & {
  * free port, on a database of its own, and Debian's Chromium driven by playwright-core.
  * `prepare` runs first and may return environment overrides for the app (a fake's address).
  */
-export function useBrowser(prepare?: () => Promise<Record<string, string>>): BrowserContext {
+export function useBrowser(prepare?: () => Promise<Record<string, string>>, options: { worker?: boolean } = {}): BrowserContext {
   const context = {} as BrowserContext & { server: Server; close(): Promise<void> };
   beforeAll(async () => {
     mkdirSync(screenshotDir, { recursive: true });
-    Object.assign(context, await buildTestApp((await prepare?.()) ?? {}));
+    Object.assign(context, await buildTestApp((await prepare?.()) ?? {}, options));
     context.server = createServer(context.app);
     // An APP_URL from `prepare` names the port (links in e-mails and payment returns use it).
     const port = context.env.APP_URL && new URL(context.env.APP_URL).port ? Number(new URL(context.env.APP_URL).port) : 0;

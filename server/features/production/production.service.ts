@@ -69,7 +69,7 @@ function batchSummary(batch: ProductionBatch): BatchSummary {
     machineName: batch.machine?.name ?? null,
     createdAt: batch.createdAt.toISOString(),
     createdBy: batch.createdBy,
-    items: renders.length,
+    itemCount: renders.length,
     rendered: renders.filter((r) => r.status === 'done').length,
     failed: renders.filter((r) => r.status === 'failed').length,
     burned: renders.filter((r) => ['burned', 'shipped', 'picked_up'].includes(r.item.stage)).length,

@@ -24,6 +24,7 @@ function WorkspaceFrame({ children }: { children: (workspace: Workspace) => Reac
     { to: `/studio/${studioSlug}`, label: 'Overview', end: true, show: true },
     { to: `/studio/${studioSlug}/orders`, label: 'Orders', end: false, show: can(workspace.data?.role, 'order:read') },
     { to: `/studio/${studioSlug}/review`, label: 'Photo review', end: false, show: can(workspace.data?.role, 'order:review') },
+    { to: `/studio/${studioSlug}/production`, label: 'Production', end: false, show: can(workspace.data?.role, 'order:read') },
     { to: `/studio/${studioSlug}/catalog`, label: 'Catalog', end: false, show: can(workspace.data?.role, 'catalog:read') },
     { to: `/studio/${studioSlug}/team`, label: 'Team', end: false, show: can(workspace.data?.role, 'team:manage') },
     { to: `/studio/${studioSlug}/settings`, label: 'Settings', end: false, show: can(workspace.data?.role, 'studio:settings') },

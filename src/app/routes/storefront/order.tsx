@@ -1,3 +1,4 @@
+import { handoverLine } from '../../../features/orders/handover-line.ts';
 import { useEffect } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { ITEM_STAGE_LABELS, ORDER_STATUS_LABELS } from '../../../../shared/orders/stages.ts';
@@ -62,6 +63,7 @@ export function OrderPage() {
                           <span className="font-semibold">Now: </span>
                           {ITEM_STAGE_LABELS[item.stage]}
                         </p>
+                        {item.handover && <p className="mt-1 text-sm">{handoverLine(item.handover)}</p>}
                         {item.stage === 'needs_new_photo' && (
                           <p className="mt-1 max-w-sm text-sm font-semibold text-rust-600">The studio needs a new photo for this piece: we sent you an e-mail with the reason and a link to send it.</p>
                         )}

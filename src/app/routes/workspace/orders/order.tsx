@@ -9,14 +9,16 @@ import { useStaffOrder } from '../../../../features/orders/api/orders.ts';
 import { methodLabel } from '../../../../features/catalog/labels.ts';
 import { MoneyActions } from '../../../../features/orders/components/money-actions.tsx';
 import { can } from '../../../../../shared/permissions.ts';
+import { HandoverForm } from '../../../../features/production/components/handover-form.tsx';
+import { handoverLine } from '../../../../features/orders/handover-line.ts';
 
 export function StaffOrderPage() {
   const { orderId = '' } = useParams();
-  return <WorkspaceLayout>{({ studio, role }) => <StaffOrder slug={studio.slug} orderId={orderId} canRefund={can(role, 'order:refund')} />}</WorkspaceLayout>;
+  return <WorkspaceLayout>{({ studio, role }) => <StaffOrder slug={studio.slug} orderId={orderId} canRefund={can(role, 'order:refund')} canProduce={can(role, 'order:produce')} />}</WorkspaceLayout>;
 }
 
 /** One order as the studio sees it: items as they will burn, buyer, payment and every event. */
-function StaffOrder({ slug, orderId, canRefund }: { slug: string; orderId: string; canRefund: boolean }) {
+function StaffOrder({ slug, orderId, canRefund, canProduce }: { slug: string; orderId: string; canRefund: boolean; canProduce: boolean }) {
   const order = useStaffOrder(slug, orderId);
   if (order.isPending) return <p className="text-graphite-500">Loading…</p>;
   if (order.error) return <Notice tone="error">{order.error.message}</Notice>;
@@ -52,15 +54,24 @@ function StaffOrder({ slug, orderId, canRefund }: { slug: string; orderId: strin
                   </p>
                   {item.inscription && <p>Words: “{item.inscription.lines.join(' / ')}”</p>}
                   <p className="mt-2 font-semibold">{ITEM_STAGE_LABELS[item.stage]}</p>
-                  <Link to={`/studio/${slug}/items/${item.id}`} className="font-semibold text-ember-700 underline">
-                    Prepare this item
-                  </Link>
+                  {item.handover && <p>{handoverLine(item.handover)}</p>}
+                  {['prep', 'proof_sent', 'changes_requested', 'approved'].includes(item.stage) && (
+                    <Link to={`/studio/${slug}/items/${item.id}`} className="font-semibold text-ember-700 underline">
+                      Prepare this item
+                    </Link>
+                  )}
+                  {['in_production', 'burned'].includes(item.stage) && (
+                    <Link to={`/studio/${slug}/production`} className="font-semibold text-ember-700 underline">
+                      Production
+                    </Link>
+                  )}
                 </div>
               </li>
             ))}
           </ul>
         </Card>
         <div className="flex flex-col gap-6">
+          {canProduce && <HandoverForm key={o.items.map((i) => i.stage).join()} slug={slug} order={o} />}
           <Card>
             <CardTitle>Buyer and delivery</CardTitle>
             <p className="text-sm">
