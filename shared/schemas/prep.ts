@@ -53,3 +53,17 @@ export const proofDecisionSchema = z.discriminatedUnion('decision', [
   z.object({ decision: z.literal('changes'), message: z.string().trim().min(1, 'Say what you would like changed.').max(1000, 'Use at most 1000 characters.') }),
 ]);
 export type ProofDecision = z.infer<typeof proofDecisionSchema>;
+
+/** A region of the burn at the machine's own resolution: where (0–1 across the area) and with which settings. */
+export const regionPreviewInputSchema = z.object({
+  settings: prepSettingsSchema,
+  centre: z.object({ x: z.number().min(0).max(1), y: z.number().min(0).max(1) }).default({ x: 0.5, y: 0.5 }),
+});
+export type RegionPreviewInput = z.input<typeof regionPreviewInputSchema>;
+export const regionPreviewSchema = z.object({
+  /** A 1-bit PNG as a data: URL; one image pixel is one dot of the burn. */
+  image: z.string(),
+  region: z.object({ left: z.number().int(), top: z.number().int(), width: z.number().int(), height: z.number().int() }),
+  output: z.object({ width: z.number().int(), height: z.number().int() }),
+});
+export type RegionPreview = z.infer<typeof regionPreviewSchema>;

@@ -140,6 +140,27 @@ describe('photo review: asking the buyer for a better photo', () => {
     await expect.poll(() => staff.page.getByLabel('Line density').inputValue()).toBe('360');
     expect(await staff.page.getByLabel('Negative (the burn is lighter)').isChecked()).toBe(true);
     await staff.page.getByLabel('Sharpen amount').fill('240');
+    // The cut-out: start without the plain background, paint one stroke away, undo and redo it.
+    await staff.page.getByRole('radio', { name: 'Cut-out' }).click();
+    await staff.page.getByLabel('Without a plain background').check();
+    await staff.page.getByRole('radio', { name: 'Remove' }).click();
+    const canvas = (await staff.page.getByLabel('Paint to keep or remove parts of the photo').boundingBox())!;
+    await staff.page.mouse.move(canvas.x + canvas.width * 0.1, canvas.y + canvas.height * 0.15);
+    await staff.page.mouse.down();
+    for (let i = 1; i <= 10; i++) await staff.page.mouse.move(canvas.x + canvas.width * (0.1 + i * 0.03), canvas.y + canvas.height * 0.15);
+    await staff.page.mouse.up();
+    await expect.poll(() => staff.page.getByText('1 stroke', { exact: true }).count()).toBe(1);
+    await staff.page.getByRole('button', { name: 'Undo' }).click();
+    await expect.poll(() => staff.page.getByText('0 strokes', { exact: true }).count()).toBe(1);
+    await staff.page.getByRole('button', { name: 'Redo' }).click();
+    await expect.poll(() => staff.page.getByText('1 stroke', { exact: true }).count()).toBe(1);
+    await staff.page.waitForTimeout(500);
+    await shot(staff.page, 'item-cutout');
+    // One region at the machine's resolution, one dot per screen pixel.
+    await staff.page.getByRole('radio', { name: 'After' }).click();
+    await staff.page.getByRole('button', { name: 'Show 1:1 region' }).click();
+    await expect.poll(() => staff.page.getByRole('img', { name: 'A region of the burn, one dot per screen pixel' }).count(), { timeout: 30_000 }).toBe(1);
+    await expect.poll(() => staff.page.getByText(/^480 × 480 dots of 2340 × 1620 at 360 lines per inch/).count()).toBe(1);
     await staff.page.getByRole('button', { name: 'Save settings' }).click();
     await expect.poll(() => staff.page.getByText('Saved versions (1)').count()).toBe(1);
     await staff.page.waitForTimeout(500);

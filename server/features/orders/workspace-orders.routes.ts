@@ -5,7 +5,8 @@ import { cancelOrder, refundOrder } from './refunds.service.ts';
 import { today } from './today.service.ts';
 import { approveWithoutProof, currentPrep, defaultPrep, reopenPrep, savePrep, sendProof } from './prep.service.ts';
 import { findItem } from './item-moves.ts';
-import { prepSettingsSchema, type PrepSettings } from '../../../shared/schemas/prep.ts';
+import { prepSettingsSchema, regionPreviewInputSchema, type PrepSettings } from '../../../shared/schemas/prep.ts';
+import { regionPreview } from './region-preview.ts';
 import { ITEM_TRANSITIONS } from '../../../shared/orders/stages.ts';
 import type { StaffItem } from '../../../shared/schemas/workspace-orders.ts';
 
@@ -66,6 +67,15 @@ export function workspaceOrderRoutes({ orm, env, storage, payments }: { orm: Orm
       handler: async (req, res) => {
         const item = await savePrep(em(), req.studio!, String(req.params.itemId), req.user!, prepSettingsSchema.parse(req.body));
         res.json({ version: item.prepVersions.at(-1)!.version });
+      },
+    },
+    {
+      method: 'post', path: '/items/:itemId/prep-preview', permission: 'order:produce',
+      sample: async (f) => ({ params: { itemId: (await f.orderItem({ stage: 'prep' })).itemId }, body: { settings: SAMPLE_PREP, centre: { x: 0.3, y: 0.6 } } }),
+      handler: async (req, res) => {
+        const item = await findItem(em(), req.studio!, String(req.params.itemId));
+        const input = regionPreviewInputSchema.parse(req.body);
+        res.json(await regionPreview(storage, item, input.settings, input.centre));
       },
     },
     {

@@ -1,6 +1,8 @@
 /// <reference lib="webworker" />
 import { renderBitmap } from '../../../shared/imaging/pipeline.ts';
 import { insideShape, renderMockup } from '../../../shared/imaging/mockup.ts';
+import { featherMask, maskFromAlpha, paintStrokes } from '../../../shared/imaging/mask.ts';
+import { startMask, strokesInPixels } from '../../../shared/orders/prep-pipeline.ts';
 import type { MockupJob, MockupReply, MockupRequest } from './mockup-protocol.ts';
 
 /**
@@ -64,9 +66,18 @@ function render(job: MockupJob): ImageBitmap {
     ctx.setTransform(1, 0, 0, 1, 0, 0);
   }
   const placed = ctx.getImageData(0, 0, width, height);
+  const cutout = job.cutout && { strokes: strokesInPixels(job.cutout.cutout, width, height), startMask: startMask(placed, job.cutout.cutout), featherRadius: job.cutout.featherRadius };
   let out: ImageData;
   if (job.view === 'photo') {
-    for (let y = 0; y < height; y++) for (let x = 0; x < width; x++) if (!insideShape(job.look.shape, x, y, width, height)) placed.data[(y * width + x) * 4 + 3] = 0;
+    // With a cut-out, what is cut away stays faintly visible, so the brush can bring it back.
+    const mask = cutout && featherMask(paintStrokes(cutout.startMask ?? maskFromAlpha(placed), cutout.strokes), cutout.featherRadius);
+    for (let y = 0; y < height; y++) {
+      for (let x = 0; x < width; x++) {
+        const i = y * width + x;
+        if (!insideShape(job.look.shape, x, y, width, height)) placed.data[i * 4 + 3] = 0;
+        else if (mask) placed.data[i * 4 + 3] = Math.round(placed.data[i * 4 + 3]! * (0.22 + 0.78 * mask.data[i]!));
+      }
+    }
     out = placed;
   } else {
     const bitmap = renderBitmap(placed, {
@@ -76,6 +87,7 @@ function render(job: MockupJob): ImageBitmap {
       // Sharpening at screen scale: a one-pixel radius keeps the look of a hard-sharpened burn.
       sharpen: job.sharpen ?? { amount: 150, radius: 1, threshold: 2 },
       halftone: { method: job.look.halftoneMethod, pixelsPerInch: job.look.linesPerInch },
+      cutout,
     });
     const mock = renderMockup({ bitmap, shape: job.look.shape, surfaceColour: job.look.surfaceColour, markColour: job.look.markColour });
     out = new ImageData(mock.data as Uint8ClampedArray<ArrayBuffer>, width, height);

@@ -7,7 +7,7 @@ import { useMockup } from '../use-mockup.ts';
  * A photo as placed in its engraving area, at a given screen size: the plain photo, or as it
  * will burn. Drawn by the mock-up worker from the same placement the engrave file uses.
  */
-export function PlacedPhoto({ photo, placement, look, size, view, label, prep }: { photo: { previewUrl: string; previewWidth: number; width: number }; placement: Placement; look: MockupLook; size: { width: number; height: number }; view: 'photo' | 'burn'; label: string; prep?: Pick<MockupJob, 'tone' | 'sharpen' | 'autoLevelsClip'> }) {
+export function PlacedPhoto({ photo, placement, look, size, view, label, prep }: { photo: { previewUrl: string; previewWidth: number; width: number }; placement: Placement; look: MockupLook; size: { width: number; height: number }; view: 'photo' | 'burn'; label: string; prep?: Pick<MockupJob, 'tone' | 'sharpen' | 'autoLevelsClip' | 'cutout'> }) {
   const mockup = useMockup(photo);
   const canvas = useRef<HTMLCanvasElement>(null);
   useEffect(() => {
