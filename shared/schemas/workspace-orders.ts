@@ -109,4 +109,5 @@ export const staffItemSchema = z.object({
 });
 export type StaffItem = z.infer<typeof staffItemSchema>;
 
-export const proofViewSchema = z.object({ orderNumber: z.number().int(), item: orderViewSchema.shape.items.element, prep: prepSettingsSchema });
+/** The buyer's proof: the item, its prep, and the proof image the server rendered. */
+export const proofViewSchema = z.object({ orderNumber: z.number().int(), item: orderViewSchema.shape.items.element, prep: prepSettingsSchema, imageUrl: z.string() });

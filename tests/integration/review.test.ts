@@ -1,3 +1,4 @@
+import sharp from 'sharp';
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { seedDemo } from '../../server/db/seed.ts';
@@ -29,7 +30,7 @@ describe('photo review', () => {
     await signIn(staff, 'tobias@harbour-light.test', DEMO_PASSWORD);
     owner = request.agent(t.app);
     await signIn(owner, 'maren@harbour-light.test', DEMO_PASSWORD);
-    glass = await em.findOneOrFail(Blank, { name: 'Black-backed glass portrait' }, { populate: ['sizes'], filters: { [TENANT_FILTER]: { studioId: studio.id } } });
+    glass = await em.findOneOrFail(Blank, { name: 'Black-backed glass portrait' }, { populate: ['sizes', 'material'], filters: { [TENANT_FILTER]: { studioId: studio.id } } });
   });
 
   const upload = (width: number, height: number) => uploadBuyerPhoto(t, 'harbour-light', width, height);
@@ -135,7 +136,21 @@ describe('photo review', () => {
     await staff.post(`${itemUrl}/send-proof`).expect(200, { stage: 'proof_sent' });
     await staff.put(`${itemUrl}/prep`).send(item.prep).expect(409); // not while the buyer looks at the proof
     const first = await proofLink();
-    expect((await request(t.app).get(`${store}/proofs/${first}`).expect(200)).body.prep.sharpenAmount).toBe(260);
+    const proof = (await request(t.app).get(`${store}/proofs/${first}`).expect(200)).body;
+    expect(proof.prep.sharpenAmount).toBe(260);
+    // The proof picture is drawn on the server: a landscape of the area (here portrait, 4.5 in
+    // wide) at 900 pixels across, with only the material's two colours inside the blank's
+    // rounded shape and transparency outside it (the catalog's colours for painted glass).
+    const picture = await request(t.app).get(proof.imageUrl).buffer(true).parse((res, done) => {
+      const chunks: Buffer[] = [];
+      res.on('data', (c: Buffer) => chunks.push(c));
+      res.on('end', () => done(null, Buffer.concat(chunks)));
+    }).expect(200).expect('content-type', 'image/png');
+    const { data, info } = await sharp(picture.body as Buffer).raw().toBuffer({ resolveWithObject: true });
+    expect([info.width, info.height]).toEqual([900, Math.round((900 * 6.5) / 4.5)]);
+    const colours = new Set<string>();
+    for (let i = 0; i < data.length; i += 4) colours.add(data[i + 3] === 0 ? 'clear' : `#${[data[i]!, data[i + 1]!, data[i + 2]!].map((v) => v.toString(16).padStart(2, '0')).join('')}`);
+    expect([...colours].sort()).toEqual(['clear', glass.material.markColour, glass.material.surfaceColour].sort());
     await request(t.app).post(`${store}/proofs/${first}`).send({ decision: 'changes', message: '' }).expect(400);
     await request(t.app).post(`${store}/proofs/${first}`).send({ decision: 'changes', message: 'A little lighter, please.' }).expect(200, { stage: 'changes_requested' });
     await request(t.app).get(`${store}/proofs/${first}`).expect(404);

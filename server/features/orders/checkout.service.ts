@@ -38,7 +38,7 @@ export const recipeFor = (em: EntityManager, studio: Studio, blank: Blank) => em
 export async function placeOrder(em: EntityManager, deps: { env: Env; payments: Payments }, studio: Studio, input: CheckoutInput): Promise<{ order: Order; paymentUrl: string; accessKey: string }> {
   const units = studio.units;
   const wanted = new Map<string, number>();
-  const lines: Array<Omit<OrderItem, keyof BaseEntity | 'studio' | 'order' | 'stage' | 'replacementTokenHash' | 'replacementReason' | 'replacementNote' | 'replacements' | 'prepVersions' | 'proofTokenHash' | 'handover'>> = [];
+  const lines: Array<Omit<OrderItem, keyof BaseEntity | 'studio' | 'order' | 'stage' | 'replacementTokenHash' | 'replacementReason' | 'replacementNote' | 'replacements' | 'prepVersions' | 'proofTokenHash' | 'handover' | 'proofImageKey'>> = [];
   for (const [index, item] of input.items.entries()) {
     const at = (field: string) => ['items', index, field];
     const blank = await em.findOne(Blank, { id: item.blankId, studio, status: 'active' }, { populate: ['material', 'sizes'] });

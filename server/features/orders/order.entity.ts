@@ -43,7 +43,7 @@ export class Order extends BaseEntity<'refundedMinor'> {
 
 @Entity({ tableName: 'order_item' })
 @Filter(tenantFilter)
-export class OrderItem extends BaseEntity<'replacementTokenHash' | 'replacementReason' | 'replacementNote' | 'replacements' | 'prepVersions' | 'proofTokenHash' | 'handover'> {
+export class OrderItem extends BaseEntity<'replacementTokenHash' | 'replacementReason' | 'replacementNote' | 'replacements' | 'prepVersions' | 'proofTokenHash' | 'handover' | 'proofImageKey'> {
   @ManyToOne(() => Studio, { deleteRule: 'cascade' }) studio!: Studio;
   @ManyToOne(() => Order, { deleteRule: 'cascade' }) order!: Order;
   @Enum({ items: [...ITEM_STAGES], type: 'string' }) stage!: ItemStage;
@@ -68,6 +68,8 @@ export class OrderItem extends BaseEntity<'replacementTokenHash' | 'replacementR
   @Property({ type: 'json', defaultRaw: "'[]'" }) prepVersions: PrepVersion[] = [];
   /** While a proof waits for the buyer: the SHA-256 of the proof link's token. */
   @Property({ type: 'string', length: 64, nullable: true }) proofTokenHash: string | null = null;
+  /** The last proof sent, as rendered on the server. */
+  @Property({ type: 'string', length: 300, nullable: true }) proofImageKey: string | null = null;
   /** How the item left the studio, once it has. */
   @Property({ type: 'json', nullable: true }) handover: Handover | null = null;
 }

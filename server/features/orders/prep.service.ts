@@ -1,4 +1,8 @@
+import { randomUUID } from 'node:crypto';
 import type { EntityManager } from '@mikro-orm/postgresql';
+import { assertMove, ITEM_TRANSITIONS } from '../../../shared/orders/stages.ts';
+import type { Storage } from '../../adapters/storage.ts';
+import { renderProofImage } from './proof-image.ts';
 import { AppError } from '../../../shared/errors.ts';
 import { NO_CUTOUT, prepSettingsSchema, type PrepSettings, type ProofDecision } from '../../../shared/schemas/prep.ts';
 import { hashToken, newLinkToken } from '../../lib/tokens.ts';
@@ -37,11 +41,17 @@ export async function savePrep(em: EntityManager, studio: Studio, itemId: string
 }
 
 /** Sends the buyer a proof: the mock-up of the current prep, with links to approve or ask for changes. */
-export async function sendProof(em: EntityManager, studio: Studio, itemId: string, user: User, appUrl: string): Promise<OrderItem> {
+export async function sendProof(em: EntityManager, storage: Storage, studio: Studio, itemId: string, user: User, appUrl: string): Promise<OrderItem> {
   const item = await findItem(em, studio, itemId);
+  assertMove('item', ITEM_TRANSITIONS, item.stage, 'proof_sent');
+  // Rendered before anything is written: a proof that cannot be drawn is never sent.
+  const image = await renderProofImage(storage, item, currentPrep(item));
+  const imageKey = `studios/${studio.id}/proofs/${randomUUID()}.png`;
+  await storage.put(imageKey, image, 'image/png');
   const token = newLinkToken();
   moveItem(em, item, 'proof_sent', actorName(user), `Proof sent to the buyer by ${actorName(user)}.`, 'proof_sent');
   item.proofTokenHash = token.hash;
+  item.proofImageKey = imageKey;
   queueEmail(em, { to: item.order.buyerEmail, ...proofMail({ studioName: studio.name, number: item.order.number, buyerName: item.order.buyerName, what: `${item.snapshot.blank.name}, ${item.snapshot.size.label}`, url: `${appUrl}/s/${studio.slug}/proofs/${token.token}` }) });
   await em.flush();
   return item;

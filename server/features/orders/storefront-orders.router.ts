@@ -2,6 +2,7 @@ import { timingSafeEqual } from 'node:crypto';
 import { Router } from 'express';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { AppError } from '../../../shared/errors.ts';
+import type { Storage } from '../../adapters/storage.ts';
 import { formatMoney } from '../../../shared/money.ts';
 import { checkoutInputSchema } from '../../../shared/schemas/checkout.ts';
 import type { Payments } from '../../adapters/payments.ts';
@@ -29,7 +30,7 @@ export const ownsOrder = (user: User | undefined, order: Order) => Boolean(user?
  * the key from its private link (compared as hashes, in constant time) or for its buyer signed in
  * with the same confirmed address, never by id alone.
  */
-export function storefrontOrdersRouter({ orm, env, payments, auth }: { orm: Orm; env: Env; payments: Payments; auth: Auth }): Router {
+export function storefrontOrdersRouter({ orm, env, payments, auth, storage }: { orm: Orm; env: Env; payments: Payments; auth: Auth; storage: Storage }): Router {
   const router = Router();
   const em = () => orm.em as EntityManager;
 
@@ -84,7 +85,15 @@ export function storefrontOrdersRouter({ orm, env, payments, auth }: { orm: Orm;
     const studio = await storefrontStudio(em(), req.params.studioSlug);
     const item = await findProof(em(), studio, req.params.token);
     await em().populate(item.order, ['items', 'items.photo', 'events']);
-    res.set('cache-control', 'no-store').json({ orderNumber: item.order.number, item: orderView(item.order).items.find((i) => i.id === item.id)!, prep: currentPrep(item) });
+    res.set('cache-control', 'no-store').json({ orderNumber: item.order.number, item: orderView(item.order).items.find((i) => i.id === item.id)!, prep: currentPrep(item), imageUrl: `/api/storefront/${studio.slug}/proofs/${encodeURIComponent(req.params.token)}/image` });
+  });
+
+  router.get('/:studioSlug/proofs/:token/image', async (req, res) => {
+    const studio = await storefrontStudio(em(), req.params.studioSlug);
+    const item = await findProof(em(), studio, req.params.token);
+    if (!item.proofImageKey) throw new AppError('NOT_FOUND', 'This proof has no picture.');
+    const object = await storage.get(item.proofImageKey);
+    res.set({ 'content-type': 'image/png', 'cache-control': 'private, no-store' }).end(Buffer.from(object.body));
   });
 
   router.post('/:studioSlug/proofs/:token', async (req, res) => {

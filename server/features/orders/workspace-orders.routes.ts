@@ -81,7 +81,7 @@ export function workspaceOrderRoutes({ orm, env, storage, payments }: { orm: Orm
     {
       method: 'post', path: '/items/:itemId/send-proof', permission: 'order:produce',
       sample: async (f) => ({ params: { itemId: (await f.orderItem({ stage: 'prep' })).itemId } }),
-      handler: async (req, res) => void res.json({ stage: (await sendProof(em(), req.studio!, String(req.params.itemId), req.user!, env.APP_URL)).stage }),
+      handler: async (req, res) => void res.json({ stage: (await sendProof(em(), storage, req.studio!, String(req.params.itemId), req.user!, env.APP_URL)).stage }),
     },
     {
       method: 'post', path: '/items/:itemId/approve-without-proof', permission: 'order:produce',

@@ -7,8 +7,6 @@ import { Button } from '../../../components/ui/button.tsx';
 import { Card, CardTitle } from '../../../components/ui/card.tsx';
 import { TextAreaField } from '../../../components/ui/field.tsx';
 import { Notice } from '../../../components/ui/notice.tsx';
-import { PlacedPhoto } from '../../../features/designer/components/placed-photo.tsx';
-import { prepMockup } from '../../../features/orders/prep-look.ts';
 import { apiFetch } from '../../../lib/api-client.ts';
 
 /** The buyer's proof: how the piece will burn, to approve or to ask for changes (the link works once). */
@@ -24,9 +22,8 @@ export function ProofPage() {
         if (answer.isSuccess) return <Notice title="Thank you!">{(answer.variables as { decision: string }).decision === 'approve' ? `${studio.name} will engrave it as shown.` : `${studio.name} has your note and will send a new proof.`}</Notice>;
         if (proof.isPending) return <p className="text-graphite-500">Opening your proof…</p>;
         if (proof.error) return <Notice tone="error" title="This proof cannot be opened">{proof.error.message}</Notice>;
-        const { item, prep, orderNumber } = proof.data;
+        const { item, orderNumber, imageUrl } = proof.data;
         const width = 420;
-        const mock = prepMockup(item, prep, width);
         return (
           <div className="flex flex-col gap-6">
             <h1 className="text-3xl font-extrabold">Your proof for order {orderNumber}</h1>
@@ -36,7 +33,7 @@ export function ProofPage() {
                   {item.blankName}, {item.sizeLabel}
                 </CardTitle>
                 <div className="inline-flex rounded-lg p-3" style={{ background: item.look.surfaceColour }}>
-                  <PlacedPhoto photo={item.photo} placement={item.placement} look={mock.look} prep={mock.job} size={{ width, height: Math.round((width * item.look.areaHeightMm) / item.look.areaWidthMm) }} view="burn" label="Your proof, as it will burn" />
+                  <img src={imageUrl} alt="Your proof, as it will burn" width={width} height={Math.round((width * item.look.areaHeightMm) / item.look.areaWidthMm)} className="max-w-full" />
                 </div>
                 <p className="mt-2 text-xs text-graphite-500">The dots are drawn at screen size; the laser burns them far finer.</p>
               </Card>
