@@ -47,6 +47,41 @@ export const ITEM_TRANSITIONS: Record<ItemStage, readonly ItemStage[]> = {
   cancelled: [],
 };
 
+/**
+ * What people do to an item, each a move of the machine above from the stages where that action
+ * makes sense: two actions may share a target (approving a photo and reopening prep both lead to
+ * prep) but not their starting points. Payment and cancellation move items too, by the table.
+ */
+export const ITEM_ACTIONS = {
+  approvePhoto: { from: ['photo_review'], to: 'prep' },
+  askNewPhoto: { from: ['photo_review'], to: 'needs_new_photo' },
+  receiveNewPhoto: { from: ['needs_new_photo'], to: 'photo_review' },
+  sendProof: { from: ['prep'], to: 'proof_sent' },
+  approveWithoutProof: { from: ['prep'], to: 'approved' },
+  approveProof: { from: ['proof_sent'], to: 'approved' },
+  requestChanges: { from: ['proof_sent'], to: 'changes_requested' },
+  reopenPrep: { from: ['changes_requested', 'approved'], to: 'prep' },
+  startProduction: { from: ['approved'], to: 'in_production' },
+  takeOutOfBatch: { from: ['in_production'], to: 'approved' },
+  markBurned: { from: ['in_production'], to: 'burned' },
+  ship: { from: ['burned'], to: 'shipped' },
+  handOverAtPickup: { from: ['burned'], to: 'picked_up' },
+} as const satisfies Record<string, { from: readonly ItemStage[]; to: ItemStage }>;
+export type ItemAction = keyof typeof ITEM_ACTIONS;
+
+const words = (stage: string) => stage.replaceAll('_', ' ');
+
+/**
+ * Refuses an action from a stage it does not start from, with 409: the state machine's own
+ * message when the move itself is illegal, otherwise where the action can be done.
+ */
+export function assertItemAction(action: ItemAction, stage: ItemStage): void {
+  const { from, to } = ITEM_ACTIONS[action];
+  if ((from as readonly ItemStage[]).includes(stage)) return;
+  assertMove('item', ITEM_TRANSITIONS, stage, to);
+  throw new AppError('CONFLICT', `This item is ${words(stage)}: that can be done only while it is ${from.map(words).join(' or ')}.`);
+}
+
 /** How the buyer and the studio read each stage. */
 export const ITEM_STAGE_LABELS: Record<ItemStage, string> = {
   unpaid: 'Waiting for payment',

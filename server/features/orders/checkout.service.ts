@@ -38,7 +38,7 @@ export const recipeFor = (em: EntityManager, studio: Studio, blank: Blank) => em
 export async function placeOrder(em: EntityManager, deps: { env: Env; payments: Payments }, studio: Studio, input: CheckoutInput): Promise<{ order: Order; paymentUrl: string; accessKey: string }> {
   const units = studio.units;
   const wanted = new Map<string, number>();
-  const lines: Array<Omit<OrderItem, keyof BaseEntity | 'studio' | 'order' | 'stage' | 'replacementTokenHash' | 'replacementReason' | 'replacementNote' | 'replacements' | 'prepVersions' | 'proofTokenHash' | 'handover' | 'proofImageKey'>> = [];
+  const lines: Array<Omit<OrderItem, keyof BaseEntity | 'studio' | 'order' | 'stage' | 'replacementTokenHash' | 'replacementReason' | 'replacementNote' | 'replacements' | 'prepVersions' | 'proofTokenHash' | 'handover' | 'proofImageKey' | 'position'>> = [];
   for (const [index, item] of input.items.entries()) {
     const at = (field: string) => ['items', index, field];
     const blank = await em.findOne(Blank, { id: item.blankId, studio, status: 'active' }, { populate: ['material', 'sizes'] });
@@ -106,7 +106,7 @@ export async function placeOrder(em: EntityManager, deps: { env: Env; payments: 
       totalMinor: subtotal + shipping,
       accessKeyHash: access.hash,
     });
-    for (const line of lines) tx.create(OrderItem, { ...line, studio, order: created, stage: 'unpaid' });
+    for (const [position, line] of lines.entries()) tx.create(OrderItem, { ...line, position, studio, order: created, stage: 'unpaid' });
     tx.create(OrderEvent, { studio, order: created, type: 'placed', actor: 'buyer', text: `Order placed by ${input.buyer.name}; waiting for payment of ${formatMoney(subtotal + shipping, studio.currency)}.` });
     return created;
   });

@@ -25,10 +25,10 @@ export async function handOver(em: EntityManager, studio: Studio, orderId: strin
   const at = new Date().toISOString();
   for (const item of items) {
     if (input.method === 'ship') {
-      moveItem(em, item!, 'shipped', by, `Shipped with ${input.carrier}, tracking ${input.trackingNumber}, by ${by}.`, 'shipped');
+      moveItem(em, item!, 'ship', by, `Shipped with ${input.carrier}, tracking ${input.trackingNumber}, by ${by}.`, 'shipped');
       item!.handover = { method: 'ship', carrier: input.carrier, trackingNumber: input.trackingNumber, at, by };
     } else {
-      moveItem(em, item!, 'picked_up', by, `Picked up at the studio; handed over by ${by}.`, 'picked_up');
+      moveItem(em, item!, 'handOverAtPickup', by, `Picked up at the studio; handed over by ${by}.`, 'picked_up');
       item!.handover = { method: 'pickup', carrier: null, trackingNumber: null, at, by };
     }
   }

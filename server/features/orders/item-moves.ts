@@ -1,6 +1,6 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { AppError } from '../../../shared/errors.ts';
-import { assertMove, ITEM_TRANSITIONS, type ItemStage } from '../../../shared/orders/stages.ts';
+import { assertItemAction, ITEM_ACTIONS, type ItemAction } from '../../../shared/orders/stages.ts';
 import { isUuid } from '../../lib/tokens.ts';
 import type { User } from '../accounts/user.entity.ts';
 import type { Studio } from '../studios/studio.entity.ts';
@@ -16,9 +16,9 @@ export async function findItem(em: EntityManager, studio: Studio, id: string): P
   return item;
 }
 
-/** Moves an item through the state machine (409 with the allowed moves otherwise) and records who and why. */
-export function moveItem(em: EntityManager, item: OrderItem, to: ItemStage, actor: string, text: string, type: string): void {
-  assertMove('item', ITEM_TRANSITIONS, item.stage, to);
-  item.stage = to;
+/** Moves an item by one of its actions (409 from any other stage) and records who and why. */
+export function moveItem(em: EntityManager, item: OrderItem, action: ItemAction, actor: string, text: string, type: string): void {
+  assertItemAction(action, item.stage);
+  item.stage = ITEM_ACTIONS[action].to;
   em.create(OrderEvent, { studio: item.studio, order: item.order, item, type, actor, text });
 }

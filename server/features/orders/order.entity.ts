@@ -37,16 +37,18 @@ export class Order extends BaseEntity<'refundedMinor'> {
   @Property({ type: 'datetime', nullable: true }) paidAt: Date | null = null;
   /** Something the buyer should know about the order as a whole (a refund after a sell-out…). */
   @Property({ type: 'text', nullable: true }) note: string | null = null;
-  @OneToMany(() => OrderItem, (item) => item.order) items = new Collection<OrderItem>(this);
+  @OneToMany(() => OrderItem, (item) => item.order, { orderBy: { position: 'asc', createdAt: 'asc' } }) items = new Collection<OrderItem>(this);
   @OneToMany(() => OrderEvent, (event) => event.order) events = new Collection<OrderEvent>(this);
 }
 
 @Entity({ tableName: 'order_item' })
 @Filter(tenantFilter)
-export class OrderItem extends BaseEntity<'replacementTokenHash' | 'replacementReason' | 'replacementNote' | 'replacements' | 'prepVersions' | 'proofTokenHash' | 'handover' | 'proofImageKey'> {
+export class OrderItem extends BaseEntity<'replacementTokenHash' | 'replacementReason' | 'replacementNote' | 'replacements' | 'prepVersions' | 'proofTokenHash' | 'handover' | 'proofImageKey' | 'position'> {
   @ManyToOne(() => Studio, { deleteRule: 'cascade' }) studio!: Studio;
   @ManyToOne(() => Order, { deleteRule: 'cascade' }) order!: Order;
   @Enum({ items: [...ITEM_STAGES], type: 'string' }) stage!: ItemStage;
+  /** Where the item stood in the cart: items are listed, and numbered on job sheets, in this order. */
+  @Property({ type: 'integer' }) position: number = 0;
   /** For stock only; everything shown comes from the snapshot. */
   @ManyToOne(() => BlankSize, { nullable: true, deleteRule: 'set null' }) size!: BlankSize | null;
   @Property({ type: 'json' }) snapshot!: ReturnType<typeof snapshotForOrder>;

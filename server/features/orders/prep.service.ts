@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { assertMove, ITEM_TRANSITIONS } from '../../../shared/orders/stages.ts';
+import { assertItemAction } from '../../../shared/orders/stages.ts';
 import type { Storage } from '../../adapters/storage.ts';
 import { renderProofImage } from './proof-image.ts';
 import { AppError } from '../../../shared/errors.ts';
@@ -43,13 +43,13 @@ export async function savePrep(em: EntityManager, studio: Studio, itemId: string
 /** Sends the buyer a proof: the mock-up of the current prep, with links to approve or ask for changes. */
 export async function sendProof(em: EntityManager, storage: Storage, studio: Studio, itemId: string, user: User, appUrl: string): Promise<OrderItem> {
   const item = await findItem(em, studio, itemId);
-  assertMove('item', ITEM_TRANSITIONS, item.stage, 'proof_sent');
+  assertItemAction('sendProof', item.stage);
   // Rendered before anything is written: a proof that cannot be drawn is never sent.
   const image = await renderProofImage(storage, item, currentPrep(item));
   const imageKey = `studios/${studio.id}/proofs/${randomUUID()}.png`;
   await storage.put(imageKey, image, 'image/png');
   const token = newLinkToken();
-  moveItem(em, item, 'proof_sent', actorName(user), `Proof sent to the buyer by ${actorName(user)}.`, 'proof_sent');
+  moveItem(em, item, 'sendProof', actorName(user), `Proof sent to the buyer by ${actorName(user)}.`, 'proof_sent');
   item.proofTokenHash = token.hash;
   item.proofImageKey = imageKey;
   queueEmail(em, { to: item.order.buyerEmail, ...proofMail({ studioName: studio.name, number: item.order.number, buyerName: item.order.buyerName, what: `${item.snapshot.blank.name}, ${item.snapshot.size.label}`, url: `${appUrl}/s/${studio.slug}/proofs/${token.token}` }) });
@@ -61,7 +61,7 @@ export async function sendProof(em: EntityManager, storage: Storage, studio: Stu
 export async function approveWithoutProof(em: EntityManager, studio: Studio, itemId: string, user: User): Promise<OrderItem> {
   const item = await findItem(em, studio, itemId);
   if (studio.proofsRequired) throw new AppError('CONFLICT', 'This studio sends every buyer a proof before engraving. Send a proof, or change that in Settings.');
-  moveItem(em, item, 'approved', actorName(user), `Approved for engraving without a proof by ${actorName(user)}.`, 'approved');
+  moveItem(em, item, 'approveWithoutProof', actorName(user), `Approved for engraving without a proof by ${actorName(user)}.`, 'approved');
   await em.flush();
   return item;
 }
@@ -76,8 +76,8 @@ export async function findProof(em: EntityManager, studio: Studio, token: string
 export async function answerProof(em: EntityManager, studio: Studio, token: string, decision: ProofDecision): Promise<OrderItem> {
   const item = await findProof(em, studio, token);
   item.proofTokenHash = null;
-  if (decision.decision === 'approve') moveItem(em, item, 'approved', 'buyer', 'The buyer approved the proof.', 'proof_approved');
-  else moveItem(em, item, 'changes_requested', 'buyer', `The buyer asked for changes: “${decision.message}”`, 'changes_requested');
+  if (decision.decision === 'approve') moveItem(em, item, 'approveProof', 'buyer', 'The buyer approved the proof.', 'proof_approved');
+  else moveItem(em, item, 'requestChanges', 'buyer', `The buyer asked for changes: “${decision.message}”`, 'changes_requested');
   await em.flush();
   return item;
 }
@@ -85,7 +85,7 @@ export async function answerProof(em: EntityManager, studio: Studio, token: stri
 /** After a change request, back to prep. */
 export async function reopenPrep(em: EntityManager, studio: Studio, itemId: string, user: User): Promise<OrderItem> {
   const item = await findItem(em, studio, itemId);
-  moveItem(em, item, 'prep', actorName(user), `Back to prep, by ${actorName(user)}.`, 'prep_reopened');
+  moveItem(em, item, 'reopenPrep', actorName(user), `Back to prep, by ${actorName(user)}.`, 'prep_reopened');
   await em.flush();
   return item;
 }

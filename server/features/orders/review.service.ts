@@ -91,7 +91,7 @@ export async function reviewQueue(em: EntityManager, studio: Studio): Promise<Re
 
 export async function approvePhoto(em: EntityManager, studio: Studio, itemId: string, user: User): Promise<OrderItem> {
   const item = await findItem(em, studio, itemId);
-  moveItem(em, item, 'prep', actorName(user), `Photo for ${item.snapshot.blank.name}, ${item.snapshot.size.label} approved by ${actorName(user)}.`, 'photo_approved');
+  moveItem(em, item, 'approvePhoto', actorName(user), `Photo for ${item.snapshot.blank.name}, ${item.snapshot.size.label} approved by ${actorName(user)}.`, 'photo_approved');
   await em.flush();
   return item;
 }
@@ -103,7 +103,7 @@ export async function approvePhoto(em: EntityManager, studio: Studio, itemId: st
 export async function askNewPhoto(em: EntityManager, studio: Studio, itemId: string, user: User, input: { reason: ReviewReason; note: string }, appUrl: string): Promise<OrderItem> {
   const item = await findItem(em, studio, itemId);
   const token = newLinkToken();
-  moveItem(em, item, 'needs_new_photo', actorName(user), `New photo asked for by ${actorName(user)}: ${REVIEW_REASONS[input.reason].toLowerCase()}${input.note ? ` (“${input.note}”)` : ''}.`, 'new_photo_asked');
+  moveItem(em, item, 'askNewPhoto', actorName(user), `New photo asked for by ${actorName(user)}: ${REVIEW_REASONS[input.reason].toLowerCase()}${input.note ? ` (“${input.note}”)` : ''}.`, 'new_photo_asked');
   Object.assign(item, { replacementTokenHash: token.hash, replacementReason: input.reason, replacementNote: input.note });
   queueEmail(em, {
     to: item.order.buyerEmail,
@@ -135,7 +135,7 @@ export async function submitReplacement(em: EntityManager, studio: Studio, token
   const look = lookOf(item);
   const ppi = effectivePpi(input.placement.crop, { widthMm: look.areaWidthMm, heightMm: look.areaHeightMm });
   Object.assign(item, { photo, placement: input.placement, effectivePpi: Math.floor(ppi), replacementTokenHash: null, replacements: item.replacements + 1 });
-  moveItem(em, item, 'photo_review', 'buyer', `The buyer sent a new photo (${Math.floor(ppi)} pixels per inch at the size): ${ITEM_STAGE_LABELS.photo_review.toLowerCase()}.`, 'new_photo_received');
+  moveItem(em, item, 'receiveNewPhoto', 'buyer', `The buyer sent a new photo (${Math.floor(ppi)} pixels per inch at the size): ${ITEM_STAGE_LABELS.photo_review.toLowerCase()}.`, 'new_photo_received');
   await em.flush();
   return item;
 }

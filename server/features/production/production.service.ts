@@ -94,7 +94,7 @@ export async function createBatch(em: EntityManager, jobs: Jobs, studio: Studio,
     const made: Render[] = [];
     for (const item of items) {
       const managed = tx.merge(item);
-      moveItem(tx, managed, 'in_production', actorName(user), `Into production in batch ${batch.number}, by ${actorName(user)}.`, 'in_production');
+      moveItem(tx, managed, 'startProduction', actorName(user), `Into production in batch ${batch.number}, by ${actorName(user)}.`, 'in_production');
       made.push(tx.create(Render, { studio, item: managed, batch, status: 'queued', keyPrefix: `studios/${studio.id}/renders/${randomUUID()}`, prepVersion: managed.prepVersions.at(-1)?.version ?? 0 }));
     }
     return { batch, made };
@@ -178,7 +178,7 @@ export async function markBurned(em: EntityManager, studio: Studio, itemId: stri
   const item = await findItem(em, studio, itemId);
   const render = await em.findOne(Render, { item, studio });
   if (item.stage === 'in_production' && render?.status !== 'done') throw new AppError('CONFLICT', 'Render the files before marking the item burned.');
-  moveItem(em, item, 'burned', actorName(user), `Burned; marked by ${actorName(user)}.`, 'burned');
+  moveItem(em, item, 'markBurned', actorName(user), `Burned; marked by ${actorName(user)}.`, 'burned');
   await em.flush();
   return item;
 }
@@ -187,7 +187,7 @@ export async function markBurned(em: EntityManager, studio: Studio, itemId: stri
 export async function takeOutOfBatch(em: EntityManager, storage: Storage, studio: Studio, itemId: string, user: User): Promise<OrderItem> {
   const item = await findItem(em, studio, itemId);
   const render = await em.findOne(Render, { item, studio }, { populate: ['batch'] });
-  moveItem(em, item, 'approved', actorName(user), `Taken out of ${render ? `batch ${render.batch.number}` : 'production'} by ${actorName(user)}; waiting for a new batch.`, 'out_of_batch');
+  moveItem(em, item, 'takeOutOfBatch', actorName(user), `Taken out of ${render ? `batch ${render.batch.number}` : 'production'} by ${actorName(user)}; waiting for a new batch.`, 'out_of_batch');
   if (render) em.remove(render);
   await em.flush();
   if (render) await Promise.all(Object.values(renderKeys(render.keyPrefix)).map((key) => storage.remove(key)));

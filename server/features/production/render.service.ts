@@ -107,7 +107,7 @@ function jobSheetFor(input: { studio: Studio; batch: ProductionBatch; item: Orde
   const area = orientedArea(snapshot.size, item.orientation);
   const machine = batch.machine;
   const seconds = burnSecondsFor(item, prep, machine);
-  const index = order.items.getItems().sort((a, b) => a.createdAt.getTime() - b.createdAt.getTime() || a.id.localeCompare(b.id)).findIndex((i) => i.id === item.id) + 1;
+  const index = order.items.getItems().sort((a, b) => a.position - b.position || a.createdAt.getTime() - b.createdAt.getTime()).findIndex((i) => i.id === item.id) + 1;
   const rows: Array<[string, string | null]> = [
     ['Order', null],
     ['Buyer', order.buyerName],

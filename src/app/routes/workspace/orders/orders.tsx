@@ -9,6 +9,7 @@ import { Notice } from '../../../../components/ui/notice.tsx';
 import { Table, TBody, TD, TH, THead, TR } from '../../../../components/ui/table.tsx';
 import { TextField } from '../../../../components/ui/text-field.tsx';
 import { useOrderList } from '../../../../features/orders/api/orders.ts';
+import { useMaterials } from '../../../../features/catalog/api/catalog.ts';
 import { useDebounced } from '../../../../lib/use-debounced.ts';
 
 export function OrdersPage() {
@@ -21,6 +22,7 @@ function Orders({ slug }: { slug: string }) {
   const [filters, setFilters] = useState<Omit<OrderListQuery, 'search'>>({ sort: 'newest', page: 1, pageSize: 25 });
   const query = { ...filters, search: useDebounced(search, 250) };
   const orders = useOrderList(slug, query);
+  const materials = useMaterials(slug);
   const set = (change: Partial<OrderListQuery>) => setFilters((f) => ({ ...f, page: 1, ...change }));
   const pages = orders.data ? Math.max(1, Math.ceil(orders.data.total / orders.data.pageSize)) : 1;
   const page = Number(filters.page ?? 1);
@@ -28,8 +30,9 @@ function Orders({ slug }: { slug: string }) {
   return (
     <div className="flex flex-col gap-6">
       <h1 className="text-3xl font-extrabold">Orders</h1>
-      <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-6">
+      <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-7">
         <TextField label="Search" type="search" placeholder="Number, e-mail or name" value={search} onChange={(e) => { setSearch(e.target.value); set({}); }} className="lg:col-span-2" />
+        <SelectField label="Material" placeholder="Any material" options={(materials.data?.materials ?? []).map((m) => ({ value: m.name, label: m.name }))} value={filters.material ?? ''} onChange={(e) => set({ material: e.target.value || undefined })} />
         <SelectField label="Stage" placeholder="Any stage" options={ITEM_STAGES.map((s) => ({ value: s, label: ITEM_STAGE_LABELS[s] }))} value={filters.stage ?? ''} onChange={(e) => set({ stage: (e.target.value || undefined) as OrderListQuery['stage'] })} />
         <SelectField label="Payment" placeholder="Any" options={ORDER_STATUSES.map((s) => ({ value: s, label: ORDER_STATUS_LABELS[s] }))} value={filters.status ?? ''} onChange={(e) => set({ status: (e.target.value || undefined) as OrderListQuery['status'] })} />
         <TextField label="From" type="date" value={filters.from ?? ''} onChange={(e) => set({ from: e.target.value || undefined })} />
