@@ -166,7 +166,8 @@ describe('photo review: asking the buyer for a better photo', () => {
     await staff.page.waitForTimeout(500);
     await shot(staff.page, 'item-prep');
     await staff.page.getByRole('button', { name: 'Send proof to the buyer' }).click();
-    await expect.poll(() => staff.page.getByText('Proof sent', { exact: true }).count()).toBe(1);
+    // The server draws the proof from the original photo before sending it.
+    await expect.poll(() => staff.page.getByText('Proof sent', { exact: true }).count(), { timeout: 20_000 }).toBe(1);
 
     const proofMail = await eventually(async () => {
       const newest = await mail.latestTo('june@buyers.test');

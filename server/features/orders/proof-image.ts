@@ -6,6 +6,7 @@ import { pipelineSettings } from '../../../shared/orders/prep-pipeline.ts';
 import type { PrepSettings } from '../../../shared/schemas/prep.ts';
 import type { Storage } from '../../adapters/storage.ts';
 import { placePhoto } from '../../imaging/placement.ts';
+import { burnInscription, inscriptionCoverage } from '../../imaging/inscription.ts';
 import type { OrderItem } from './order.entity.ts';
 
 /** The proof's width in pixels: a screen's worth, far coarser than the burn. */
@@ -24,7 +25,7 @@ export async function renderProofImage(storage: Storage, item: OrderItem, prep: 
   const original = await storage.get(item.photo.originalKey);
   const placed = await placePhoto(Buffer.from(original.body), item.placement, area, proofLinesPerInch);
   const scaled = { ...prep, sharpenRadius: Math.max(0.5, prep.sharpenRadius * scale), featherRadius: prep.featherRadius * scale, linesPerInch: Math.round(proofLinesPerInch) };
-  const bitmap = renderBitmap(placed, pipelineSettings(scaled, placed));
+  const bitmap = burnInscription(renderBitmap(placed, pipelineSettings(scaled, placed)), await inscriptionCoverage(item.inscription, placed.width, placed.height));
   const { blank } = item.snapshot;
   const mock = renderMockup({ bitmap, shape: blank.shape, surfaceColour: blank.material.surfaceColour, markColour: blank.material.markColour });
   return sharp(Buffer.from(mock.data.buffer, mock.data.byteOffset, mock.data.length), { raw: { width: mock.width, height: mock.height, channels: 4 } }).png({ compressionLevel: 8 }).toBuffer();

@@ -58,6 +58,7 @@ export async function jobSheetPdf(sheet: JobSheet): Promise<Buffer> {
   const scale = Math.min(170 / pw, 220 / ph);
   doc.image(sheet.preview, left, top, { width: pw * scale, height: ph * scale });
   doc.rect(left, top, pw * scale, ph * scale).lineWidth(0.5).strokeColor('#cfc6bb').stroke();
+  doc.font('regular').fontSize(7).fillColor(MUTED).text('The engrave file as sent to the machine: black dots fire the laser.', left, top + ph * scale + 4, { width: 170 });
   let y = top;
   const labelX = left + 190;
   const valueX = labelX + 120;

@@ -17,6 +17,7 @@ import { TENANT_FILTER } from '../../db/tenant.ts';
 import { encodeGrayscaleMaster } from '../../imaging/grayscale-master.ts';
 import { placePhoto } from '../../imaging/placement.ts';
 import { encodeBitmapPng } from '../../imaging/png-1bit.ts';
+import { burnInscription, inscribeMaster, inscriptionCoverage } from '../../imaging/inscription.ts';
 import { OrderEvent, type OrderItem } from '../orders/order.entity.ts';
 import { currentPrep } from '../orders/prep.service.ts';
 import type { Studio } from '../studios/studio.entity.ts';
@@ -67,11 +68,14 @@ export async function runRender({ orm, storage, env, logger }: RenderDeps, rende
     const placed = await placePhoto(Buffer.from(original.body), item.placement, area, prep.linesPerInch);
     await report(30, 'Halftoning');
     const settings = pipelineSettings(prep, placed);
-    const bitmap = renderBitmap(placed, settings);
+    const lettering = await inscriptionCoverage(item.inscription, placed.width, placed.height);
+    const bitmap = burnInscription(renderBitmap(placed, settings), lettering);
     const engrave = encodeBitmapPng(bitmap, prep.linesPerInch);
     await storage.put(keys.engrave, engrave, 'image/png');
     await report(55, 'Making the grayscale master');
-    const master = await encodeGrayscaleMaster(prepareMaster(placed, settings), prep.linesPerInch);
+    const prepared = prepareMaster(placed, settings);
+    inscribeMaster(prepared, lettering);
+    const master = await encodeGrayscaleMaster(prepared, prep.linesPerInch);
     await storage.put(keys.master, master, 'image/png');
     await report(80, 'Writing the job sheet');
     const preview = await sharp(engrave).resize({ width: 340, height: 440, fit: 'inside', kernel: 'lanczos3' }).png().toBuffer();
@@ -118,7 +122,7 @@ function jobSheetFor(input: { studio: Studio; batch: ProductionBatch; item: Orde
     ['Material', snapshot.blank.material.name],
     ['Size', snapshot.size.label],
     ['Engraving area', `${formatSize(area.widthMm, area.heightMm, 'mm')} (${formatSize(area.widthMm, area.heightMm, 'in')}), ${item.orientation}`],
-    ['Inscription', item.inscription ? item.inscription.lines.filter(Boolean).join(' / ') || 'none' : 'none'],
+    ['Inscription', item.inscription ? `“${item.inscription.lines.filter(Boolean).join(' / ')}”, in the engrave file` : 'none'],
     ['Machine', null],
     ...(machine
       ? ([

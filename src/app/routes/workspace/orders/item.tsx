@@ -180,7 +180,7 @@ function StaffItem({ slug, itemId, canProduce, proofsRequired }: { slug: string;
                   Save settings
                 </Button>
               )}
-              {allowedMoves.includes('proof_sent') && <Button onClick={() => act.mutate({ path: '/send-proof', done: 'Proof sent; the buyer has an e-mail.' })}>Send proof to the buyer</Button>}
+              {allowedMoves.includes('proof_sent') && <Button busy={act.isPending && act.variables?.path === '/send-proof'} onClick={() => act.mutate({ path: '/send-proof', done: 'Proof sent; the buyer has an e-mail.' })}>Send proof to the buyer</Button>}
               {allowedMoves.includes('approved') && view_.stage === 'prep' && !proofsRequired && (
                 <Button variant="secondary" onClick={() => act.mutate({ path: '/approve-without-proof', done: 'Approved for engraving.' })}>
                   Approve without a proof
