@@ -24,8 +24,10 @@ export async function acceptBuyerPhoto(em: EntityManager, storage: Storage, stud
   let made;
   try {
     made = await makePhotoDerivatives(bytes);
-  } finally {
-    await storage.remove(key);
+  } catch (error) {
+    // Not a photo we can use: the upload goes, and the buyer hears why.
+    await storage.remove(key).catch(() => undefined);
+    throw error;
   }
   const photo = em.create(BuyerPhoto, {
     studio,
@@ -42,12 +44,22 @@ export async function acceptBuyerPhoto(em: EntityManager, storage: Storage, stud
   });
   const base = `studios/${studio.id}/buyer-photos/${photo.id}`;
   Object.assign(photo, { originalKey: `${base}/original`, previewKey: `${base}/preview.webp`, thumbKey: `${base}/thumb.webp` });
-  await Promise.all([
-    storage.put(photo.originalKey, bytes, `image/${made.facts.format}`),
-    storage.put(photo.previewKey, made.preview.data, 'image/webp'),
-    storage.put(photo.thumbKey, made.thumb, 'image/webp'),
-  ]);
-  await em.flush();
+  const stored = [photo.originalKey, photo.previewKey, photo.thumbKey];
+  try {
+    await Promise.all([
+      storage.put(photo.originalKey, bytes, `image/${made.facts.format}`),
+      storage.put(photo.previewKey, made.preview.data, 'image/webp'),
+      storage.put(photo.thumbKey, made.thumb, 'image/webp'),
+    ]);
+    await em.flush();
+  } catch (error) {
+    // Nothing half-stored: no row, no stray copies; the upload stays for another try.
+    em.remove(photo);
+    await Promise.all(stored.map((k) => storage.remove(k).catch(() => undefined)));
+    throw error;
+  }
+  // The upload has been copied into place; only now is it let go.
+  await storage.remove(key).catch(() => undefined);
   return photo;
 }
 
