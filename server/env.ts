@@ -55,6 +55,8 @@ const envSchema = z.object({
   PROCESS_ROLE: z.enum(['all', 'web', 'worker']).default('all'),
   /** A render still running after this long is taken for dead and handed to another worker. */
   RENDER_TIMEOUT_SECONDS: z.coerce.number().int().min(2).max(3600).default(900),
+  /** The first wait before an e-mail that could not be sent is tried again; it doubles each time, up to an hour. */
+  OUTBOX_RETRY_SECONDS: z.coerce.number().int().min(1).max(3600).default(30),
   /** How often the job queue looks for timed-out jobs. */
   JOBS_MAINTENANCE_SECONDS: z.coerce.number().int().min(1).max(3600).default(30),
 }).superRefine((env, ctx) => {

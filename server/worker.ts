@@ -14,7 +14,7 @@ import { runRender } from './features/production/render.service.ts';
  */
 export async function startWorker(deps: { env: Env; orm: Orm; logger: Logger; storage: Storage; jobs: Jobs; mailer: Mailer; outboxIntervalMs?: number }): Promise<{ stop(): Promise<void> }> {
   const { jobs, logger } = deps;
-  const outbox = startOutboxSender(deps.orm, deps.mailer, logger, deps.outboxIntervalMs);
+  const outbox = startOutboxSender(deps.orm, deps.mailer, logger, deps.outboxIntervalMs, deps.env.OUTBOX_RETRY_SECONDS);
   await jobs.work<{ renderId: string }>(QUEUES.render, async ({ renderId }, job) => {
     logger.info({ renderId, jobId: job.id, retryCount: job.retryCount }, 'render started');
     await runRender(deps, renderId, { retryCount: job.retryCount, retryLimit: job.retryLimit });

@@ -39,7 +39,7 @@ export async function buildTestApp(
   // As in the server: e-mails go out through the outbox, here checked often; renders are
   // worked in this process only when the test asks (a test may bring worker processes of its own).
   const mailer = createMailer(env);
-  const outbox = worker ? await startWorker({ env, orm, logger, storage, jobs, mailer, outboxIntervalMs: 100 }) : startOutboxSender(orm, mailer, logger, 100);
+  const outbox = worker ? await startWorker({ env, orm, logger, storage, jobs, mailer, outboxIntervalMs: 100 }) : startOutboxSender(orm, mailer, logger, 100, env.OUTBOX_RETRY_SECONDS);
   return {
     app,
     orm,

@@ -11,14 +11,14 @@ export function queueEmail(em: EntityManager, mail: OutgoingMail): OutboxEmail {
 }
 
 const MAX_ATTEMPTS = 12;
-/** 30 s, 1 min, 2 min … capped at 1 h: about a day of retries in all. */
-const backoffMs = (attempts: number) => Math.min(30_000 * 2 ** (attempts - 1), 3_600_000);
+/** With the default 30 s: 30 s, 1 min, 2 min … capped at 1 h, about a day of retries in all. */
+const backoffMs = (attempts: number, firstSeconds: number) => Math.min(firstSeconds * 1000 * 2 ** (attempts - 1), 3_600_000);
 
 /**
  * Sends the e-mails that are due, a batch at a time. Rows are claimed with SKIP LOCKED, so any
  * number of processes may run this side by side without sending anything twice.
  */
-export async function deliverDueEmails(orm: Orm, mailer: Mailer, logger: Logger, batch = 20): Promise<number> {
+export async function deliverDueEmails(orm: Orm, mailer: Mailer, logger: Logger, { batch = 20, retrySeconds = 30 }: { batch?: number; retrySeconds?: number } = {}): Promise<number> {
   let sent = 0;
   await orm.em.fork().transactional(async (tx) => {
     const due = await tx.find(
@@ -37,7 +37,7 @@ export async function deliverDueEmails(orm: Orm, mailer: Mailer, logger: Logger,
       } catch (error) {
         mail.lastError = (error as Error).message.slice(0, 500);
         if (mail.attempts >= MAX_ATTEMPTS) mail.status = 'failed';
-        else mail.nextAttemptAt = new Date(Date.now() + backoffMs(mail.attempts));
+        else mail.nextAttemptAt = new Date(Date.now() + backoffMs(mail.attempts, retrySeconds));
         logger.warn({ outboxId: mail.id, attempts: mail.attempts, err: error }, 'e-mail not sent yet; will retry');
       }
     }
@@ -46,11 +46,11 @@ export async function deliverDueEmails(orm: Orm, mailer: Mailer, logger: Logger,
 }
 
 /** Runs the sender every `intervalMs` until stopped. */
-export function startOutboxSender(orm: Orm, mailer: Mailer, logger: Logger, intervalMs = 1000): { stop(): Promise<void> } {
+export function startOutboxSender(orm: Orm, mailer: Mailer, logger: Logger, intervalMs = 1000, retrySeconds = 30): { stop(): Promise<void> } {
   let running: Promise<unknown> = Promise.resolve();
   let stopped = false;
   const timer = setInterval(() => {
-    running = running.then(() => (stopped ? 0 : deliverDueEmails(orm, mailer, logger).catch((error) => logger.error({ err: error }, 'outbox sender failed'))));
+    running = running.then(() => (stopped ? 0 : deliverDueEmails(orm, mailer, logger, { retrySeconds }).catch((error) => logger.error({ err: error }, 'outbox sender failed'))));
   }, intervalMs);
   return {
     async stop() {
