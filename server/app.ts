@@ -9,6 +9,7 @@ import type { Env } from './env.ts';
 import type { Logger } from './logger.ts';
 import type { Orm } from './db/orm.ts';
 import { apiNotFound, errorHandler } from './middleware/error-handler.ts';
+import { sameOriginMutations } from './middleware/same-origin.ts';
 import type { Auth } from './auth/auth.ts';
 import type { Storage } from './adapters/storage.ts';
 import type { Payments } from './adapters/payments.ts';
@@ -93,6 +94,7 @@ export function createApp(deps: AppDeps): Express {
   );
   // The payment provider's signature covers the raw body: this route reads it before any parser.
   app.use('/api/payments/webhook', paymentsWebhookRouter(deps));
+  app.use('/api', sameOriginMutations(env.APP_URL));
   app.use('/api', express.json({ limit: env.JSON_BODY_LIMIT }));
   // Each request gets its own identity map, so entities never leak between requests.
   app.use((_req, _res, next) => RequestContext.create(orm.em, next));
