@@ -6,7 +6,7 @@ import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import { RequestContext } from '@mikro-orm/core';
 import type { Env } from './env.ts';
-import type { Logger } from './logger.ts';
+import { loggableUrl, type Logger } from './logger.ts';
 import type { Orm } from './db/orm.ts';
 import { apiNotFound, errorHandler } from './middleware/error-handler.ts';
 import { sameOriginMutations } from './middleware/same-origin.ts';
@@ -86,7 +86,7 @@ export function createApp(deps: AppDeps): Express {
       },
       // One short line per request: no headers (cookies, keys) in the log.
       serializers: {
-        req: (req: { id: string; method: string; url: string }) => ({ id: req.id, method: req.method, url: req.url }),
+        req: (req: { id: string; method: string; url: string }) => ({ id: req.id, method: req.method, url: loggableUrl(req.url) }),
         res: (res: { statusCode: number }) => ({ status: res.statusCode }),
       },
       customLogLevel: (_req, res, error) => (error || res.statusCode >= 500 ? 'error' : 'info'),

@@ -3,6 +3,7 @@ import type { Express } from 'express';
 import { createApp } from '../../server/app.ts';
 import { loadEnv, type Env } from '../../server/env.ts';
 import { createLogger } from '../../server/logger.ts';
+import type { DestinationStream } from 'pino';
 import { initOrm, type Orm } from '../../server/db/orm.ts';
 import { createTestDatabase } from './test-database.ts';
 import { createMailer } from '../../server/adapters/mailer.ts';
@@ -21,7 +22,7 @@ export type TestApp = { app: Express; orm: Orm; env: Env; databaseUrl: string; a
  */
 export async function buildTestApp(
   overrides: Record<string, string> = {},
-  { databasePort, worker = false }: { databasePort?: number; worker?: boolean } = {},
+  { databasePort, worker = false, logDestination }: { databasePort?: number; worker?: boolean; logDestination?: DestinationStream } = {},
 ): Promise<TestApp & { close(): Promise<void> }> {
   const database = await createTestDatabase();
   const url = new URL(database.url);
@@ -30,7 +31,7 @@ export async function buildTestApp(
   const services = Object.fromEntries(['S3_ENDPOINT', 'STRIPE_API_URL', 'SMTP_URL'].flatMap((name) => (process.env[name] ? [[name, process.env[name]!]] : [])));
   const env = loadEnv({ ...services, NODE_ENV: 'test', LOG_LEVEL: process.env.TEST_LOG_LEVEL ?? 'silent', DATABASE_URL: url.toString(), CLIENT_DIST: 'dist', ...overrides });
   const orm = await initOrm(env.DATABASE_URL);
-  const logger = createLogger(env);
+  const logger = createLogger(env, logDestination);
   const auth = createAuth({ orm, env, logger });
   const storage = createStorage(env);
   const payments = createPayments(env);
