@@ -151,6 +151,32 @@ describe('checkout and payment', () => {
     expect(released.items.getItems().map((i) => i.stage)).toEqual(['cancelled']);
   });
 
+  it('refunds a payment that arrives after its order lapsed (events out of order), once', async () => {
+    const res = await checkout([item(small)]).expect(201);
+    const order = await orderOf(res.body.orderId);
+    const session = await t.payments.stripe.checkout.sessions.retrieve(order.checkoutSessionId!);
+    await signedWebhook({ id: 'evt_expiry_first_3', object: 'event', type: 'checkout.session.expired', data: { object: { ...session, status: 'expired' } } }).expect(200);
+    const stockBefore = (await scoped().findOneOrFail(BlankSize, { id: small.id })).stock;
+    // The payment's own event comes after the expiry.
+    await payments.pay(res.body.paymentUrl);
+    const lapsed = await eventually(async () => {
+      const now = await orderOf(order.id);
+      return now.refundedMinor ? now : undefined;
+    });
+    expect(lapsed.status).toBe('cancelled');
+    expect(lapsed.refundedMinor).toBe(lapsed.totalMinor);
+    expect(lapsed.note).toMatch(/arrived after this order had lapsed, so it was refunded in full/);
+    // The provider's own record: one charge.refunded event for this payment, for the whole amount.
+    const refundsOf = async () => (await t.payments.stripe.events.list({ type: 'charge.refunded' })).data.map((e) => e.data.object as Stripe.Charge).filter((c) => c.payment_intent === lapsed.paymentIntentId);
+    expect((await refundsOf()).map((c) => c.amount_refunded)).toEqual([lapsed.totalMinor]);
+    // Delivered again: still one refund, no stock taken, nothing paid.
+    const events = await t.payments.stripe.events.list({ type: 'checkout.session.completed' });
+    await payments.redeliver(events.data.find((e) => (e.data.object as Stripe.Checkout.Session).id === session.id)!.id);
+    expect(await refundsOf()).toHaveLength(1);
+    expect((await orderOf(order.id)).events.getItems().filter((e) => e.type === 'late_payment_refunded')).toHaveLength(1);
+    expect((await scoped().findOneOrFail(BlankSize, { id: small.id })).stock).toBe(stockBefore);
+  });
+
   it('leaves the order unpaid after a declined card, and records the attempt', async () => {
     const res = await checkout([item(small)]).expect(201);
     expect(await payments.pay(res.body.paymentUrl, '4000 0000 0000 0002')).toBe(402); // the documented generic decline card

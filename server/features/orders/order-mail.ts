@@ -76,3 +76,12 @@ export function handedOverMail(input: { studioName: string; number: number; buye
     html: `<p>Hello ${escapeHtml(input.buyerName)},</p><p>Your ${escapeHtml(input.what.join(', '))} from ${escapeHtml(input.studioName)} ${escapeHtml(how)}.</p><p>${escapeHtml(rest)}</p><p>Your order page (the link in your first e-mail) shows this too.</p>`,
   };
 }
+
+/** To the buyer when money arrived for an order that had already lapsed: refunded, order again. */
+export function latePaymentMail(input: { studioName: string; number: number; buyerName: string; total: string }) {
+  return {
+    subject: `Order ${input.number} at ${input.studioName}: payment refunded`,
+    text: `Hello ${input.buyerName},\n\nYour payment of ${input.total} for order ${input.number} reached ${input.studioName} after the order had lapsed, so it has been refunded in full; it shows on your statement within a few days.\n\nYou are welcome to place the order again.`,
+    html: `<p>Hello ${escapeHtml(input.buyerName)},</p><p>Your payment of ${escapeHtml(input.total)} for order ${input.number} reached ${escapeHtml(input.studioName)} after the order had lapsed, so it has been refunded in full; it shows on your statement within a few days.</p><p>You are welcome to place the order again.</p>`,
+  };
+}

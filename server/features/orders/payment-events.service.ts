@@ -11,7 +11,7 @@ import { TENANT_FILTER } from '../../db/tenant.ts';
 import { BlankSize } from '../catalog/catalog.entity.ts';
 import { queueEmail } from '../outbox/outbox.service.ts';
 import { Membership } from '../team/membership.entity.ts';
-import { newOrderMail, orderReceivedMail, soldOutMail } from './order-mail.ts';
+import { latePaymentMail, newOrderMail, orderReceivedMail, soldOutMail } from './order-mail.ts';
 import { Order, OrderEvent } from './order.entity.ts';
 
 export type EventOutcome = 'handled' | 'duplicate' | 'ignored';
@@ -45,9 +45,28 @@ async function orderFor(em: EntityManager, orderId: string | undefined): Promise
   return order;
 }
 
+/**
+ * A payment that arrives after its order had lapsed (its session's expiry was handled first, or
+ * the events came out of order): the stock is no longer held, so the money goes back in full and
+ * the buyer is told. Acted on once, like every event.
+ */
+async function latePayment(em: EntityManager, deps: { payments: Payments }, order: Order, session: Stripe.Checkout.Session): Promise<EventOutcome> {
+  const paymentIntentId = typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
+  if (!paymentIntentId) return 'ignored';
+  await deps.payments.stripe.refunds.create({ payment_intent: paymentIntentId, reason: 'requested_by_customer', metadata: { orderId: order.id } }, { idempotencyKey: `late-payment-${order.id}` });
+  const total = formatMoney(order.totalMinor, order.currency);
+  order.paymentIntentId = paymentIntentId;
+  order.refundedMinor = order.totalMinor;
+  order.note = `Your payment of ${total} arrived after this order had lapsed, so it was refunded in full. Please order again.`;
+  em.create(OrderEvent, { studio: order.studio, order, type: 'late_payment_refunded', actor: 'payments', text: `A payment of ${total} arrived after the order had lapsed: refunded in full.` });
+  queueEmail(em, { to: order.buyerEmail, ...latePaymentMail({ studioName: order.studio.name, number: order.number, buyerName: order.buyerName, total }) });
+  return 'handled';
+}
+
 async function sessionCompleted(em: EntityManager, deps: { payments: Payments; env: Env }, session: Stripe.Checkout.Session): Promise<EventOutcome> {
   const order = await orderFor(em, session.metadata?.orderId);
   if (!order || order.checkoutSessionId !== session.id || session.payment_status !== 'paid') return 'ignored';
+  if (order.status === 'cancelled' && !order.paymentIntentId) return latePayment(em, deps, order, session);
   if (order.status !== 'awaiting_payment') return 'ignored';
   const studio = order.studio;
   await em.populate(order, ['items']);
