@@ -266,7 +266,34 @@ describe('checkout and payment', () => {
     await other.get(`${base}/orders/${res.body.orderId}`).expect(404);
   });
 
+  describe('uploads that need converting: taken, as 8-bit sRGB', () => {
+    it.each([
+      ['a CMYK JPEG', async () => sharp({ create: { width: 1200, height: 900, channels: 3, background: '#336699' } }).toColourspace('cmyk').jpeg().toBuffer(), 'jpeg'],
+      ['a 16-bit PNG', async () => sharp({ create: { width: 1000, height: 800, channels: 3, background: '#996633' } }).toColourspace('rgb16').png().toBuffer(), 'png'],
+      // 40 MP: within the 100 MP limit, decoded once and kept whole for production.
+      ['a 40-megapixel JPEG', async () => sharp({ create: { width: 8000, height: 5000, channels: 3, background: '#557788' } }).jpeg({ quality: 70 }).toBuffer(), 'jpeg'],
+    ])('accepts %s and says what it is', async (_what, make, format) => {
+      const bytes = await make();
+      // The independent reading first: what the file says it is (sharp's libvips header reader).
+      const meta = await sharp(bytes).metadata();
+      const res = await upload(bytes, format === 'png' ? 'image/png' : 'image/jpeg');
+      expect(res.status).toBe(201);
+      expect(res.body).toMatchObject({ width: meta.width, height: meta.height });
+      const preview = await request(t.app).get(res.body.previewUrl).buffer(true).parse((r, done) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => done(null, Buffer.concat(chunks)));
+      }).expect(200);
+      // The preview the designer draws from is 8-bit sRGB whatever came in.
+      expect(await sharp(preview.body as Buffer).metadata()).toMatchObject({ format: 'webp', space: 'srgb', depth: 'uchar' });
+    }, 60_000);
+  });
+
   describe('uploads that cannot be used: a clear 4xx and no photo kept', () => {
+    it('refuses a ticket for an empty file', async () => {
+      expect((await request(t.app).post(`${base}/photo-uploads`).send({ contentType: 'image/jpeg', contentLength: 0 }).expect(400)).body.issues[0].path).toEqual(['contentLength']);
+    });
+
     const photoCount = () => scoped().count(BuyerPhoto, {});
     it.each([
       ['a PDF', 'application/pdf', 1000, 'contentType'],
@@ -281,6 +308,14 @@ describe('checkout and payment', () => {
       ['a decompression bomb', async () => bombPng(), 413, /more pixels than we accept/],
       ['a HEIC photo', async () => heicHeader(), 415, /HEIC/],
       ['a text file', async () => Buffer.from('not a photo, just words '.repeat(10)), 415, /JPEG, PNG/],
+      ['a text file named .jpg', async () => Buffer.from('Dear studio, here is my photo. '.repeat(8)), 415, /JPEG, PNG/],
+      ['an SVG with a script', async () => Buffer.from('<svg xmlns="http://www.w3.org/2000/svg" width="800" height="600" onload="alert(1)"><script>alert(1)</script><rect width="800" height="600"/></svg>'), 415, /JPEG, PNG/],
+      ['an HTML page', async () => Buffer.from('<!doctype html><html><body><script>alert(1)</script><img src=x></body></html>'), 415, /JPEG, PNG/],
+      // A ZIP's local file header (PKWARE APPNOTE 4.3.7): "PK\x03\x04".
+      ['a ZIP archive', async () => Buffer.concat([Buffer.from([0x50, 0x4b, 0x03, 0x04]), Buffer.alloc(200, 1)]), 415, /JPEG, PNG/],
+      ['an animated GIF', async () => sharp([await jpeg(64, 64), await jpeg(64, 64)], { join: { animated: true } }).gif().toBuffer(), 415, /JPEG, PNG/],
+      // The first bytes of a JPEG (SOI, APP0) and nothing after: not a picture at all.
+      ['a JPEG cut after its first bytes', async () => (await jpeg(800, 600)).subarray(0, 20), 400, /damaged/],
     ])('refuses %s', async (_what, make, status, message) => {
       const before = await photoCount();
       const res = await upload(await make());
