@@ -1,9 +1,9 @@
 import { readFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
 import * as fontkit from 'fontkit';
 import sharp from 'sharp';
 import type { Bitmap } from '../../shared/imaging/image.ts';
 import type { Inscription } from '../../shared/schemas/checkout.ts';
+import { nunitoWoff } from '../lib/fonts.ts';
 
 /**
  * The buyer's inscription, burned as solid marks on top of the halftoned photo. It is laid out
@@ -12,12 +12,11 @@ import type { Inscription } from '../../shared/schemas/checkout.ts';
  * baseline at 93 % of the height and 1.2 letter sizes between lines. The same font files the
  * browser uses are shaped with fontkit (kerning and ligatures, as browsers do) and filled by sharp.
  */
-const require = createRequire(import.meta.url);
 const fonts = new Map<Inscription['font'], fontkit.Font>();
 function fontFor(choice: Inscription['font']): fontkit.Font {
   let font = fonts.get(choice);
   if (!font) {
-    font = fontkit.create(readFileSync(require.resolve(`@fontsource/nunito/files/nunito-latin-${choice === 'rounded-bold' ? 800 : 600}-normal.woff`))) as fontkit.Font;
+    font = fontkit.create(readFileSync(nunitoWoff(choice === 'rounded-bold' ? 800 : 600))) as fontkit.Font;
     fonts.set(choice, font);
   }
   return font;

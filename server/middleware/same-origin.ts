@@ -15,7 +15,8 @@ export function sameOriginMutations(appUrl: string) {
     if (SAFE_METHODS.has(req.method) || !req.headers.cookie) return next();
     const site = req.headers['sec-fetch-site'];
     const origin = req.headers.origin;
-    const crossSite = site ? site !== 'same-origin' && site !== 'none' : Boolean(origin && origin !== 'null' && origin !== ownOrigin) || origin === 'null';
+    // Sec-Fetch-Site when the browser sends it; otherwise Origin ("null" is never ours).
+    const crossSite = site ? site !== 'same-origin' && site !== 'none' : origin !== undefined && origin !== ownOrigin;
     if (crossSite) return next(new AppError('FORBIDDEN', 'This request came from another site and was refused. Open Etchwell itself and try again.'));
     next();
   };

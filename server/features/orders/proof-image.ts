@@ -1,13 +1,10 @@
 import sharp from 'sharp';
 import { renderMockup } from '../../../shared/imaging/mockup.ts';
-import { renderBitmap } from '../../../shared/imaging/pipeline.ts';
 import { orientedArea } from '../../../shared/imaging/sizing.ts';
-import { pipelineSettings } from '../../../shared/orders/prep-pipeline.ts';
 import type { PrepSettings } from '../../../shared/schemas/prep.ts';
 import type { Storage } from '../../adapters/storage.ts';
-import { placePhoto } from '../../imaging/placement.ts';
-import { burnInscription, inscriptionCoverage } from '../../imaging/inscription.ts';
 import type { OrderItem } from './order.entity.ts';
+import { burnItem, placeItemPhoto } from './item-burn.ts';
 
 /** The proof's width in pixels: a screen's worth, far coarser than the burn. */
 export const PROOF_WIDTH = 900;
@@ -22,10 +19,9 @@ export async function renderProofImage(storage: Storage, item: OrderItem, prep: 
   const area = orientedArea(item.snapshot.size, item.orientation);
   const proofLinesPerInch = PROOF_WIDTH / (area.widthMm / 25.4);
   const scale = proofLinesPerInch / prep.linesPerInch;
-  const original = await storage.get(item.photo.originalKey);
-  const placed = await placePhoto(Buffer.from(original.body), item.placement, area, proofLinesPerInch);
-  const scaled = { ...prep, sharpenRadius: Math.max(0.5, prep.sharpenRadius * scale), featherRadius: prep.featherRadius * scale, linesPerInch: Math.round(proofLinesPerInch) };
-  const bitmap = burnInscription(renderBitmap(placed, pipelineSettings(scaled, placed)), await inscriptionCoverage(item.inscription, placed.width, placed.height));
+  const placed = await placeItemPhoto(storage, item, proofLinesPerInch);
+  const scaled = { ...prep, sharpenRadius: Math.max(0.5, prep.sharpenRadius * scale), featherRadius: prep.featherRadius * scale, linesPerInch: proofLinesPerInch };
+  const { bitmap } = await burnItem(item, placed, scaled);
   const { blank } = item.snapshot;
   const mock = renderMockup({ bitmap, shape: blank.shape, surfaceColour: blank.material.surfaceColour, markColour: blank.material.markColour });
   return sharp(Buffer.from(mock.data.buffer, mock.data.byteOffset, mock.data.length), { raw: { width: mock.width, height: mock.height, channels: 4 } }).png({ compressionLevel: 8 }).toBuffer();

@@ -1,12 +1,8 @@
-import { orientedArea } from '../../../shared/imaging/sizing.ts';
-import { renderBitmap } from '../../../shared/imaging/pipeline.ts';
-import { pipelineSettings } from '../../../shared/orders/prep-pipeline.ts';
 import type { PrepSettings, RegionPreview } from '../../../shared/schemas/prep.ts';
 import type { Storage } from '../../adapters/storage.ts';
-import { placePhoto } from '../../imaging/placement.ts';
-import { burnInscription, inscriptionCoverage } from '../../imaging/inscription.ts';
 import { encodeBitmapPng } from '../../imaging/png-1bit.ts';
 import type { OrderItem } from './order.entity.ts';
+import { burnItem, placeItemPhoto } from './item-burn.ts';
 
 /** The side of the 1:1 region, in dots of the burn. */
 export const REGION_SIDE = 480;
@@ -17,9 +13,7 @@ export const REGION_SIDE = 480;
  * cut-out's feather need their neighbours), then the region around `centre` is cut from it.
  */
 export async function regionPreview(storage: Storage, item: OrderItem, settings: PrepSettings, centre: { x: number; y: number }): Promise<RegionPreview> {
-  const original = await storage.get(item.photo.originalKey);
-  const placed = await placePhoto(Buffer.from(original.body), item.placement, orientedArea(item.snapshot.size, item.orientation), settings.linesPerInch);
-  const bitmap = burnInscription(renderBitmap(placed, pipelineSettings(settings, placed)), await inscriptionCoverage(item.inscription, placed.width, placed.height));
+  const { bitmap } = await burnItem(item, await placeItemPhoto(storage, item, settings.linesPerInch), settings);
   const width = Math.min(REGION_SIDE, bitmap.width);
   const height = Math.min(REGION_SIDE, bitmap.height);
   const left = Math.min(Math.max(0, Math.round(centre.x * bitmap.width - width / 2)), bitmap.width - width);

@@ -1,7 +1,7 @@
-import { createRequire } from 'node:module';
 import PDFDocument from 'pdfkit';
 import QRCode from 'qrcode';
 import { LASER_CAUTIONS } from '../../../shared/safety.ts';
+import { nunitoWoff } from '../../lib/fonts.ts';
 
 /**
  * The job sheet: one printed page that goes with the piece from the machine to the parcel. It
@@ -22,11 +22,7 @@ export type JobSheet = {
   paper: 'A4' | 'LETTER';
 };
 
-const require = createRequire(import.meta.url);
-const FONT = {
-  regular: require.resolve('@fontsource/nunito/files/nunito-latin-400-normal.woff'),
-  bold: require.resolve('@fontsource/nunito/files/nunito-latin-800-normal.woff'),
-};
+const FONT = { regular: nunitoWoff(400), bold: nunitoWoff(800) };
 const INK = '#2b2622';
 const MUTED = '#6b625a';
 

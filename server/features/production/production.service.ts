@@ -167,8 +167,8 @@ export async function renderDownload(em: EntityManager, storage: Storage, studio
   const render = await findRender(em, studio, renderId);
   if (render.status !== 'done' || !render.files) throw new AppError('CONFLICT', 'The files are not ready yet.');
   const file = render.files[kind as RenderFileKind];
-  const extension = kind === 'sheet' ? 'pdf' : 'png';
-  const fileName = `order-${render.item.order.number}-${render.item.id.slice(0, 8)}-${kind === 'sheet' ? 'job-sheet' : kind === 'master' ? 'grayscale-master' : 'engrave'}.${extension}`;
+  // Named after its key (engrave.png, grayscale-master.png, job-sheet.pdf), for the order and item.
+  const fileName = `order-${render.item.order.number}-${render.item.id.slice(0, 8)}-${file.key.split('/').pop()}`;
   const expiresInSeconds = 60;
   return { url: await storage.presignDownload(file.key, { expiresInSeconds, downloadName: fileName }), expiresInSeconds, fileName };
 }

@@ -2,9 +2,8 @@ import sharp from 'sharp';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { HALFTONE_METHODS } from '../../../shared/imaging/halftone/halftone.ts';
 import { estimateBurnSeconds, formatBurnTime, speedInMmPerSecond } from '../../../shared/imaging/burn-time.ts';
-import { renderBitmap, prepareMaster } from '../../../shared/imaging/pipeline.ts';
-import { orientedArea, outputSize } from '../../../shared/imaging/sizing.ts';
-import { pipelineSettings } from '../../../shared/orders/prep-pipeline.ts';
+import { prepareMaster } from '../../../shared/imaging/pipeline.ts';
+import { orientedArea } from '../../../shared/imaging/sizing.ts';
 import { LASER_KIND_LABELS, type LaserKind } from '../../../shared/schemas/catalog.ts';
 import type { BatchMachine, RenderFiles } from '../../../shared/schemas/production.ts';
 import type { PrepSettings } from '../../../shared/schemas/prep.ts';
@@ -15,9 +14,9 @@ import type { Logger } from '../../logger.ts';
 import type { Orm } from '../../db/orm.ts';
 import { TENANT_FILTER } from '../../db/tenant.ts';
 import { encodeGrayscaleMaster } from '../../imaging/grayscale-master.ts';
-import { placePhoto } from '../../imaging/placement.ts';
 import { encodeBitmapPng } from '../../imaging/png-1bit.ts';
-import { burnInscription, inscribeMaster, inscriptionCoverage } from '../../imaging/inscription.ts';
+import { inscribeMaster } from '../../imaging/inscription.ts';
+import { burnItem, placeItemPhoto } from '../orders/item-burn.ts';
 import { OrderEvent, type OrderItem } from '../orders/order.entity.ts';
 import { currentPrep } from '../orders/prep.service.ts';
 import type { Studio } from '../studios/studio.entity.ts';
@@ -62,14 +61,10 @@ export async function runRender({ orm, storage, env, logger }: RenderDeps, rende
   try {
     const { item, studio, batch } = render;
     const prep = currentPrep(item);
-    const original = await storage.get(item.photo.originalKey);
     await report(10, 'Placing the photo at the machine’s resolution');
-    const area = orientedArea(item.snapshot.size, item.orientation);
-    const placed = await placePhoto(Buffer.from(original.body), item.placement, area, prep.linesPerInch);
+    const placed = await placeItemPhoto(storage, item, prep.linesPerInch);
     await report(30, 'Halftoning');
-    const settings = pipelineSettings(prep, placed);
-    const lettering = await inscriptionCoverage(item.inscription, placed.width, placed.height);
-    const bitmap = burnInscription(renderBitmap(placed, settings), lettering);
+    const { settings, lettering, bitmap } = await burnItem(item, placed, prep);
     const engrave = encodeBitmapPng(bitmap, prep.linesPerInch);
     await storage.put(keys.engrave, engrave, 'image/png');
     await report(55, 'Making the grayscale master');
@@ -79,7 +74,7 @@ export async function runRender({ orm, storage, env, logger }: RenderDeps, rende
     await storage.put(keys.master, master, 'image/png');
     await report(80, 'Writing the job sheet');
     const preview = await sharp(engrave).resize({ width: 340, height: 440, fit: 'inside', kernel: 'lanczos3' }).png().toBuffer();
-    const sheet = await jobSheetPdf(jobSheetFor({ studio, batch, item, prep, preview, appUrl: env.APP_URL, pixels: outputSize(area, prep.linesPerInch), version: item.prepVersions.at(-1)?.version ?? 0 }));
+    const sheet = await jobSheetPdf(jobSheetFor({ studio, batch, item, prep, preview, appUrl: env.APP_URL, pixels: { width: bitmap.width, height: bitmap.height }, version: item.prepVersions.at(-1)?.version ?? 0 }));
     await storage.put(keys.sheet, sheet, 'application/pdf');
     const files: RenderFiles = {
       engrave: { key: keys.engrave, bytes: engrave.length, contentType: 'image/png', width: bitmap.width, height: bitmap.height },
@@ -111,7 +106,8 @@ function jobSheetFor(input: { studio: Studio; batch: ProductionBatch; item: Orde
   const area = orientedArea(snapshot.size, item.orientation);
   const machine = batch.machine;
   const seconds = burnSecondsFor(item, prep, machine);
-  const index = order.items.getItems().sort((a, b) => a.position - b.position || a.createdAt.getTime() - b.createdAt.getTime()).findIndex((i) => i.id === item.id) + 1;
+  // The collection is loaded in cart order (OrderItem.position).
+  const index = order.items.getItems().findIndex((i) => i.id === item.id) + 1;
   const rows: Array<[string, string | null]> = [
     ['Order', null],
     ['Buyer', order.buyerName],

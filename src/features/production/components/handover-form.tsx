@@ -7,6 +7,7 @@ import { Notice } from '../../../components/ui/notice.tsx';
 import { TextField } from '../../../components/ui/text-field.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { useHandOver } from '../api/production.ts';
+import { useChosen } from '../../../lib/use-chosen.ts';
 
 /**
  * Burned items leave the studio: in a parcel with the carrier and tracking number, or handed to
@@ -14,7 +15,7 @@ import { useHandOver } from '../api/production.ts';
  */
 export function HandoverForm({ slug, order }: { slug: string; order: OrderView }) {
   const ready = order.items.filter((item) => item.stage === 'burned');
-  const [chosen, setChosen] = useState<Set<string>>(() => new Set(ready.map((i) => i.id)));
+  const { chosen, toggle } = useChosen(ready.map((i) => i.id));
   const [method, setMethod] = useState<'ship' | 'pickup'>(order.delivery.method);
   const [carrier, setCarrier] = useState('');
   const [trackingNumber, setTrackingNumber] = useState('');
@@ -43,7 +44,7 @@ export function HandoverForm({ slug, order }: { slug: string; order: OrderView }
           <legend className="mb-1 font-semibold">Burned and ready</legend>
           {ready.map((item) => (
             <label key={item.id} className="flex items-center gap-2">
-              <input type="checkbox" className="size-4" checked={chosen.has(item.id)} onChange={() => setChosen((now) => { const next = new Set(now); if (next.has(item.id)) next.delete(item.id); else next.add(item.id); return next; })} />
+              <input type="checkbox" className="size-4" checked={chosen.has(item.id)} onChange={() => toggle(item.id)} />
               {item.blankName}, {item.sizeLabel}
             </label>
           ))}

@@ -1,4 +1,3 @@
-import { useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import { formatBurnTime } from '../../../../../shared/imaging/burn-time.ts';
 import { can } from '../../../../../shared/permissions.ts';
@@ -11,6 +10,7 @@ import { Table, TBody, TD, TH, THead, TR } from '../../../../components/ui/table
 import { useToast } from '../../../../components/ui/toast.tsx';
 import { LaserCautions } from '../../../../features/catalog/components/laser-cautions.tsx';
 import { useCreateBatch, useProductionBoard } from '../../../../features/production/api/production.ts';
+import { useChosen } from '../../../../lib/use-chosen.ts';
 
 export function ProductionPage() {
   return <WorkspaceLayout>{({ studio, role }) => <Production slug={studio.slug} canProduce={can(role, 'order:produce')} />}</WorkspaceLayout>;
@@ -34,16 +34,10 @@ function Production({ slug, canProduce }: { slug: string; canProduce: boolean })
 }
 
 function WaitingGroup({ slug, group, canProduce }: { slug: string; group: ProductionBoard['groups'][number]; canProduce: boolean }) {
-  const [chosen, setChosen] = useState<Set<string>>(() => new Set(group.items.map((i) => i.itemId)));
+  const { chosen, toggle } = useChosen(group.items.map((i) => i.itemId));
   const create = useCreateBatch(slug);
   const toast = useToast();
   const navigate = useNavigate();
-  const toggle = (id: string) => setChosen((now) => {
-    const next = new Set(now);
-    if (next.has(id)) next.delete(id);
-    else next.add(id);
-    return next;
-  });
   const ids = group.items.filter((i) => chosen.has(i.itemId)).map((i) => i.itemId);
   const total = group.items.filter((i) => chosen.has(i.itemId)).reduce<number | null>((sum, i) => (sum === null || i.estimatedBurnSeconds === null ? null : sum + i.estimatedBurnSeconds * i.quantity), 0);
   const title = `${group.materialName} · ${group.machineName ?? 'no machine recipe'}`;
