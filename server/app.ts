@@ -14,6 +14,7 @@ import type { Auth } from './auth/auth.ts';
 import type { Storage } from './adapters/storage.ts';
 import type { Payments } from './adapters/payments.ts';
 import type { Jobs } from './adapters/jobs.ts';
+import type { RateLimits } from './lib/rate-limits.ts';
 import { paymentsWebhookRouter } from './features/orders/payments-webhook.router.ts';
 import { storefrontOrdersRouter } from './features/orders/storefront-orders.router.ts';
 import { myOrdersRouter } from './features/orders/my-orders.router.ts';
@@ -29,6 +30,7 @@ import { catalogRoutes } from './features/catalog/catalog.routes.ts';
 import { shippingRoutes } from './features/shipping/shipping.routes.ts';
 import { workspaceOrderRoutes } from './features/orders/workspace-orders.routes.ts';
 import { productionRoutes } from './features/production/production.routes.ts';
+import { auditRoutes } from './features/audit/audit.routes.ts';
 import { storefrontCatalogRouter } from './features/catalog/storefront-catalog.router.ts';
 import { storefrontPhotosRouter } from './features/photos/storefront-photos.router.ts';
 
@@ -41,11 +43,12 @@ export type AppDeps = {
   storage: Storage;
   payments: Payments;
   jobs: Jobs;
+  limits: RateLimits;
 };
 
 /** Every route under /api/studios/:studioSlug, from every feature. The isolation tests walk this list. */
 export function workspaceRoutes(deps: AppDeps): WorkspaceRoute[] {
-  return [...studioRoutes(deps), ...teamRoutes(deps), ...catalogRoutes(deps), ...shippingRoutes(deps), ...workspaceOrderRoutes(deps), ...productionRoutes(deps)];
+  return [...studioRoutes(deps), ...teamRoutes(deps), ...catalogRoutes(deps), ...shippingRoutes(deps), ...workspaceOrderRoutes(deps), ...productionRoutes(deps), ...auditRoutes(deps)];
 }
 
 /** Where presigned upload URLs point: the endpoint itself, or the bucket's own host. */

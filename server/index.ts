@@ -10,6 +10,7 @@ import { createStorage } from './adapters/storage.ts';
 import { createPayments } from './adapters/payments.ts';
 import { createJobs } from './adapters/jobs.ts';
 import { startWorker } from './worker.ts';
+import { createRateLimits, type RateLimits } from './lib/rate-limits.ts';
 
 /**
  * The only place that listens. Started by the stack scripts, the Docker image and `npm run dev`.
@@ -24,10 +25,11 @@ async function main(): Promise<void> {
   const worker = env.PROCESS_ROLE === 'web' ? undefined : await startWorker({ env, orm, logger, storage, jobs, mailer: createMailer(env) });
 
   let server: Server | undefined;
-  let auth: ReturnType<typeof createAuth> | undefined;
+  let limits: RateLimits | undefined;
   if (env.PROCESS_ROLE !== 'worker') {
-    auth = createAuth({ orm, env, logger });
-    const app = createApp({ env, orm, logger, version: appVersion, auth, storage, payments: createPayments(env), jobs });
+    limits = createRateLimits(env.DATABASE_URL);
+    const auth = createAuth({ orm, env, logger, limits });
+    const app = createApp({ env, orm, logger, version: appVersion, auth, storage, payments: createPayments(env), jobs, limits });
     server = createServer(app);
     server.listen(env.PORT, env.HOST, () => {
       const address = server!.address();
@@ -43,7 +45,7 @@ async function main(): Promise<void> {
     if (closing) return;
     closing = true;
     logger.info({ signal }, 'shutting down');
-    const finish = () => void Promise.all([worker?.stop(), jobs.stop()]).then(() => Promise.all([orm.close(), auth?.close()])).then(() => process.exit(0));
+    const finish = () => void Promise.all([worker?.stop(), jobs.stop()]).then(() => Promise.all([orm.close(), limits?.close()])).then(() => process.exit(0));
     if (server) {
       server.close(finish);
       server.closeIdleConnections();

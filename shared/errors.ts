@@ -48,13 +48,16 @@ export class AppError extends Error {
   readonly code: AppErrorCode;
   readonly status: number;
   readonly issues?: FieldIssue[];
+  /** For RATE_LIMITED and SERVICE_UNAVAILABLE: when to try again (the Retry-After header). */
+  readonly retryAfterSeconds?: number;
 
-  constructor(code: AppErrorCode, message: string, options: { issues?: FieldIssue[]; cause?: unknown } = {}) {
+  constructor(code: AppErrorCode, message: string, options: { issues?: FieldIssue[]; cause?: unknown; retryAfterSeconds?: number } = {}) {
     super(message, { cause: options.cause });
     this.name = 'AppError';
     this.code = code;
     this.status = APP_ERROR_STATUS[code];
     this.issues = options.issues;
+    this.retryAfterSeconds = options.retryAfterSeconds;
   }
 
   toBody(): ErrorBody {

@@ -15,6 +15,7 @@ export const PERMISSIONS = [
   'order:review', // photo review, ask for a new photo
   'order:produce', // prep, proofs, render, mark burned and shipped
   'order:refund', // refunds and cancellations
+  'audit:read', // the audit log of sensitive actions
 ] as const;
 export type Permission = (typeof PERMISSIONS)[number];
 

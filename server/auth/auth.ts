@@ -11,7 +11,7 @@ import type { Logger } from '../logger.ts';
 import { User } from '../features/accounts/user.entity.ts';
 import { mikroOrmAdapter, toAdapterUser } from './adapter.ts';
 import { dummyPasswordHash, verifyPassword } from './password.ts';
-import { createSignInLimits, type SignInLimits } from './rate-limit.ts';
+import type { RateLimits } from '../lib/rate-limits.ts';
 import { signInLinkMail } from './sign-in-mail.ts';
 import { queueEmail } from '../features/outbox/outbox.service.ts';
 
@@ -28,14 +28,12 @@ export type Auth = {
   router: express.Router;
   /** The signed-in user of this request, or null. */
   currentUser(req: Request): Promise<User | null>;
-  close(): Promise<void>;
 };
 
 const SESSION_MAX_AGE = 30 * 24 * 3600;
 const LINK_MAX_AGE = 30 * 60;
 
-export function createAuth({ orm, env, logger }: { orm: Orm; env: Env; logger: Logger }): Auth {
-  const limits: SignInLimits = createSignInLimits(env.DATABASE_URL);
+export function createAuth({ orm, env, logger, limits: { signIn: limits } }: { orm: Orm; env: Env; logger: Logger; limits: RateLimits }): Auth {
   const secure = env.APP_URL.startsWith('https://');
 
   const config: ExpressAuthConfig = {
@@ -129,6 +127,5 @@ export function createAuth({ orm, env, logger }: { orm: Orm; env: Env; logger: L
       if (!user || user.sessionVersion !== session.sv) return null;
       return user;
     },
-    close: limits.close,
   };
 }

@@ -40,6 +40,7 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
   if (appError.status >= 500) req.log.error({ err: appError.cause ?? appError }, appError.message);
   else req.log.info({ code: appError.code }, appError.message);
   if (res.headersSent) return;
+  if (appError.retryAfterSeconds) res.set('retry-after', String(appError.retryAfterSeconds));
   res.status(appError.status).json(appError.toBody());
 };
 

@@ -3,6 +3,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { seedDemo } from '../../server/db/seed.ts';
 import { DEMO_PASSWORD } from '../../server/db/demo-scenario.ts';
 import { TENANT_FILTER } from '../../server/db/tenant.ts';
+import { AuditEntry } from '../../server/features/audit/audit-entry.entity.ts';
 import { Blank } from '../../server/features/catalog/catalog.entity.ts';
 import { OutboxEmail } from '../../server/features/outbox/outbox-email.entity.ts';
 import { Studio } from '../../server/features/studios/studio.entity.ts';
@@ -115,6 +116,9 @@ describe('production and shipping', () => {
     // (127 mm/s) plus a 0.05 s turnaround = 1.02874 s, so 2407 s (common practice, no source).
     expect(text).toContain('40 min 07 s per piece');
     expect(await pdfFirstPageQr(sheet)).toBe(`${t.env.APP_URL}/studio/harbour-light/orders/${orderId}`);
+    // Each link to a file made from the buyer's photo is in the audit log, under who asked for it.
+    const downloads = await t.orm.em.fork().find(AuditEntry, { action: 'render.downloaded', details: { renderId: entry!.render.id } }, { filters: false, orderBy: { createdAt: 'asc' } });
+    expect(downloads.map((d) => [d.actorName, d.summary])).toEqual(['engrave file', 'grayscale master', 'job sheet'].map((file) => ['Tobias Renn', `Downloaded the ${file} for Black-backed glass portrait, 5 × 7 in.`]));
 
     // The maple plaque has no recipe: it batches alone, and its sheet says to set the machine by hand.
     const mapleBatch = await renderedBatch((await staff.post(`${work}/production/batches`).send({ itemIds: [mapleItem] }).expect(201)).body.id);

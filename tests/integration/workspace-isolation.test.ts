@@ -7,6 +7,7 @@ import { workspaceRoutes, type AppDeps } from '../../server/app.ts';
 import type { WorkspaceFixtures, WorkspaceRoute } from '../../server/middleware/workspace-routes.ts';
 import { Invite } from '../../server/features/team/invite.entity.ts';
 import { Studio } from '../../server/features/studios/studio.entity.ts';
+import { User } from '../../server/features/accounts/user.entity.ts';
 import { useTestApp } from '../support/test-app.ts';
 import { payWithTestCard } from '../support/payments.ts';
 import * as catalog from '../../server/features/catalog/catalog.service.ts';
@@ -105,6 +106,7 @@ describe('workspace isolation matrix', () => {
         const fork = t.orm.em.fork();
         fork.setFilterParams(TENANT_FILTER, { studioId: studioA.id });
         const studio = await fork.findOneOrFail(Studio, { id: studioA.id });
+        const actor = await fork.findOneOrFail(User, { id: owner.user.id });
         const unique = Math.random().toString(36).slice(2);
         const material = () => catalog.createMaterial(fork, studio, { name: `M ${unique}`, family: 'stone', surfaceColour: '#333333', markColour: '#cccccc', defaultTone: 'negative', linesPerInchMin: 250, linesPerInchMax: 330, safetyNotes: '', forbiddenOn: [], forbiddenReason: '' });
         const machine = () => catalog.createMachine(fork, studio, { name: `K ${unique}`, laserKind: 'co2', powerWatts: 60, bedWidthMm: 600, bedHeightMm: 400, speedUnit: 'mm/s', notes: '' });
@@ -112,12 +114,12 @@ describe('workspace isolation matrix', () => {
         if (kind === 'machine') return (await machine()).id;
         if (kind === 'recipe') {
           const [m, k] = [await material(), await machine()];
-          return (await catalog.createRecipe(fork, studio, { materialId: m.id, machineId: k.id, linesPerInch: 300, halftoneMethod: 'stucki', tone: 'negative', speed: 100, powerMinPercent: 5, powerMaxPercent: 10, passes: 1, notes: '' })).id;
+          return (await catalog.createRecipe(fork, studio, { materialId: m.id, machineId: k.id, linesPerInch: 300, halftoneMethod: 'stucki', tone: 'negative', speed: 100, powerMinPercent: 5, powerMaxPercent: 10, passes: 1, notes: '' }, actor)).id;
         }
         const blank = await catalog.createBlank(fork, studio, { name: 'B', description: '', materialId: (await material()).id, shape: 'oval', status: 'draft', sortOrder: 0 });
         if (kind === 'blank') return blank.id;
         if (kind === 'photo') return (await catalog.addPhoto(fork, t.storage, studio, blank.id, await fixtures.upload('blank-photos'))).id;
-        return (await catalog.addSize(fork, studio, blank.id, { label: 'S', outerWidthMm: 100, outerHeightMm: 100, areaWidthMm: 90, areaHeightMm: 90, orientation: 'either', priceMinor: 100, stock: 3, sku: '' })).id;
+        return (await catalog.addSize(fork, studio, blank.id, { label: 'S', outerWidthMm: 100, outerHeightMm: 100, areaWidthMm: 90, areaHeightMm: 90, orientation: 'either', priceMinor: 100, stock: 3, sku: '' }, actor)).id;
       },
     };
   });

@@ -13,8 +13,9 @@ import { createStorage, type Storage } from '../../server/adapters/storage.ts';
 import { createPayments, type Payments } from '../../server/adapters/payments.ts';
 import { createJobs, type Jobs } from '../../server/adapters/jobs.ts';
 import { startWorker } from '../../server/worker.ts';
+import { createRateLimits, type RateLimits } from '../../server/lib/rate-limits.ts';
 
-export type TestApp = { app: Express; orm: Orm; env: Env; databaseUrl: string; auth: Auth; storage: Storage; payments: Payments; jobs: Jobs };
+export type TestApp = { app: Express; orm: Orm; env: Env; databaseUrl: string; auth: Auth; storage: Storage; payments: Payments; jobs: Jobs; limits: RateLimits };
 
 /**
  * Builds the app as the server does, on a database of its own. `databasePort` makes the app
@@ -32,11 +33,12 @@ export async function buildTestApp(
   const env = loadEnv({ ...services, NODE_ENV: 'test', LOG_LEVEL: process.env.TEST_LOG_LEVEL ?? 'silent', DATABASE_URL: url.toString(), CLIENT_DIST: 'dist', ...overrides });
   const orm = await initOrm(env.DATABASE_URL);
   const logger = createLogger(env, logDestination);
-  const auth = createAuth({ orm, env, logger });
+  const limits = createRateLimits(env.DATABASE_URL);
+  const auth = createAuth({ orm, env, logger, limits });
   const storage = createStorage(env);
   const payments = createPayments(env);
   const jobs = createJobs(env, logger);
-  const app = createApp({ env, orm, logger, version: 'test', auth, storage, payments, jobs });
+  const app = createApp({ env, orm, logger, version: 'test', auth, storage, payments, jobs, limits });
   // As in the server: e-mails go out through the outbox, here checked often; renders are
   // worked in this process only when the test asks (a test may bring worker processes of its own).
   const mailer = createMailer(env);
@@ -49,12 +51,13 @@ export async function buildTestApp(
     storage,
     payments,
     jobs,
+    limits,
     databaseUrl: database.url,
     async close() {
       await outbox.stop();
       await jobs.stop();
       mailer.close();
-      await auth.close();
+      await limits.close();
       await orm.close();
       await database.drop();
     },

@@ -4,11 +4,12 @@ import { openStudioInputSchema } from '../../../shared/schemas/accounts.ts';
 import type { Env } from '../../env.ts';
 import type { Orm } from '../../db/orm.ts';
 import type { Auth } from '../../auth/auth.ts';
+import type { RateLimits } from '../../lib/rate-limits.ts';
 import { optionalUser, requireUser } from '../../middleware/auth-guards.ts';
 import { checkSlug, confirmEmail, describeMe, openStudio, signOutEverywhere } from './accounts.service.ts';
 
 /** Opening a studio, e-mail confirmation, and the signed-in person (`/api/accounts`, `/api/me`). */
-export function accountsRouter({ orm, env, auth }: { orm: Orm; env: Env; auth: Auth }): Router {
+export function accountsRouter({ orm, env, auth, limits }: { orm: Orm; env: Env; auth: Auth; limits: RateLimits }): Router {
   const router = Router();
   const em = () => orm.em as EntityManager;
 
@@ -18,6 +19,7 @@ export function accountsRouter({ orm, env, auth }: { orm: Orm; env: Env; auth: A
 
   router.post('/accounts/studios', async (req, res) => {
     const input = openStudioInputSchema.parse(req.body);
+    await limits.consume('signUp', req.ip ?? 'unknown');
     const { studio } = await openStudio(em(), input, env.APP_URL);
     res.status(201).json({ studioSlug: studio.slug });
   });

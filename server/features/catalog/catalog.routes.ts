@@ -72,18 +72,18 @@ export function catalogRoutes({ orm, storage }: { orm: Orm; storage: Storage }):
     {
       method: 'post', path: '/catalog/recipes', permission: 'catalog:write',
       sample: async (f) => ({ body: recipe(await f.catalog('material'), await f.catalog('machine')) }),
-      handler: async (req, res) => void res.status(201).json(recipeView(await catalog.createRecipe(em(), req.studio!, recipeInputSchema.parse(req.body)))),
+      handler: async (req, res) => void res.status(201).json(recipeView(await catalog.createRecipe(em(), req.studio!, recipeInputSchema.parse(req.body), req.user!))),
     },
     {
       method: 'put', path: '/catalog/recipes/:recipeId', permission: 'catalog:write',
       sample: async (f) => ({ params: { recipeId: await f.catalog('recipe') }, body: recipe(await f.catalog('material'), await f.catalog('machine')) }),
-      handler: async (req, res) => void res.json(recipeView(await catalog.updateRecipe(em(), req.studio!, id(req, 'recipeId'), recipeInputSchema.parse(req.body)))),
+      handler: async (req, res) => void res.json(recipeView(await catalog.updateRecipe(em(), req.studio!, id(req, 'recipeId'), recipeInputSchema.parse(req.body), req.user!))),
     },
     {
       method: 'delete', path: '/catalog/recipes/:recipeId', permission: 'catalog:write',
       sample: async (f) => ({ params: { recipeId: await f.catalog('recipe') } }),
       handler: async (req, res) => {
-        await catalog.deleteRecipe(em(), req.studio!, id(req, 'recipeId'));
+        await catalog.deleteRecipe(em(), req.studio!, id(req, 'recipeId'), req.user!);
         res.status(204).end();
       },
     },
@@ -106,18 +106,18 @@ export function catalogRoutes({ orm, storage }: { orm: Orm; storage: Storage }):
     {
       method: 'post', path: '/catalog/blanks/:blankId/sizes', permission: 'catalog:write',
       sample: async (f) => ({ params: { blankId: await f.catalog('blank') }, body: size }),
-      handler: async (req, res) => void res.status(201).json(sizeView(await catalog.addSize(em(), req.studio!, id(req, 'blankId'), sizeInputSchema.parse(req.body)))),
+      handler: async (req, res) => void res.status(201).json(sizeView(await catalog.addSize(em(), req.studio!, id(req, 'blankId'), sizeInputSchema.parse(req.body), req.user!))),
     },
     {
       method: 'put', path: '/catalog/sizes/:sizeId', permission: 'catalog:write',
       sample: async (f) => ({ params: { sizeId: await f.catalog('size') }, body: size }),
-      handler: async (req, res) => void res.json(sizeView(await catalog.updateSize(em(), req.studio!, id(req, 'sizeId'), sizeInputSchema.parse(req.body)))),
+      handler: async (req, res) => void res.json(sizeView(await catalog.updateSize(em(), req.studio!, id(req, 'sizeId'), sizeInputSchema.parse(req.body), req.user!))),
     },
     {
       method: 'delete', path: '/catalog/sizes/:sizeId', permission: 'catalog:write',
       sample: async (f) => ({ params: { sizeId: await f.catalog('size') } }),
       handler: async (req, res) => {
-        await catalog.removeSize(em(), req.studio!, id(req, 'sizeId'));
+        await catalog.removeSize(em(), req.studio!, id(req, 'sizeId'), req.user!);
         res.status(204).end();
       },
     },

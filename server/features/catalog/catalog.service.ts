@@ -10,6 +10,12 @@ import type { Storage } from '../../adapters/storage.ts';
 import { MAX_IMAGE_UPLOAD_BYTES, type ImageUploadRequest, type UploadTicket } from '../../../shared/schemas/uploads.ts';
 import { issueUpload, readUpload } from '../uploads/uploads.service.ts';
 import { toWebPhoto } from '../../imaging/web-photo.ts';
+import type { User } from '../accounts/user.entity.ts';
+import { describeChanges, describeFacts, recordAudit } from '../audit/audit.service.ts';
+import { recipeFacts, recipeSubject, sizePrice, sizeSubject } from './catalog-audit.ts';
+
+const recipesLink = (studio: Studio) => `/studio/${studio.slug}/catalog/recipes`;
+const blankLink = (studio: Studio, blank: Blank) => `/studio/${studio.slug}/catalog/blanks/${blank.id}`;
 
 /** Catalog rules. Every query runs under the tenant filter and names the studio as well. */
 
@@ -108,25 +114,33 @@ async function checkedPair(em: EntityManager, studio: Studio, input: RecipeInput
 
 export const listRecipes = (em: EntityManager, studio: Studio) => em.find(Recipe, { studio }, { populate: ['material', 'machine'], orderBy: { material: { name: 'asc' } } });
 
-export async function createRecipe(em: EntityManager, studio: Studio, input: RecipeInput): Promise<Recipe> {
+export async function createRecipe(em: EntityManager, studio: Studio, input: RecipeInput, actor: User): Promise<Recipe> {
   const { material, machine } = await checkedPair(em, studio, input);
   const { materialId: _m, machineId: _k, ...values } = input;
   const recipe = em.create(Recipe, { ...values, material, machine, studio });
+  recordAudit(em, studio, actor, { action: 'recipe.created', subject: recipeSubject(recipe), summary: `New recipe: ${describeFacts(recipeFacts(recipe))}.`, link: recipesLink(studio), details: { recipeId: recipe.id, ...values } });
   await flushUnique(em, 'machineId', 'This material already has a recipe on this machine.');
   return recipe;
 }
 
-export async function updateRecipe(em: EntityManager, studio: Studio, id: string, input: RecipeInput): Promise<Recipe> {
+export async function updateRecipe(em: EntityManager, studio: Studio, id: string, input: RecipeInput, actor: User): Promise<Recipe> {
   const recipe = await findIn(em, Recipe, studio, id, 'recipe');
+  await em.populate(recipe, ['material', 'machine']);
   const { material, machine } = await checkedPair(em, studio, input);
   const { materialId: _m, machineId: _k, ...values } = input;
+  const before = { Recipe: recipeSubject(recipe), ...recipeFacts(recipe) };
   em.assign(recipe, { ...values, material, machine });
+  const changes = describeChanges(before, { Recipe: recipeSubject(recipe), ...recipeFacts(recipe) });
+  if (changes) recordAudit(em, studio, actor, { action: 'recipe.changed', subject: recipeSubject(recipe), summary: `${changes}.`, link: recipesLink(studio), details: { recipeId: recipe.id, ...values } });
   await flushUnique(em, 'machineId', 'This material already has a recipe on this machine.');
   return recipe;
 }
 
-export async function deleteRecipe(em: EntityManager, studio: Studio, id: string): Promise<void> {
-  em.remove(await findIn(em, Recipe, studio, id, 'recipe'));
+export async function deleteRecipe(em: EntityManager, studio: Studio, id: string, actor: User): Promise<void> {
+  const recipe = await findIn(em, Recipe, studio, id, 'recipe');
+  await em.populate(recipe, ['material', 'machine']);
+  recordAudit(em, studio, actor, { action: 'recipe.deleted', subject: recipeSubject(recipe), summary: `Deleted the recipe: ${describeFacts(recipeFacts(recipe))}.`, link: recipesLink(studio), details: { recipeId: recipe.id } });
+  em.remove(recipe);
   await em.flush();
 }
 
@@ -157,22 +171,31 @@ export async function updateBlank(em: EntityManager, studio: Studio, id: string,
   return getBlank(em, studio, blank.id);
 }
 
-export async function addSize(em: EntityManager, studio: Studio, blankId: string, input: SizeInput): Promise<BlankSize> {
+export async function addSize(em: EntityManager, studio: Studio, blankId: string, input: SizeInput, actor: User): Promise<BlankSize> {
   const blank = await findIn(em, Blank, studio, blankId, 'blank');
   const size = em.create(BlankSize, { ...input, blank, studio });
+  recordAudit(em, studio, actor, { action: 'price.changed', subject: sizeSubject(size), summary: `New size offered at ${sizePrice(size, studio.currency)}.`, link: blankLink(studio, blank), details: { sizeId: size.id, priceMinor: size.priceMinor, currency: studio.currency } });
   await em.flush();
   return size;
 }
 
-export async function updateSize(em: EntityManager, studio: Studio, id: string, input: SizeInput): Promise<BlankSize> {
+export async function updateSize(em: EntityManager, studio: Studio, id: string, input: SizeInput, actor: User): Promise<BlankSize> {
   const size = await findIn(em, BlankSize, studio, id, 'size');
+  await em.populate(size, ['blank']);
+  const before = { minor: size.priceMinor, price: sizePrice(size, studio.currency) };
   em.assign(size, input);
+  if (size.priceMinor !== before.minor) {
+    recordAudit(em, studio, actor, { action: 'price.changed', subject: sizeSubject(size), summary: `Price: ${before.price} → ${sizePrice(size, studio.currency)}.`, link: blankLink(studio, size.blank), details: { sizeId: size.id, fromMinor: before.minor, toMinor: size.priceMinor, currency: studio.currency } });
+  }
   await em.flush();
   return size;
 }
 
-export async function removeSize(em: EntityManager, studio: Studio, id: string): Promise<void> {
-  em.remove(await findIn(em, BlankSize, studio, id, 'size'));
+export async function removeSize(em: EntityManager, studio: Studio, id: string, actor: User): Promise<void> {
+  const size = await findIn(em, BlankSize, studio, id, 'size');
+  await em.populate(size, ['blank']);
+  recordAudit(em, studio, actor, { action: 'price.changed', subject: sizeSubject(size), summary: `Size taken off sale (it was ${sizePrice(size, studio.currency)}).`, link: blankLink(studio, size.blank), details: { sizeId: size.id, fromMinor: size.priceMinor, currency: studio.currency } });
+  em.remove(size);
   await em.flush();
 }
 

@@ -10,6 +10,9 @@ import { cancelledMail, refundedMail } from './order-mail.ts';
 import { actorName, findItem, moveItem } from './item-moves.ts';
 import { OrderEvent, type Order } from './order.entity.ts';
 import { findOrder } from './review.service.ts';
+import { recordAudit } from '../audit/audit.service.ts';
+
+const orderLink = (studio: Studio, order: Order) => `/studio/${studio.slug}/orders/${order.id}`;
 
 /** Once an item is on the machine its blank is used: the order can be refunded, not cancelled. */
 const CANCELLABLE: readonly ItemStage[] = ['unpaid', 'photo_review', 'needs_new_photo', 'prep', 'proof_sent', 'changes_requested', 'approved'];
@@ -36,6 +39,13 @@ export async function refundOrder(em: EntityManager, payments: Payments, studio:
   }
   const money = formatMoney(amount, order.currency);
   em.create(OrderEvent, { studio, order, type: 'refunded', actor: actorName(user), text: `${whole ? 'Refunded in full' : 'Refunded in part'}: ${money}, by ${actorName(user)}. Reason: ${input.reason}` });
+  recordAudit(em, studio, user, {
+    action: 'order.refunded',
+    subject: `Order ${order.number}`,
+    summary: `Refunded ${money} ${whole ? 'in full' : 'in part'}; ${formatMoney(order.refundedMinor, order.currency)} of ${formatMoney(order.totalMinor, order.currency)} refunded so far. Reason: ${input.reason}`,
+    link: orderLink(studio, order),
+    details: { orderId: order.id, amountMinor: amount, refundedMinor: order.refundedMinor, totalMinor: order.totalMinor, currency: order.currency },
+  });
   queueEmail(em, { to: order.buyerEmail, ...refundedMail({ studioName: studio.name, number: order.number, buyerName: order.buyerName, amount: money, reason: input.reason }) });
   await em.flush();
   return order;
@@ -60,6 +70,13 @@ export async function cancelOrder(em: EntityManager, payments: Payments, studio:
   }
   const refunded = wasPaid && left > 0 ? ` ${formatMoney(left, order.currency)} refunded.` : '';
   em.create(OrderEvent, { studio, order, type: 'cancelled', actor: actorName(user), text: `Cancelled by ${actorName(user)}. Reason: ${reason}.${refunded}` });
+  recordAudit(em, studio, user, {
+    action: 'order.cancelled',
+    subject: `Order ${order.number}`,
+    summary: `Cancelled. Reason: ${reason}.${refunded || ' Nothing was paid, so nothing was refunded.'}`,
+    link: orderLink(studio, order),
+    details: { orderId: order.id, refundedMinor: wasPaid ? left : 0, currency: order.currency },
+  });
   queueEmail(em, { to: order.buyerEmail, ...cancelledMail({ studioName: studio.name, number: order.number, buyerName: order.buyerName, reason, refund: refunded.trim() }) });
   await em.flush();
   return order;

@@ -16,6 +16,7 @@ import type { Env } from '../../env.ts';
 import type { Orm } from '../../db/orm.ts';
 import type { WorkspaceRoute } from '../../middleware/workspace-routes.ts';
 import { findBuyerPhoto } from '../photos/photos.service.ts';
+import { recordPhotoDownload } from './photo-downloads.ts';
 import { orderView } from './order.views.ts';
 import { approvePhoto, askNewPhoto, findOrder, listOrders, reviewQueue } from './review.service.ts';
 
@@ -41,6 +42,7 @@ export function workspaceOrderRoutes({ orm, env, storage, payments }: { orm: Orm
       handler: async (req, res) => {
         const photo = await findBuyerPhoto(em(), req.studio!, String(req.params.photoId));
         const object = await storage.get(photo.originalKey);
+        await recordPhotoDownload(em(), req.studio!, req.user!, photo);
         res.set({ 'content-type': object.contentType ?? 'application/octet-stream', 'cache-control': 'private, max-age=3600' }).end(Buffer.from(object.body));
       },
     },

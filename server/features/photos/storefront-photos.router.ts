@@ -3,6 +3,7 @@ import type { EntityManager } from '@mikro-orm/postgresql';
 import { claimUploadSchema, imageUploadRequestSchema } from '../../../shared/schemas/uploads.ts';
 import type { Storage } from '../../adapters/storage.ts';
 import type { Orm } from '../../db/orm.ts';
+import type { RateLimits } from '../../lib/rate-limits.ts';
 import { storefrontStudio } from '../studios/studios.service.ts';
 import { acceptBuyerPhoto, buyerPhotoView, findBuyerPhoto, startBuyerPhotoUpload } from './photos.service.ts';
 
@@ -11,7 +12,7 @@ import { acceptBuyerPhoto, buyerPhotoView, findBuyerPhoto, startBuyerPhotoUpload
  * straight to storage, then the claim that checks it and answers its size and quality; the
  * designer then loads the preview. No sign-in: the photo's id is the buyer's handle on it.
  */
-export function storefrontPhotosRouter({ orm, storage }: { orm: Orm; storage: Storage }): Router {
+export function storefrontPhotosRouter({ orm, storage, limits }: { orm: Orm; storage: Storage; limits: RateLimits }): Router {
   const router = Router();
   const em = () => orm.em as EntityManager;
 
@@ -23,6 +24,7 @@ export function storefrontPhotosRouter({ orm, storage }: { orm: Orm; storage: St
   router.post('/:studioSlug/buyer-photos', async (req, res) => {
     const studio = await storefrontStudio(em(), req.params.studioSlug, { open: true });
     const { key } = claimUploadSchema.parse(req.body);
+    await limits.consume('photoAccept', req.ip ?? 'unknown');
     res.status(201).json(buyerPhotoView(studio, await acceptBuyerPhoto(em(), storage, studio, key)));
   });
 

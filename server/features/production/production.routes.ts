@@ -34,7 +34,7 @@ export function productionRoutes({ orm, env, storage, jobs }: { orm: Orm; env: E
     {
       method: 'get', path: '/production/renders/:renderId/files/:kind', permission: 'order:produce',
       sample: async (f) => ({ params: { renderId: (await f.production('done')).renderId, kind: 'engrave' } }),
-      handler: async (req, res) => void res.json(await renderDownload(em(), storage, req.studio!, String(req.params.renderId), String(req.params.kind))),
+      handler: async (req, res) => void res.json(await renderDownload(em(), storage, req.studio!, String(req.params.renderId), String(req.params.kind), req.user!)),
     },
     {
       method: 'post', path: '/items/:itemId/burned', permission: 'order:produce',

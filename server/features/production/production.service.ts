@@ -14,6 +14,7 @@ import { currentPrep } from '../orders/prep.service.ts';
 import type { Studio } from '../studios/studio.entity.ts';
 import { ProductionBatch, Render } from './production.entity.ts';
 import { burnSecondsFor, renderKeys } from './render.service.ts';
+import { recordAudit } from '../audit/audit.service.ts';
 
 /** Items of one material and one machine recipe burn in one batch. */
 const groupKey = (item: OrderItem) => `${item.snapshot.blank.material.id}:${item.snapshot.recipe?.id ?? 'none'}`;
@@ -162,7 +163,7 @@ export async function retryRender(em: EntityManager, jobs: Jobs, studio: Studio,
 }
 
 /** A short-lived link to one of a render's files, after the caller's permission check. */
-export async function renderDownload(em: EntityManager, storage: Storage, studio: Studio, renderId: string, kind: string): Promise<{ url: string; expiresInSeconds: number; fileName: string }> {
+export async function renderDownload(em: EntityManager, storage: Storage, studio: Studio, renderId: string, kind: string, user: User): Promise<{ url: string; expiresInSeconds: number; fileName: string }> {
   if (!(RENDER_FILE_KINDS as readonly string[]).includes(kind)) throw new AppError('NOT_FOUND', 'There is no such file.');
   const render = await findRender(em, studio, renderId);
   if (render.status !== 'done' || !render.files) throw new AppError('CONFLICT', 'The files are not ready yet.');
@@ -170,7 +171,17 @@ export async function renderDownload(em: EntityManager, storage: Storage, studio
   // Named after its key (engrave.png, grayscale-master.png, job-sheet.pdf), for the order and item.
   const fileName = `order-${render.item.order.number}-${render.item.id.slice(0, 8)}-${file.key.split('/').pop()}`;
   const expiresInSeconds = 60;
-  return { url: await storage.presignDownload(file.key, { expiresInSeconds, downloadName: fileName }), expiresInSeconds, fileName };
+  const url = await storage.presignDownload(file.key, { expiresInSeconds, downloadName: fileName });
+  // Every file of a render is made from the buyer's photo or names the buyer: each link is logged.
+  recordAudit(em, studio, user, {
+    action: 'render.downloaded',
+    subject: `Order ${render.item.order.number}`,
+    summary: `Downloaded ${`the ${RENDER_FILE_LABELS[kind as RenderFileKind].toLowerCase()}`} for ${render.item.snapshot.blank.name}, ${render.item.snapshot.size.label}.`,
+    link: `/studio/${studio.slug}/orders/${render.item.order.id}`,
+    details: { renderId: render.id, itemId: render.item.id, kind },
+  });
+  await em.flush();
+  return { url, expiresInSeconds, fileName };
 }
 
 /** After the machine: the item is burned. Only from a finished render. */

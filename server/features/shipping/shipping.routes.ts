@@ -6,6 +6,14 @@ import { isUuid } from '../../lib/tokens.ts';
 import type { WorkspaceRoute } from '../../middleware/workspace-routes.ts';
 import type { Studio } from '../studios/studio.entity.ts';
 import { ShippingRate } from './shipping-rate.entity.ts';
+import { formatMoney } from '../../../shared/money.ts';
+import type { User } from '../accounts/user.entity.ts';
+import { recordAudit } from '../audit/audit.service.ts';
+
+/** Shipping prices are prices: their changes go to the audit log. */
+function auditRate(em: EntityManager, studio: Studio, actor: User, rate: ShippingRate, summary: string, details: Record<string, unknown>) {
+  recordAudit(em, studio, actor, { action: 'price.changed', subject: `Shipping: ${rate.name}`, summary, link: `/studio/${studio.slug}/settings`, details: { shippingRateId: rate.id, currency: studio.currency, ...details } });
+}
 
 const view = (r: ShippingRate): ShippingRateView => ({ id: r.id, name: r.name, priceMinor: r.priceMinor, sortOrder: r.sortOrder });
 const rate = { name: 'Tracked post', priceMinor: 895, sortOrder: 0 };
@@ -32,6 +40,7 @@ export function shippingRoutes({ orm }: { orm: Orm }): WorkspaceRoute[] {
       sample: () => ({ body: rate }),
       handler: async (req, res) => {
         const created = em().create(ShippingRate, { ...shippingRateInputSchema.parse(req.body), studio: req.studio! });
+        auditRate(em(), req.studio!, req.user!, created, `New shipping rate at ${formatMoney(created.priceMinor, req.studio!.currency)}.`, { priceMinor: created.priceMinor });
         await em().flush();
         res.status(201).json(view(created));
       },
@@ -41,7 +50,12 @@ export function shippingRoutes({ orm }: { orm: Orm }): WorkspaceRoute[] {
       sample: async (f) => ({ params: { rateId: await f.shippingRate() }, body: rate }),
       handler: async (req, res) => {
         const found = await findRate(em(), req.studio!, String(req.params.rateId));
+        const fromMinor = found.priceMinor;
         em().assign(found, shippingRateInputSchema.parse(req.body));
+        if (found.priceMinor !== fromMinor) {
+          const money = (minor: number) => formatMoney(minor, req.studio!.currency);
+          auditRate(em(), req.studio!, req.user!, found, `Price: ${money(fromMinor)} → ${money(found.priceMinor)}.`, { fromMinor, toMinor: found.priceMinor });
+        }
         await em().flush();
         res.json(view(found));
       },
@@ -50,7 +64,9 @@ export function shippingRoutes({ orm }: { orm: Orm }): WorkspaceRoute[] {
       method: 'delete', path: '/shipping-rates/:rateId', permission: 'studio:settings',
       sample: async (f) => ({ params: { rateId: await f.shippingRate() } }),
       handler: async (req, res) => {
-        em().remove(await findRate(em(), req.studio!, String(req.params.rateId)));
+        const found = await findRate(em(), req.studio!, String(req.params.rateId));
+        auditRate(em(), req.studio!, req.user!, found, `Shipping rate removed (it was ${formatMoney(found.priceMinor, req.studio!.currency)}).`, { fromMinor: found.priceMinor });
+        em().remove(found);
         await em().flush();
         res.status(204).end();
       },

@@ -11,6 +11,10 @@ import { Invite } from './invite.entity.ts';
 import { Membership } from './membership.entity.ts';
 import { queueEmail } from '../outbox/outbox.service.ts';
 import { inviteMail } from './team-mail.ts';
+import { recordAudit } from '../audit/audit.service.ts';
+
+const teamLink = (studio: Studio) => `/studio/${studio.slug}/team`;
+const memberName = (user: User) => (user.name ? `${user.name} (${user.email})` : user.email);
 
 export const INVITE_VALID_DAYS = 7;
 
@@ -45,14 +49,18 @@ export async function createInvite(em: EntityManager, studio: Studio, invitedBy:
     });
     const url = `${appUrl}/invites/${token}`;
     queueEmail(tx, { to: input.email, ...inviteMail({ studioName: studio.name, inviterName: invitedBy.name ?? invitedBy.email, role: input.role, url, validDays: INVITE_VALID_DAYS }) });
+    recordAudit(tx, studio, invitedBy, { action: 'invite.sent', subject: input.email, summary: `Invited ${input.email} to join as ${input.role}.`, link: teamLink(studio), details: { inviteId: invite.id, role: input.role } });
     return invite;
   });
 }
 
-export async function revokeInvite(em: EntityManager, studio: Studio, inviteId: string): Promise<void> {
+export async function revokeInvite(em: EntityManager, studio: Studio, inviteId: string, actor: User): Promise<void> {
   const invite = isUuid(inviteId) ? await em.findOne(Invite, { id: inviteId, studio }) : null;
   if (!invite) throw new AppError('NOT_FOUND', 'There is no such invite.');
-  invite.revokedAt ??= new Date();
+  if (!invite.revokedAt) {
+    invite.revokedAt = new Date();
+    recordAudit(em, studio, actor, { action: 'invite.revoked', subject: invite.email, summary: `Withdrew the invitation to ${invite.email} (${invite.role}).`, link: teamLink(studio), details: { inviteId: invite.id } });
+  }
   await em.flush();
 }
 
@@ -72,19 +80,21 @@ async function ensureAnotherOwner(em: EntityManager, studio: Studio, leaving: Me
   if (owners.length <= 1) throw new AppError('CONFLICT', 'A studio needs at least one owner. Make another member an owner first.');
 }
 
-export async function changeRole(em: EntityManager, studio: Studio, memberId: string, role: Role): Promise<void> {
+export async function changeRole(em: EntityManager, studio: Studio, memberId: string, role: Role, actor: User): Promise<void> {
   await em.transactional(async (tx) => {
     const member = await findMember(tx, studio, memberId);
     if (member.role === role) return;
     await ensureAnotherOwner(tx, studio, member);
+    recordAudit(tx, studio, actor, { action: 'member.role_changed', subject: memberName(member.user), summary: `Changed the role of ${memberName(member.user)} from ${member.role} to ${role}.`, link: teamLink(studio), details: { userId: member.user.id, from: member.role, to: role } });
     member.role = role;
   });
 }
 
-export async function removeMember(em: EntityManager, studio: Studio, memberId: string): Promise<void> {
+export async function removeMember(em: EntityManager, studio: Studio, memberId: string, actor: User): Promise<void> {
   await em.transactional(async (tx) => {
     const member = await findMember(tx, studio, memberId);
     await ensureAnotherOwner(tx, studio, member);
+    recordAudit(tx, studio, actor, { action: 'member.removed', subject: memberName(member.user), summary: `Removed ${memberName(member.user)} (${member.role}) from the studio.`, link: teamLink(studio), details: { userId: member.user.id, role: member.role } });
     tx.remove(member);
   });
 }
@@ -137,9 +147,12 @@ export async function acceptInvite(em: EntityManager, token: string, user: User)
     const taken = await tx.nativeUpdate(Invite, { id: invite.id, usedAt: null, revokedAt: null }, { usedAt: new Date() }, withoutTenantFilter);
     if (taken !== 1) throw new AppError('CONFLICT', unusable.used);
     const member = await tx.findOne(Membership, { studio: invite.studio, user }, withoutTenantFilter);
-    if (!member) tx.create(Membership, { studio: invite.studio, user, role: invite.role });
     // Following the link proves the address.
     const fresh = await tx.findOneOrFail(User, { id: user.id });
+    if (!member) {
+      tx.create(Membership, { studio: invite.studio, user: fresh, role: invite.role });
+      recordAudit(tx, invite.studio, fresh, { action: 'member.joined', subject: memberName(fresh), summary: `Joined as ${invite.role} through the invitation sent to ${invite.email}.`, link: teamLink(invite.studio), details: { inviteId: invite.id, role: invite.role } });
+    }
     fresh.emailVerifiedAt ??= new Date();
   });
   return { studioSlug: invite.studio.slug };

@@ -1,11 +1,12 @@
 import { Entity, PrimaryKey, Property } from '@mikro-orm/core';
 
 /**
- * Counters of the sign-in rate limiter, in the shape the rate limiter library reads and writes
- * (it is given `tableCreated: true`). Declared here so the schema tools know the table.
+ * Counters of the rate limits (sign-in, sign-up, invites, photo uploads), in the shape the rate
+ * limiter library reads and writes (it is given `tableCreated: true`). Declared here so the
+ * schema tools know the table.
  */
-@Entity({ tableName: 'sign_in_limit' })
-export class SignInLimit {
+@Entity({ tableName: 'rate_limit' })
+export class RateLimit {
   @PrimaryKey({ type: 'string', length: 255 })
   key!: string;
 
