@@ -38,19 +38,38 @@ export const auditListQuerySchema = z.object({
 });
 export type AuditListQuery = z.input<typeof auditListQuerySchema>;
 
-export type AuditEntryView = {
-  id: string;
-  at: string;
-  action: AuditAction;
-  group: AuditGroup;
-  /** The member's name (or e-mail) at the time. */
-  actor: string;
-  /** What it was done to, e.g. "Order 1042" or "Slate, 8 × 10 in". */
-  subject: string;
-  /** One sentence: what changed, from what to what. */
-  summary: string;
-  /** Where in the workspace the subject lives, when it still can be opened. */
-  link: string | null;
+/** How each action is named on the audit log page. */
+export const AUDIT_ACTION_LABELS: Record<AuditAction, string> = {
+  'order.refunded': 'Refund',
+  'order.cancelled': 'Cancellation',
+  'member.role_changed': 'Role changed',
+  'member.removed': 'Member removed',
+  'member.joined': 'Member joined',
+  'invite.sent': 'Invitation sent',
+  'invite.revoked': 'Invitation withdrawn',
+  'price.changed': 'Price changed',
+  'recipe.created': 'Recipe added',
+  'recipe.changed': 'Recipe changed',
+  'recipe.deleted': 'Recipe deleted',
+  'photo.downloaded': 'Original photo opened',
+  'render.downloaded': 'Render file downloaded',
 };
 
-export type AuditPage = { entries: AuditEntryView[]; next: string | null };
+export const auditEntrySchema = z.object({
+  id: z.string(),
+  at: z.string(),
+  action: z.enum(Object.keys(AUDIT_ACTIONS) as [AuditAction, ...AuditAction[]]),
+  group: z.enum(Object.keys(AUDIT_GROUPS) as [AuditGroup, ...AuditGroup[]]),
+  /** The member's name (or e-mail) at the time. */
+  actor: z.string(),
+  /** What it was done to, e.g. "Order 1042" or "Slate, 8 × 10 in". */
+  subject: z.string(),
+  /** One sentence: what changed, from what to what. */
+  summary: z.string(),
+  /** Where in the workspace the subject lives, when it still can be opened. */
+  link: z.string().nullable(),
+});
+export type AuditEntryView = z.infer<typeof auditEntrySchema>;
+
+export const auditPageSchema = z.object({ entries: z.array(auditEntrySchema), next: z.string().nullable() });
+export type AuditPage = z.infer<typeof auditPageSchema>;

@@ -23,6 +23,7 @@ export const router = createBrowserRouter([
   { path: '/s/:studioSlug/orders/:orderId', lazy: page(() => import('./routes/storefront/order.tsx'), 'OrderPage') },
   { path: '/studio/:studioSlug', lazy: page(() => import('./routes/workspace/overview.tsx'), 'WorkspaceOverviewPage') },
   { path: '/studio/:studioSlug/team', lazy: page(() => import('./routes/workspace/team.tsx'), 'TeamPage') },
+  { path: '/studio/:studioSlug/audit', lazy: page(() => import('./routes/workspace/audit.tsx'), 'AuditLogPage') },
   { path: '/studio/:studioSlug/settings', lazy: page(() => import('./routes/workspace/settings.tsx'), 'SettingsPage') },
   { path: '/studio/:studioSlug/orders', lazy: page(() => import('./routes/workspace/orders/orders.tsx'), 'OrdersPage') },
   { path: '/studio/:studioSlug/orders/:orderId', lazy: page(() => import('./routes/workspace/orders/order.tsx'), 'StaffOrderPage') },

@@ -77,6 +77,14 @@ describe('an owner builds the catalog; staff can only look', () => {
     await expect.poll(() => page.getByRole('heading', { name: 'Walnut memory block' }).count()).toBe(1);
     expect(await page.getByText('$39.00').count()).toBeGreaterThan(0);
     await shot(page, 'catalog-on-storefront');
+
+    // Both new prices are in the audit log, under the owner's name.
+    await page.goto(`${b.baseUrl}/studio/harbour-light`);
+    await page.getByRole('navigation', { name: 'Workspace' }).getByRole('link', { name: 'Audit log' }).click();
+    await page.getByLabel('Show').selectOption({ label: 'Prices' });
+    await expect.poll(() => page.getByRole('row').filter({ hasText: 'Walnut memory block, 8 × 10 in' }).filter({ hasText: 'New size offered at $64.50.' }).filter({ hasText: 'Maren Quist' }).count()).toBe(1);
+    expect(await page.getByRole('row').filter({ hasText: 'Walnut memory block, 5 × 7 in' }).filter({ hasText: 'New size offered at $39.00.' }).count()).toBe(1);
+    await shot(page, 'audit-log-prices');
     expect(problems).toEqual([]);
   });
 
@@ -116,6 +124,7 @@ describe('an owner builds the catalog; staff can only look', () => {
       throw error;
     });
     expect(await page.getByText('Only the studio’s owners can change it.').count()).toBe(1);
+    expect(await page.getByRole('navigation', { name: 'Workspace' }).getByRole('link', { name: 'Audit log' }).count()).toBe(0);
     expect(await page.getByRole('button', { name: 'New blank' }).count()).toBe(0);
     await page.getByRole('link', { name: 'Walnut memory block' }).click();
     await expect.poll(() => page.getByRole('cell', { name: '8 × 10 in', exact: true }).count()).toBe(1);

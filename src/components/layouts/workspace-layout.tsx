@@ -28,6 +28,7 @@ function WorkspaceFrame({ children }: { children: (workspace: Workspace) => Reac
     { to: `/studio/${studioSlug}/catalog`, label: 'Catalog', end: false, show: can(workspace.data?.role, 'catalog:read') },
     { to: `/studio/${studioSlug}/team`, label: 'Team', end: false, show: can(workspace.data?.role, 'team:manage') },
     { to: `/studio/${studioSlug}/settings`, label: 'Settings', end: false, show: can(workspace.data?.role, 'studio:settings') },
+    { to: `/studio/${studioSlug}/audit`, label: 'Audit log', end: false, show: can(workspace.data?.role, 'audit:read') },
   ];
   return (
     <div className="min-h-screen">
