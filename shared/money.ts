@@ -3,11 +3,24 @@
  * number of decimals comes from Intl, which follows ISO 4217.
  */
 export function minorUnitDigits(currency: string): number {
-  return new Intl.NumberFormat('en', { style: 'currency', currency }).resolvedOptions().maximumFractionDigits ?? 2;
+  return currencyFormat('en', currency).resolvedOptions().maximumFractionDigits ?? 2;
 }
 
 export function formatMoney(minor: number, currency: string, locale = 'en'): string {
-  return new Intl.NumberFormat(locale, { style: 'currency', currency }).format(minor / 10 ** minorUnitDigits(currency));
+  return currencyFormat(locale, currency).format(minor / 10 ** minorUnitDigits(currency));
+}
+
+/** Making a formatter costs far more than using one (a catalog page formats dozens of prices). */
+const formats = new Map<string, Intl.NumberFormat>();
+function currencyFormat(locale: string, currency: string): Intl.NumberFormat {
+  const key = `${locale} ${currency}`;
+  let format = formats.get(key);
+  if (!format) {
+    // Made before it is kept: an unknown code throws here, as it always has, and is not cached.
+    format = new Intl.NumberFormat(locale, { style: 'currency', currency });
+    formats.set(key, format);
+  }
+  return format;
 }
 
 /**

@@ -11,10 +11,11 @@ import { startFake, type FakeName } from './fakes.ts';
 /**
  * The local stack: every service the app needs, started in order and stopped in reverse.
  * `dev` is what `npm start` and `npm run dev` use; `test` runs beside it on other ports and other
- * data folders, so a test run never touches the demo data or clashes with a running app.
+ * data folders, so a test run never touches the demo data or clashes with a running app; `bench`
+ * is `npm start`'s stack again on ports and data of its own, reseeded each run, for the load run.
  * New services (storage, payments, mail stand-ins) are added here, each with its stop function.
  */
-export type StackMode = 'dev' | 'test';
+export type StackMode = 'dev' | 'test' | 'bench';
 
 export type Stack = {
   /** Environment for the app and the tests: connection URLs and keys of the running services. */
@@ -27,6 +28,7 @@ export type Stack = {
 const PORTS = {
   dev: { postgres: 54329, storage: 54380, payments: 54381, mailInbox: 54382, smtp: 54325 },
   test: { postgres: 54339, storage: 54390, payments: 54391, mailInbox: 54392, smtp: 54335 },
+  bench: { postgres: 54349, storage: 54370, payments: 54371, mailInbox: 54372, smtp: 54345 },
 } as const;
 
 const FAKES: FakeName[] = ['storage', 'payments', 'mail'];
@@ -50,10 +52,10 @@ export async function startStack(mode: StackMode, { appUrl = 'http://127.0.0.1:3
   try {
     const postgres = await startPostgres({ projectDir, name: `pg-${mode}`, port: PORTS[mode].postgres, fast: mode === 'test' });
     stops.push({ name: 'postgres', stop: postgres.stop });
-    const databaseUrl = postgres.url(mode === 'dev' ? 'etchwell' : 'etchwell_test_template');
-    // Each test run migrates a fresh template: nothing from an earlier run can linger.
-    if (mode === 'test') await dropDatabase(databaseUrl);
-    await prepareDatabase(databaseUrl, { seed: mode === 'dev' });
+    const databaseUrl = postgres.url({ dev: 'etchwell', test: 'etchwell_test_template', bench: 'etchwell_bench' }[mode]);
+    // Each test and load run starts from a fresh database: nothing from an earlier run can linger.
+    if (mode !== 'dev') await dropDatabase(databaseUrl);
+    await prepareDatabase(databaseUrl, { seed: mode !== 'test' });
 
     const ports = PORTS[mode];
     const stackEnv: Record<string, string> = {
@@ -70,15 +72,15 @@ export async function startStack(mode: StackMode, { appUrl = 'http://127.0.0.1:3
       const fake = await startFake(name, env, {
         dataDir: resolve(projectDir, '.data', `fakes-${mode}`),
         mailInboxPort: ports.mailInbox,
-        webhookUrl: mode === 'dev' ? `${appUrl}/api/payments/webhook` : undefined,
-        // Test runs keep the fakes' request lines out of the test report.
-        logFile: mode === 'test' ? resolve(projectDir, '.data', 'fakes-test.log') : undefined,
+        webhookUrl: mode === 'test' ? undefined : `${appUrl}/api/payments/webhook`,
+        // Test and load runs keep the fakes' request lines out of their reports.
+        logFile: mode === 'dev' ? undefined : resolve(projectDir, '.data', `fakes-${mode}.log`),
       });
       stops.push({ name: fake.name, stop: fake.stop });
       services.push(fake.describe);
     }
     // Browsers upload straight to the store: allow the app's origin (any loopback port in tests).
-    const origins = mode === 'dev' ? [appUrl, 'http://127.0.0.1:5173'] : ['http://127.0.0.1:*', 'http://localhost:*'];
+    const origins = { dev: [appUrl, 'http://127.0.0.1:5173'], bench: [appUrl], test: ['http://127.0.0.1:*', 'http://localhost:*'] }[mode];
     await createStorage(env).ensureBucket(origins);
     log(`fakes up: ${FAKES.join(', ')}; bucket ${env.S3_BUCKET} ready`);
     return { env: stackEnv, services, stop };
