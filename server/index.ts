@@ -11,6 +11,7 @@ import { createPayments } from './adapters/payments.ts';
 import { createJobs } from './adapters/jobs.ts';
 import { startWorker } from './worker.ts';
 import { createRateLimits, type RateLimits } from './lib/rate-limits.ts';
+import { trackInFlight } from './lib/in-flight.ts';
 
 /**
  * The only place that listens. Started by the stack scripts, the Docker image and `npm run dev`.
@@ -25,12 +26,14 @@ async function main(): Promise<void> {
   const worker = env.PROCESS_ROLE === 'web' ? undefined : await startWorker({ env, orm, logger, storage, jobs, mailer: createMailer(env) });
 
   let server: Server | undefined;
+  let inFlight: ReturnType<typeof trackInFlight> | undefined;
   let limits: RateLimits | undefined;
   if (env.PROCESS_ROLE !== 'worker') {
     limits = createRateLimits(env.DATABASE_URL);
     const auth = createAuth({ orm, env, logger, limits });
     const app = createApp({ env, orm, logger, version: appVersion, auth, storage, payments: createPayments(env), jobs, limits });
     server = createServer(app);
+    inFlight = trackInFlight(server);
     server.listen(env.PORT, env.HOST, () => {
       const address = server!.address();
       const port = typeof address === 'object' && address ? address.port : env.PORT;
@@ -45,13 +48,19 @@ async function main(): Promise<void> {
     if (closing) return;
     closing = true;
     logger.info({ signal }, 'shutting down');
-    const finish = () => void Promise.all([worker?.stop(), jobs.stop()]).then(() => Promise.all([orm.close(), limits?.close()])).then(() => process.exit(0));
+    const finish = async () => {
+      // Handlers still at work (for callers who hung up too) finish before the database closes.
+      await inFlight?.drained(5000);
+      await Promise.all([worker?.stop(), jobs.stop()]);
+      await Promise.all([orm.close(), limits?.close()]);
+      process.exit(0);
+    };
     if (server) {
-      server.close(finish);
+      server.close(() => void finish());
       server.closeIdleConnections();
-    } else finish();
+    } else void finish();
     // Keep-alive connections from browsers must not hold the shutdown for long.
-    setTimeout(() => process.exit(0), 6000).unref();
+    setTimeout(() => process.exit(0), 8000).unref();
   };
   process.on('SIGINT', () => shutdown('SIGINT'));
   process.on('SIGTERM', () => shutdown('SIGTERM'));

@@ -90,11 +90,14 @@ describe('database backups and migrations', () => {
     await script('backup', t.databaseUrl, file);
     const copy = await freshDatabase();
     await script('restore', copy, file);
-    // Back to the schema before production (batches, renders, hand-overs, proofs, positions)…
-    expect((await script('rollback', copy, 'Migration20261202002223')).stdout).toMatch(/^rolled back: Migration20261202005233, Migration20261202004544, Migration20261202002223$/m);
-    expect(await query(copy, "select count(*)::int as n from information_schema.tables where table_name = 'render'")).toEqual([{ n: 0 }]);
+    // Back to the schema before production (batches, renders, hand-overs, proofs, positions, the
+    // audit log and the shared rate-limit table)…
+    expect((await script('rollback', copy, 'Migration20261202002223')).stdout).toMatch(/^rolled back: Migration20261202025704, Migration20261202005233, Migration20261202004544, Migration20261202002223$/m);
+    const tables = async () => (await query(copy, "select table_name from information_schema.tables where table_name in ('render', 'audit_entry', 'rate_limit', 'sign_in_limit') order by 1")).map((r) => r.table_name);
+    expect(await tables()).toEqual(['sign_in_limit']);
     // …then forward again to the newest, as a deployment would run them.
     expect((await script('migrate', copy, '')).stdout).toContain('migrations: up to date');
+    expect(await tables()).toEqual(['audit_entry', 'rate_limit', 'render']);
     expect(await snapshot(copy)).toEqual(await snapshot(t.databaseUrl));
     expect(await query(copy, 'select distinct "position" from "order_item"')).toEqual([{ position: 0 }]);
   });
