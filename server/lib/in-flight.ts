@@ -23,9 +23,6 @@ export function trackInFlight(server: Server) {
     } as ServerResponse['end'];
   });
   return {
-    get count() {
-      return count;
-    },
     /** Resolves once no handler is at work, or after `timeoutMs`. */
     async drained(timeoutMs: number): Promise<void> {
       const until = Date.now() + timeoutMs;

@@ -36,6 +36,10 @@ function waitWords(ms: number): string {
   return `${hours} hours`;
 }
 
+/** The 429 for a spent limit: what happened, how long to wait in words and in Retry-After. */
+const tooMany = (message: string, msBeforeNext: number) =>
+  new AppError('RATE_LIMITED', `${message} Try again in ${waitWords(msBeforeNext)}.`, { retryAfterSeconds: Math.ceil(msBeforeNext / 1000) });
+
 export function createRateLimits(databaseUrl: string) {
   const pool = new pg.Pool({ connectionString: databaseUrl, max: 3 });
   const limiter = (keyPrefix: string, points: number, duration: number, blockDuration = 0) =>
@@ -46,7 +50,7 @@ export function createRateLimits(databaseUrl: string) {
     try {
       await limit.consume(key);
     } catch (error) {
-      if (error instanceof RateLimiterRes) throw new AppError('RATE_LIMITED', `${message} Try again in ${waitWords(error.msBeforeNext)}.`, { retryAfterSeconds: Math.ceil(error.msBeforeNext / 1000) });
+      if (error instanceof RateLimiterRes) throw tooMany(message, error.msBeforeNext);
       throw error;
     }
   }
@@ -71,9 +75,7 @@ export function createRateLimits(databaseUrl: string) {
       /** Before a password attempt: refuses when the address or the account is blocked. */
       async checkPasswordAttempt(ip: string, email: string): Promise<void> {
         const account = await failuresPerAccount.get(email);
-        if (account && account.consumedPoints >= failuresPerAccount.points) {
-          throw new AppError('RATE_LIMITED', `${signInMessage} Try again in ${waitWords(account.msBeforeNext)}.`, { retryAfterSeconds: Math.ceil(account.msBeforeNext / 1000) });
-        }
+        if (account && account.consumedPoints >= failuresPerAccount.points) throw tooMany(signInMessage, account.msBeforeNext);
         await take(attemptsPerIp, ip, signInMessage);
       },
       async recordPasswordFailure(email: string): Promise<void> {

@@ -29,9 +29,10 @@ export const AUDIT_GROUPS = {
   photos: "Buyers' photos downloaded",
 } as const;
 export type AuditGroup = keyof typeof AUDIT_GROUPS;
+const auditGroupSchema = z.enum(Object.keys(AUDIT_GROUPS) as [AuditGroup, ...AuditGroup[]]);
 
 export const auditListQuerySchema = z.object({
-  group: z.enum(Object.keys(AUDIT_GROUPS) as [AuditGroup, ...AuditGroup[]]).optional(),
+  group: auditGroupSchema.optional(),
   /** The `next` of the previous page: entries older than it. */
   before: z.string().regex(/^\d{4}-\d{2}-\d{2}T[\d:.]+Z_[0-9a-f-]{36}$/, 'Not a page marker from this list.').optional(),
   limit: z.coerce.number().int().min(1).max(100).default(50),
@@ -59,7 +60,7 @@ export const auditEntrySchema = z.object({
   id: z.string(),
   at: z.string(),
   action: z.enum(Object.keys(AUDIT_ACTIONS) as [AuditAction, ...AuditAction[]]),
-  group: z.enum(Object.keys(AUDIT_GROUPS) as [AuditGroup, ...AuditGroup[]]),
+  group: auditGroupSchema,
   /** The member's name (or e-mail) at the time. */
   actor: z.string(),
   /** What it was done to, e.g. "Order 1042" or "Slate, 8 × 10 in". */

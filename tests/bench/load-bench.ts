@@ -1,6 +1,7 @@
 import { fork } from 'node:child_process';
 import { join } from 'node:path';
 import autocannon from 'autocannon';
+import pLimit from 'p-limit';
 import sharp from 'sharp';
 import type Stripe from 'stripe';
 
@@ -103,19 +104,6 @@ async function uploadPhoto(baseUrl: string, jpeg: Buffer): Promise<string> {
   return ticket.key;
 }
 
-/** Runs `work` over `count` items, `parallel` at a time. */
-async function inParallel<T>(count: number, parallel: number, work: (i: number) => Promise<T>): Promise<T[]> {
-  const out: T[] = new Array(count);
-  let next = 0;
-  await Promise.all(Array.from({ length: parallel }, async () => {
-    while (next < count) {
-      const i = next++;
-      out[i] = await work(i);
-    }
-  }));
-  return out;
-}
-
 /**
  * What the run needs on the demo studio: an order with its private link, and a pool of uploaded
  * photos waiting to be accepted (each accept uses one up). The photo is 1200 × 900 px, about
@@ -145,7 +133,8 @@ export async function prepareStorefrontLoad(baseUrl: string, stripe: Stripe, { u
   const accessKey = new URL(session.success_url!).searchParams.get('key')!;
   const orderPage = `/api/storefront/${STUDIO}/orders/${placed.orderId}?key=${encodeURIComponent(accessKey)}`;
 
-  const keys = await inParallel(uploads, 16, () => uploadPhoto(baseUrl, jpeg));
+  const sixteenAtATime = pLimit(16);
+  const keys = await Promise.all(Array.from({ length: uploads }, () => sixteenAtATime(() => uploadPhoto(baseUrl, jpeg))));
   let used = 0;
   return {
     uploadsLeft: () => keys.length - used,

@@ -28,3 +28,6 @@ export class User extends BaseEntity<'name' | 'passwordHash' | 'emailVerifiedAt'
   @Property({ type: 'integer' })
   sessionVersion: number = 1;
 }
+
+/** How a person appears on timelines, job sheets, e-mails and the audit log: their name, else their e-mail. */
+export const displayName = (user: Pick<User, 'name' | 'email'>) => user.name ?? user.email;

@@ -1,6 +1,6 @@
 import type { EntityManager, FilterQuery } from '@mikro-orm/postgresql';
 import { AUDIT_ACTIONS, type AuditAction, type AuditEntryView, type AuditGroup, type AuditPage } from '../../../shared/schemas/audit.ts';
-import type { User } from '../accounts/user.entity.ts';
+import { displayName, type User } from '../accounts/user.entity.ts';
 import type { Studio } from '../studios/studio.entity.ts';
 import { AuditEntry } from './audit-entry.entity.ts';
 
@@ -20,7 +20,7 @@ export function recordAudit(em: EntityManager, studio: Studio, actor: User, reco
   return em.create(AuditEntry, {
     studio,
     actor,
-    actorName: (actor.name ?? actor.email).slice(0, 200),
+    actorName: displayName(actor).slice(0, 200),
     action: record.action,
     subject: record.subject.slice(0, 200),
     summary: record.summary,

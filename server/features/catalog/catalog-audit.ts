@@ -1,18 +1,17 @@
 import { HALFTONE_METHODS, type HalftoneMethod } from '../../../shared/imaging/halftone/halftone.ts';
-import { formatMoney } from '../../../shared/money.ts';
+import { SPEED_UNIT_LABELS } from '../../../shared/schemas/catalog.ts';
 import type { BlankSize, Recipe } from './catalog.entity.ts';
 
 /**
- * How catalog changes read in the audit log: a recipe's burn settings and a size's price, as
- * labelled facts that can be listed or compared.
+ * How catalog changes read in the audit log: a recipe's burn settings as
+ * labelled facts that can be listed or compared, and the names they go by.
  */
 export function recipeFacts(recipe: Recipe): Record<string, string> {
-  const unit = recipe.machine.speedUnit === 'percent' ? ' %' : ` ${recipe.machine.speedUnit}`;
   return {
     'Line density': `${recipe.linesPerInch} lpi`,
     Halftone: HALFTONE_METHODS[recipe.halftoneMethod as HalftoneMethod] ?? recipe.halftoneMethod,
     Tone: recipe.tone,
-    Speed: `${recipe.speed}${unit}`,
+    Speed: `${recipe.speed} ${SPEED_UNIT_LABELS[recipe.machine.speedUnit]}`,
     Power: `${recipe.powerMinPercent}–${recipe.powerMaxPercent} %`,
     Passes: String(recipe.passes),
   };
@@ -22,4 +21,3 @@ export const recipeSubject = (recipe: Recipe) => `${recipe.material.name} on ${r
 
 export const sizeSubject = (size: BlankSize) => `${size.blank.name}, ${size.label}`;
 
-export const sizePrice = (size: BlankSize, currency: string) => formatMoney(size.priceMinor, currency);

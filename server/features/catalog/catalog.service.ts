@@ -12,7 +12,8 @@ import { issueUpload, readUpload } from '../uploads/uploads.service.ts';
 import { toWebPhoto } from '../../imaging/web-photo.ts';
 import type { User } from '../accounts/user.entity.ts';
 import { describeChanges, describeFacts, recordAudit } from '../audit/audit.service.ts';
-import { recipeFacts, recipeSubject, sizePrice, sizeSubject } from './catalog-audit.ts';
+import { recipeFacts, recipeSubject, sizeSubject } from './catalog-audit.ts';
+import { formatMoney } from '../../../shared/money.ts';
 
 const recipesLink = (studio: Studio) => `/studio/${studio.slug}/catalog/recipes`;
 const blankLink = (studio: Studio, blank: Blank) => `/studio/${studio.slug}/catalog/blanks/${blank.id}`;
@@ -174,7 +175,7 @@ export async function updateBlank(em: EntityManager, studio: Studio, id: string,
 export async function addSize(em: EntityManager, studio: Studio, blankId: string, input: SizeInput, actor: User): Promise<BlankSize> {
   const blank = await findIn(em, Blank, studio, blankId, 'blank');
   const size = em.create(BlankSize, { ...input, blank, studio });
-  recordAudit(em, studio, actor, { action: 'price.changed', subject: sizeSubject(size), summary: `New size offered at ${sizePrice(size, studio.currency)}.`, link: blankLink(studio, blank), details: { sizeId: size.id, priceMinor: size.priceMinor, currency: studio.currency } });
+  recordAudit(em, studio, actor, { action: 'price.changed', subject: sizeSubject(size), summary: `New size offered at ${formatMoney(size.priceMinor, studio.currency)}.`, link: blankLink(studio, blank), details: { sizeId: size.id, priceMinor: size.priceMinor, currency: studio.currency } });
   await em.flush();
   return size;
 }
@@ -182,10 +183,11 @@ export async function addSize(em: EntityManager, studio: Studio, blankId: string
 export async function updateSize(em: EntityManager, studio: Studio, id: string, input: SizeInput, actor: User): Promise<BlankSize> {
   const size = await findIn(em, BlankSize, studio, id, 'size');
   await em.populate(size, ['blank']);
-  const before = { minor: size.priceMinor, price: sizePrice(size, studio.currency) };
+  const fromMinor = size.priceMinor;
   em.assign(size, input);
-  if (size.priceMinor !== before.minor) {
-    recordAudit(em, studio, actor, { action: 'price.changed', subject: sizeSubject(size), summary: `Price: ${before.price} → ${sizePrice(size, studio.currency)}.`, link: blankLink(studio, size.blank), details: { sizeId: size.id, fromMinor: before.minor, toMinor: size.priceMinor, currency: studio.currency } });
+  if (size.priceMinor !== fromMinor) {
+    const money = (minor: number) => formatMoney(minor, studio.currency);
+    recordAudit(em, studio, actor, { action: 'price.changed', subject: sizeSubject(size), summary: `Price: ${money(fromMinor)} → ${money(size.priceMinor)}.`, link: blankLink(studio, size.blank), details: { sizeId: size.id, fromMinor, toMinor: size.priceMinor, currency: studio.currency } });
   }
   await em.flush();
   return size;
@@ -194,7 +196,7 @@ export async function updateSize(em: EntityManager, studio: Studio, id: string, 
 export async function removeSize(em: EntityManager, studio: Studio, id: string, actor: User): Promise<void> {
   const size = await findIn(em, BlankSize, studio, id, 'size');
   await em.populate(size, ['blank']);
-  recordAudit(em, studio, actor, { action: 'price.changed', subject: sizeSubject(size), summary: `Size taken off sale (it was ${sizePrice(size, studio.currency)}).`, link: blankLink(studio, size.blank), details: { sizeId: size.id, fromMinor: size.priceMinor, currency: studio.currency } });
+  recordAudit(em, studio, actor, { action: 'price.changed', subject: sizeSubject(size), summary: `Size taken off sale (it was ${formatMoney(size.priceMinor, studio.currency)}).`, link: blankLink(studio, size.blank), details: { sizeId: size.id, fromMinor: size.priceMinor, currency: studio.currency } });
   em.remove(size);
   await em.flush();
 }

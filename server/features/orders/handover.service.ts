@@ -2,10 +2,10 @@ import type { EntityManager } from '@mikro-orm/postgresql';
 import { AppError } from '../../../shared/errors.ts';
 import { assertMove, ORDER_TRANSITIONS } from '../../../shared/orders/stages.ts';
 import type { ShipInput } from '../../../shared/schemas/production.ts';
-import type { User } from '../accounts/user.entity.ts';
+import { displayName, type User } from '../accounts/user.entity.ts';
 import { queueEmail } from '../outbox/outbox.service.ts';
 import type { Studio } from '../studios/studio.entity.ts';
-import { actorName, moveItem } from './item-moves.ts';
+import { moveItem } from './item-moves.ts';
 import { handedOverMail } from './order-mail.ts';
 import { OrderEvent, type Order } from './order.entity.ts';
 import { findOrder } from './review.service.ts';
@@ -21,7 +21,7 @@ export async function handOver(em: EntityManager, studio: Studio, orderId: strin
   const items = [...new Set(input.itemIds)].map((id) => order.items.getItems().find((item) => item.id === id));
   if (items.some((item) => !item)) throw new AppError('NOT_FOUND', 'Some of these items are not in this order.');
   if (order.status !== 'paid') throw new AppError('CONFLICT', `This order is ${order.status.replaceAll('_', ' ')}: only paid orders are shipped.`);
-  const by = actorName(user);
+  const by = displayName(user);
   const at = new Date().toISOString();
   for (const item of items) {
     if (input.method === 'ship') {

@@ -2,12 +2,8 @@ import type { EntityManager } from '@mikro-orm/postgresql';
 import { AppError } from '../../../shared/errors.ts';
 import { assertItemAction, ITEM_ACTIONS, type ItemAction } from '../../../shared/orders/stages.ts';
 import { isUuid } from '../../lib/tokens.ts';
-import type { User } from '../accounts/user.entity.ts';
 import type { Studio } from '../studios/studio.entity.ts';
 import { OrderEvent, OrderItem } from './order.entity.ts';
-
-/** How a member appears on an order's timeline. */
-export const actorName = (user: User) => user.name ?? user.email;
 
 /** One item of the studio, with its order and photo; another studio's answers 404. */
 export async function findItem(em: EntityManager, studio: Studio, id: string): Promise<OrderItem> {

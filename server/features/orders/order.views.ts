@@ -23,6 +23,9 @@ export function lookOf(item: OrderItem): BurnLook {
 }
 
 /** An order as its buyer sees it on the private order page. */
+/** Where staff open an order in the workspace (the job sheet's QR code and audit lines point here). */
+export const workspaceOrderPath = (studioSlug: string, orderId: string) => `/studio/${studioSlug}/orders/${orderId}`;
+
 export function orderView(order: Order): OrderView {
   const money = (minor: number) => formatMoney(minor, order.currency);
   const slug = order.studio.slug;

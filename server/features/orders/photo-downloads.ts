@@ -5,6 +5,7 @@ import { recordAudit } from '../audit/audit.service.ts';
 import type { BuyerPhoto } from '../photos/buyer-photo.entity.ts';
 import type { Studio } from '../studios/studio.entity.ts';
 import { OrderItem } from './order.entity.ts';
+import { workspaceOrderPath } from './order.views.ts';
 
 /**
  * How long the browser keeps an original photo (its cache-control): within it, the same member
@@ -21,7 +22,7 @@ export async function recordPhotoDownload(em: EntityManager, studio: Studio, use
     action: 'photo.downloaded',
     subject: item ? `Order ${item.order.number}` : 'A photo not in an order',
     summary: `Opened the original photo (${photo.width} × ${photo.height} px)${item ? ` for ${item.snapshot.blank.name}, ${item.snapshot.size.label}` : ''}.`,
-    link: item ? `/studio/${studio.slug}/orders/${item.order.id}` : null,
+    link: item ? workspaceOrderPath(studio.slug, item.order.id) : null,
     details: { photoId: photo.id, itemId: item?.id ?? null },
   });
   await em.flush();

@@ -6,11 +6,11 @@ import { renderProofImage } from './proof-image.ts';
 import { AppError } from '../../../shared/errors.ts';
 import { NO_CUTOUT, prepSettingsSchema, type PrepSettings, type ProofDecision } from '../../../shared/schemas/prep.ts';
 import { hashToken, newLinkToken } from '../../lib/tokens.ts';
-import type { User } from '../accounts/user.entity.ts';
+import { displayName, type User } from '../accounts/user.entity.ts';
 import { queueEmail } from '../outbox/outbox.service.ts';
 import type { Studio } from '../studios/studio.entity.ts';
 import { proofMail } from './order-mail.ts';
-import { actorName, findItem, moveItem } from './item-moves.ts';
+import { findItem, moveItem } from './item-moves.ts';
 import { OrderEvent, OrderItem } from './order.entity.ts';
 import { lookOf } from './order.views.ts';
 
@@ -34,8 +34,8 @@ export async function savePrep(em: EntityManager, studio: Studio, itemId: string
   const item = await findItem(em, studio, itemId);
   if (item.stage !== 'prep') throw new AppError('CONFLICT', `This item is ${item.stage.replaceAll('_', ' ')}: prep settings can be changed only while it is being prepared.`);
   const version = (item.prepVersions.at(-1)?.version ?? 0) + 1;
-  item.prepVersions = [...item.prepVersions, { version, settings, savedBy: actorName(user), savedAt: new Date().toISOString() }];
-  em.create(OrderEvent, { studio, order: item.order, item, type: 'prep_saved', actor: actorName(user), text: `Prep settings version ${version} saved by ${actorName(user)}.` });
+  item.prepVersions = [...item.prepVersions, { version, settings, savedBy: displayName(user), savedAt: new Date().toISOString() }];
+  em.create(OrderEvent, { studio, order: item.order, item, type: 'prep_saved', actor: displayName(user), text: `Prep settings version ${version} saved by ${displayName(user)}.` });
   await em.flush();
   return item;
 }
@@ -49,7 +49,7 @@ export async function sendProof(em: EntityManager, storage: Storage, studio: Stu
   const imageKey = `studios/${studio.id}/proofs/${randomUUID()}.png`;
   await storage.put(imageKey, image, 'image/png');
   const token = newLinkToken();
-  moveItem(em, item, 'sendProof', actorName(user), `Proof sent to the buyer by ${actorName(user)}.`, 'proof_sent');
+  moveItem(em, item, 'sendProof', displayName(user), `Proof sent to the buyer by ${displayName(user)}.`, 'proof_sent');
   item.proofTokenHash = token.hash;
   item.proofImageKey = imageKey;
   queueEmail(em, { to: item.order.buyerEmail, ...proofMail({ studioName: studio.name, number: item.order.number, buyerName: item.order.buyerName, what: `${item.snapshot.blank.name}, ${item.snapshot.size.label}`, url: `${appUrl}/s/${studio.slug}/proofs/${token.token}` }) });
@@ -61,7 +61,7 @@ export async function sendProof(em: EntityManager, storage: Storage, studio: Stu
 export async function approveWithoutProof(em: EntityManager, studio: Studio, itemId: string, user: User): Promise<OrderItem> {
   const item = await findItem(em, studio, itemId);
   if (studio.proofsRequired) throw new AppError('CONFLICT', 'This studio sends every buyer a proof before engraving. Send a proof, or change that in Settings.');
-  moveItem(em, item, 'approveWithoutProof', actorName(user), `Approved for engraving without a proof by ${actorName(user)}.`, 'approved');
+  moveItem(em, item, 'approveWithoutProof', displayName(user), `Approved for engraving without a proof by ${displayName(user)}.`, 'approved');
   await em.flush();
   return item;
 }
@@ -85,7 +85,7 @@ export async function answerProof(em: EntityManager, studio: Studio, token: stri
 /** After a change request, back to prep. */
 export async function reopenPrep(em: EntityManager, studio: Studio, itemId: string, user: User): Promise<OrderItem> {
   const item = await findItem(em, studio, itemId);
-  moveItem(em, item, 'reopenPrep', actorName(user), `Back to prep, by ${actorName(user)}.`, 'prep_reopened');
+  moveItem(em, item, 'reopenPrep', displayName(user), `Back to prep, by ${displayName(user)}.`, 'prep_reopened');
   await em.flush();
   return item;
 }

@@ -3,16 +3,15 @@ import { AppError } from '../../../shared/errors.ts';
 import { formatMoney } from '../../../shared/money.ts';
 import { assertMove, ITEM_TRANSITIONS, ORDER_TRANSITIONS, type ItemStage } from '../../../shared/orders/stages.ts';
 import type { Payments } from '../../adapters/payments.ts';
-import type { User } from '../accounts/user.entity.ts';
+import { displayName, type User } from '../accounts/user.entity.ts';
 import { queueEmail } from '../outbox/outbox.service.ts';
 import type { Studio } from '../studios/studio.entity.ts';
 import { cancelledMail, refundedMail } from './order-mail.ts';
-import { actorName, findItem, moveItem } from './item-moves.ts';
+import { findItem, moveItem } from './item-moves.ts';
 import { OrderEvent, type Order } from './order.entity.ts';
 import { findOrder } from './review.service.ts';
 import { recordAudit } from '../audit/audit.service.ts';
-
-const orderLink = (studio: Studio, order: Order) => `/studio/${studio.slug}/orders/${order.id}`;
+import { workspaceOrderPath } from './order.views.ts';
 
 /** Once an item is on the machine its blank is used: the order can be refunded, not cancelled. */
 const CANCELLABLE: readonly ItemStage[] = ['unpaid', 'photo_review', 'needs_new_photo', 'prep', 'proof_sent', 'changes_requested', 'approved'];
@@ -38,12 +37,12 @@ export async function refundOrder(em: EntityManager, payments: Payments, studio:
     order.status = 'refunded';
   }
   const money = formatMoney(amount, order.currency);
-  em.create(OrderEvent, { studio, order, type: 'refunded', actor: actorName(user), text: `${whole ? 'Refunded in full' : 'Refunded in part'}: ${money}, by ${actorName(user)}. Reason: ${input.reason}` });
+  em.create(OrderEvent, { studio, order, type: 'refunded', actor: displayName(user), text: `${whole ? 'Refunded in full' : 'Refunded in part'}: ${money}, by ${displayName(user)}. Reason: ${input.reason}` });
   recordAudit(em, studio, user, {
     action: 'order.refunded',
     subject: `Order ${order.number}`,
     summary: `Refunded ${money} ${whole ? 'in full' : 'in part'}; ${formatMoney(order.refundedMinor, order.currency)} of ${formatMoney(order.totalMinor, order.currency)} refunded so far. Reason: ${input.reason}`,
-    link: orderLink(studio, order),
+    link: workspaceOrderPath(studio.slug, order.id),
     details: { orderId: order.id, amountMinor: amount, refundedMinor: order.refundedMinor, totalMinor: order.totalMinor, currency: order.currency },
   });
   queueEmail(em, { to: order.buyerEmail, ...refundedMail({ studioName: studio.name, number: order.number, buyerName: order.buyerName, amount: money, reason: input.reason }) });
@@ -69,12 +68,12 @@ export async function cancelOrder(em: EntityManager, payments: Payments, studio:
     if (wasPaid && item.size) await em.execute('update "blank_size" set "stock" = "stock" + ? where "id" = ? and "studio_id" = ? and "stock" is not null', [item.quantity, item.size.id, studio.id]);
   }
   const refunded = wasPaid && left > 0 ? ` ${formatMoney(left, order.currency)} refunded.` : '';
-  em.create(OrderEvent, { studio, order, type: 'cancelled', actor: actorName(user), text: `Cancelled by ${actorName(user)}. Reason: ${reason}.${refunded}` });
+  em.create(OrderEvent, { studio, order, type: 'cancelled', actor: displayName(user), text: `Cancelled by ${displayName(user)}. Reason: ${reason}.${refunded}` });
   recordAudit(em, studio, user, {
     action: 'order.cancelled',
     subject: `Order ${order.number}`,
     summary: `Cancelled. Reason: ${reason}.${refunded || ' Nothing was paid, so nothing was refunded.'}`,
-    link: orderLink(studio, order),
+    link: workspaceOrderPath(studio.slug, order.id),
     details: { orderId: order.id, refundedMinor: wasPaid ? left : 0, currency: order.currency },
   });
   queueEmail(em, { to: order.buyerEmail, ...cancelledMail({ studioName: studio.name, number: order.number, buyerName: order.buyerName, reason, refund: refunded.trim() }) });

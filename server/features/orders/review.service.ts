@@ -7,12 +7,12 @@ import type { Placement } from '../../../shared/schemas/checkout.ts';
 import { REVIEW_REASONS, type OrderList, type orderListQuerySchema, type ReviewItem, type ReviewReason } from '../../../shared/schemas/workspace-orders.ts';
 import type { z } from 'zod';
 import { hashToken, isUuid, newLinkToken } from '../../lib/tokens.ts';
-import type { User } from '../accounts/user.entity.ts';
+import { displayName, type User } from '../accounts/user.entity.ts';
 import { queueEmail } from '../outbox/outbox.service.ts';
 import { buyerPhotoView, findBuyerPhoto } from '../photos/photos.service.ts';
 import type { Studio } from '../studios/studio.entity.ts';
 import { newPhotoNeededMail } from './order-mail.ts';
-import { actorName, findItem, moveItem } from './item-moves.ts';
+import { findItem, moveItem } from './item-moves.ts';
 import { Order, OrderItem } from './order.entity.ts';
 import { lookOf } from './order.views.ts';
 
@@ -91,7 +91,7 @@ export async function reviewQueue(em: EntityManager, studio: Studio): Promise<Re
 
 export async function approvePhoto(em: EntityManager, studio: Studio, itemId: string, user: User): Promise<OrderItem> {
   const item = await findItem(em, studio, itemId);
-  moveItem(em, item, 'approvePhoto', actorName(user), `Photo for ${item.snapshot.blank.name}, ${item.snapshot.size.label} approved by ${actorName(user)}.`, 'photo_approved');
+  moveItem(em, item, 'approvePhoto', displayName(user), `Photo for ${item.snapshot.blank.name}, ${item.snapshot.size.label} approved by ${displayName(user)}.`, 'photo_approved');
   await em.flush();
   return item;
 }
@@ -103,7 +103,7 @@ export async function approvePhoto(em: EntityManager, studio: Studio, itemId: st
 export async function askNewPhoto(em: EntityManager, studio: Studio, itemId: string, user: User, input: { reason: ReviewReason; note: string }, appUrl: string): Promise<OrderItem> {
   const item = await findItem(em, studio, itemId);
   const token = newLinkToken();
-  moveItem(em, item, 'askNewPhoto', actorName(user), `New photo asked for by ${actorName(user)}: ${REVIEW_REASONS[input.reason].toLowerCase()}${input.note ? ` (“${input.note}”)` : ''}.`, 'new_photo_asked');
+  moveItem(em, item, 'askNewPhoto', displayName(user), `New photo asked for by ${displayName(user)}: ${REVIEW_REASONS[input.reason].toLowerCase()}${input.note ? ` (“${input.note}”)` : ''}.`, 'new_photo_asked');
   Object.assign(item, { replacementTokenHash: token.hash, replacementReason: input.reason, replacementNote: input.note });
   queueEmail(em, {
     to: item.order.buyerEmail,

@@ -6,15 +6,16 @@ import { RENDER_FILE_KINDS, RENDER_FILE_LABELS, type BatchMachine, type BatchSum
 import { QUEUES, type Jobs } from '../../adapters/jobs.ts';
 import type { Storage } from '../../adapters/storage.ts';
 import { isUuid } from '../../lib/tokens.ts';
-import type { User } from '../accounts/user.entity.ts';
+import { displayName, type User } from '../accounts/user.entity.ts';
 import { Recipe } from '../catalog/catalog.entity.ts';
-import { actorName, findItem, moveItem } from '../orders/item-moves.ts';
+import { findItem, moveItem } from '../orders/item-moves.ts';
 import { OrderItem } from '../orders/order.entity.ts';
 import { currentPrep } from '../orders/prep.service.ts';
 import type { Studio } from '../studios/studio.entity.ts';
 import { ProductionBatch, Render } from './production.entity.ts';
 import { burnSecondsFor, renderKeys } from './render.service.ts';
 import { recordAudit } from '../audit/audit.service.ts';
+import { workspaceOrderPath } from '../orders/order.views.ts';
 
 /** Items of one material and one machine recipe burn in one batch. */
 const groupKey = (item: OrderItem) => `${item.snapshot.blank.material.id}:${item.snapshot.recipe?.id ?? 'none'}`;
@@ -91,11 +92,11 @@ export async function createBatch(em: EntityManager, jobs: Jobs, studio: Studio,
   const renders = await em.transactional(async (tx) => {
     await tx.execute('select "id" from "studio" where "id" = ? for update', [studio.id]);
     const [row] = await tx.execute<Array<{ next: number }>>('select coalesce(max("number"), 0) + 1 as "next" from "production_batch" where "studio_id" = ?', [studio.id]);
-    const batch = tx.create(ProductionBatch, { studio, number: Number(row!.next), materialName: first.snapshot.blank.material.name, recipeId: first.snapshot.recipe?.id ?? null, machine: await machineOf(tx, studio, first.snapshot.recipe?.id), createdBy: actorName(user) });
+    const batch = tx.create(ProductionBatch, { studio, number: Number(row!.next), materialName: first.snapshot.blank.material.name, recipeId: first.snapshot.recipe?.id ?? null, machine: await machineOf(tx, studio, first.snapshot.recipe?.id), createdBy: displayName(user) });
     const made: Render[] = [];
     for (const item of items) {
       const managed = tx.merge(item);
-      moveItem(tx, managed, 'startProduction', actorName(user), `Into production in batch ${batch.number}, by ${actorName(user)}.`, 'in_production');
+      moveItem(tx, managed, 'startProduction', displayName(user), `Into production in batch ${batch.number}, by ${displayName(user)}.`, 'in_production');
       made.push(tx.create(Render, { studio, item: managed, batch, status: 'queued', keyPrefix: `studios/${studio.id}/renders/${randomUUID()}`, prepVersion: managed.prepVersions.at(-1)?.version ?? 0 }));
     }
     return { batch, made };
@@ -176,8 +177,8 @@ export async function renderDownload(em: EntityManager, storage: Storage, studio
   recordAudit(em, studio, user, {
     action: 'render.downloaded',
     subject: `Order ${render.item.order.number}`,
-    summary: `Downloaded ${`the ${RENDER_FILE_LABELS[kind as RenderFileKind].toLowerCase()}`} for ${render.item.snapshot.blank.name}, ${render.item.snapshot.size.label}.`,
-    link: `/studio/${studio.slug}/orders/${render.item.order.id}`,
+    summary: `Downloaded the ${RENDER_FILE_LABELS[kind as RenderFileKind].toLowerCase()} for ${render.item.snapshot.blank.name}, ${render.item.snapshot.size.label}.`,
+    link: workspaceOrderPath(studio.slug, render.item.order.id),
     details: { renderId: render.id, itemId: render.item.id, kind },
   });
   await em.flush();
@@ -189,7 +190,7 @@ export async function markBurned(em: EntityManager, studio: Studio, itemId: stri
   const item = await findItem(em, studio, itemId);
   const render = await em.findOne(Render, { item, studio });
   if (item.stage === 'in_production' && render?.status !== 'done') throw new AppError('CONFLICT', 'Render the files before marking the item burned.');
-  moveItem(em, item, 'markBurned', actorName(user), `Burned; marked by ${actorName(user)}.`, 'burned');
+  moveItem(em, item, 'markBurned', displayName(user), `Burned; marked by ${displayName(user)}.`, 'burned');
   await em.flush();
   return item;
 }
@@ -198,7 +199,7 @@ export async function markBurned(em: EntityManager, studio: Studio, itemId: stri
 export async function takeOutOfBatch(em: EntityManager, storage: Storage, studio: Studio, itemId: string, user: User): Promise<OrderItem> {
   const item = await findItem(em, studio, itemId);
   const render = await em.findOne(Render, { item, studio }, { populate: ['batch'] });
-  moveItem(em, item, 'takeOutOfBatch', actorName(user), `Taken out of ${render ? `batch ${render.batch.number}` : 'production'} by ${actorName(user)}; waiting for a new batch.`, 'out_of_batch');
+  moveItem(em, item, 'takeOutOfBatch', displayName(user), `Taken out of ${render ? `batch ${render.batch.number}` : 'production'} by ${displayName(user)}; waiting for a new batch.`, 'out_of_batch');
   if (render) em.remove(render);
   await em.flush();
   if (render) await Promise.all(Object.values(renderKeys(render.keyPrefix)).map((key) => storage.remove(key)));

@@ -19,6 +19,7 @@ import { inscribeMaster } from '../../imaging/inscription.ts';
 import { burnItem, placeItemPhoto } from '../orders/item-burn.ts';
 import { OrderEvent, type OrderItem } from '../orders/order.entity.ts';
 import { currentPrep } from '../orders/prep.service.ts';
+import { workspaceOrderPath } from '../orders/order.views.ts';
 import type { Studio } from '../studios/studio.entity.ts';
 import { jobSheetPdf } from './job-sheet.ts';
 import { Render, type ProductionBatch } from './production.entity.ts';
@@ -141,7 +142,7 @@ function jobSheetFor(input: { studio: Studio; batch: ProductionBatch; item: Orde
     studioName: studio.name,
     title: `Order ${order.number}: item ${index} of ${order.items.length}`,
     subtitle: `Batch ${batch.number} · ${snapshot.blank.name}, ${snapshot.size.label}`,
-    orderUrl: `${appUrl}/studio/${studio.slug}/orders/${order.id}`,
+    orderUrl: `${appUrl}${workspaceOrderPath(studio.slug, order.id)}`,
     preview,
     rows,
     checks: ['The blank is the right material and size', 'A test burn on scrap of the same material looks right', 'The engraving matches the preview', 'The piece is cleaned and checked', `Packed with order ${order.number}`],

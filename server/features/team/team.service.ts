@@ -5,7 +5,7 @@ import type { CreateInviteInput, InvitePreview, Team } from '../../../shared/sch
 import { withoutTenantFilter } from '../../db/tenant.ts';
 import { hashPassword } from '../../auth/password.ts';
 import { hashToken, isUuid, maskEmail, newLinkToken } from '../../lib/tokens.ts';
-import { User } from '../accounts/user.entity.ts';
+import { displayName, User } from '../accounts/user.entity.ts';
 import type { Studio } from '../studios/studio.entity.ts';
 import { Invite } from './invite.entity.ts';
 import { Membership } from './membership.entity.ts';
@@ -48,7 +48,7 @@ export async function createInvite(em: EntityManager, studio: Studio, invitedBy:
       invitedBy,
     });
     const url = `${appUrl}/invites/${token}`;
-    queueEmail(tx, { to: input.email, ...inviteMail({ studioName: studio.name, inviterName: invitedBy.name ?? invitedBy.email, role: input.role, url, validDays: INVITE_VALID_DAYS }) });
+    queueEmail(tx, { to: input.email, ...inviteMail({ studioName: studio.name, inviterName: displayName(invitedBy), role: input.role, url, validDays: INVITE_VALID_DAYS }) });
     recordAudit(tx, studio, invitedBy, { action: 'invite.sent', subject: input.email, summary: `Invited ${input.email} to join as ${input.role}.`, link: teamLink(studio), details: { inviteId: invite.id, role: input.role } });
     return invite;
   });
