@@ -37,13 +37,24 @@ export const studioSettingsInputSchema = z.object({
 });
 export type StudioSettingsInput = z.infer<typeof studioSettingsInputSchema>;
 
-/** How a studio takes orders: low-resolution photos, and collection in person. */
+/**
+ * The grayscale master's resolution. 1000 ppi is the trade's usual choice for machine software
+ * that resamples and halftones the picture itself (common practice, no source); "recipe" writes
+ * it at the recipe's line density, dot for dot with the engrave file.
+ */
+export const MASTER_RESOLUTIONS = { '1000-ppi': '1000 pixels per inch', recipe: 'The recipe’s line density' } as const;
+export type MasterResolution = keyof typeof MASTER_RESOLUTIONS;
+export const MASTER_PPI = 1000;
+export const masterPpi = (choice: MasterResolution, linesPerInch: number) => (choice === 'recipe' ? linesPerInch : MASTER_PPI);
+
+/** How a studio takes orders: low-resolution photos, collection in person, and the files it gets. */
 export const orderSettingsInputSchema = z
   .object({
     lowResolutionPolicy: z.enum(['confirm', 'refuse']),
     pickupEnabled: z.boolean(),
     /** Whether every item gets a proof for the buyer to approve before it is engraved. */
     proofsRequired: z.boolean(),
+    masterResolution: z.enum(Object.keys(MASTER_RESOLUTIONS) as [MasterResolution, ...MasterResolution[]], 'Choose the master’s resolution.'),
     pickupNote: z.string().trim().max(300, 'Use at most 300 characters.'),
   })
   .refine((s) => !s.pickupEnabled || s.pickupNote.length > 0, { path: ['pickupNote'], message: 'Say where and when buyers collect.' });

@@ -10,6 +10,11 @@ export const LENGTH_UNIT_DECIMALS: Record<LengthUnit, number> = { in: 2, mm: 1 }
 const round = (value: number, decimals: number) => Math.round(value * 10 ** decimals) / 10 ** decimals;
 
 export const mmToUnit = (mm: number, unit: LengthUnit) => round(unit === 'in' ? mmToInches(mm) : mm, LENGTH_UNIT_DECIMALS[unit]);
+/** The same, rounded down: for a largest size offered, which must not grow past what fits. */
+export const mmToUnitDown = (mm: number, unit: LengthUnit) => {
+  const scale = 10 ** LENGTH_UNIT_DECIMALS[unit];
+  return Math.floor((unit === 'in' ? mmToInches(mm) : mm) * scale + 1e-9) / scale;
+};
 export const unitToMm = (value: number, unit: LengthUnit) => (unit === 'in' ? inchesToMm(value) : value);
 
 /** "8 × 10 in", "210 × 297 mm". */

@@ -78,7 +78,7 @@ export const demoCatalog = {
         description: 'Natural slate with rough-cut edges.',
         material: 'Slate',
         shape: 'circle',
-        sizes: [{ label: '100 mm round', outerWidthMm: 100, outerHeightMm: 100, areaWidthMm: 90, areaHeightMm: 90, orientation: 'either', priceMinor: 1200, stock: null, sku: 'FS-SLT-100' }],
+        sizes: [{ label: '100 mm round', outerWidthMm: 100, outerHeightMm: 100, areaWidthMm: 70, areaHeightMm: 70, orientation: 'either', priceMinor: 1200, stock: null, sku: 'FS-SLT-100' }],
       },
     ],
   },

@@ -48,11 +48,15 @@ export function inscriptionPath(inscription: Inscription | null, width: number, 
     .join(' ');
 }
 
-/** Coverage of the inscription, 0–255 per pixel, or null when there is none. */
-export async function inscriptionCoverage(inscription: Inscription | null, width: number, height: number): Promise<Uint8Array | null> {
+/**
+ * Coverage of the inscription, 0–255 per pixel, or null when there is none: for the whole image,
+ * or for the rows `band.top` … `band.top + band.rows − 1` of it (a large master is lettered band
+ * by band, with the same layout).
+ */
+export async function inscriptionCoverage(inscription: Inscription | null, width: number, height: number, band = { top: 0, rows: height }): Promise<Uint8Array | null> {
   const path = inscriptionPath(inscription, width, height);
   if (!path) return null;
-  const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="${width}" height="${height}" viewBox="0 0 ${width} ${height}"><path d="${path}" fill="#000"/></svg>`;
+  const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="${width}" height="${band.rows}" viewBox="0 ${band.top} ${width} ${band.rows}"><path d="${path}" fill="#000"/></svg>`;
   const { data } = await sharp(Buffer.from(svg), { density: 72, limitInputPixels: false }).ensureAlpha().extractChannel(3).raw().toBuffer({ resolveWithObject: true });
   return new Uint8Array(data.buffer, data.byteOffset, data.length);
 }

@@ -39,41 +39,79 @@ async function region(upright: { data: Buffer; width: number; height: number }, 
   return rawStage(pipeline.extract({ left: left + pad.left, top: top + pad.top, width, height }));
 }
 
-export async function placePhoto(bytes: Buffer, placement: Placement, area: { widthMm: number; heightMm: number }, linesPerInch: number): Promise<Rgba8> {
-  const size = outputSize(area, linesPerInch);
+/**
+ * The window of the upright photo that fills the area, at the photo's own resolution, as raw
+ * RGBA pixels: cut, mirrored and turned, not yet resampled to the line density.
+ */
+export async function placedWindow(bytes: Buffer, placement: Placement): Promise<Sharp> {
   const { crop } = placement;
   const [w, h] = [Math.max(1, Math.round(crop.width)), Math.max(1, Math.round(crop.height))];
   const [cx, cy] = [crop.left + crop.width / 2, crop.top + crop.height / 2];
   const decoded = () => sharp(bytes, { limitInputPixels: MAX_INPUT_PIXELS }).rotate().toColourspace('srgb').ensureAlpha();
   const [left, top] = [Math.round(cx - w / 2), Math.round(cy - h / 2)];
+  const turn = ((((placement.rotation ?? 0) % 360) + 360) % 360);
   // Stages hand over raw pixels: encoding them in between would be work for nothing.
-  if (!placement.rotation && left >= 0 && top >= 0) {
+  if (!turn && left >= 0 && top >= 0) {
     // The common case, a window inside the photo: cut it while decoding (sharp applies one
     // geometry step per pipeline, so the upright turn and the cut come first, alone).
     const meta = await sharp(bytes, { limitInputPixels: MAX_INPUT_PIXELS }).metadata();
     const [uw, uh] = (meta.orientation ?? 1) >= 5 ? [meta.height ?? 0, meta.width ?? 0] : [meta.width ?? 0, meta.height ?? 0];
     if (left + w <= uw && top + h <= uh) {
-      let window = await rawStage(decoded().extract({ left, top, width: w, height: h }));
-      if (placement.flipHorizontal) window = await rawStage(window.flop());
-      return finish(window, size);
+      const window = await rawStage(decoded().extract({ left, top, width: w, height: h }));
+      return placement.flipHorizontal ? rawStage(window.flop()) : window;
     }
   }
   const { data: uprightData, info } = await decoded().raw().toBuffer({ resolveWithObject: true });
   const upright = { data: uprightData, width: info.width, height: info.height };
-  let window: Sharp;
-  if (!placement.rotation) {
-    window = await region(upright, Math.round(cx - w / 2), Math.round(cy - h / 2), w, h);
-    if (placement.flipHorizontal) window = await rawStage(window.flop());
-  } else {
-    // A square around the window's centre large enough for any turn, mirrored, turned about its
-    // centre (the corners it opens are transparent), then the window cut from its middle.
-    const side = Math.ceil(Math.hypot(w, h)) + 2;
-    let turned = await region(upright, Math.round(cx - side / 2), Math.round(cy - side / 2), side, side);
-    if (placement.flipHorizontal) turned = await rawStage(turned.flop());
-    const { data: rotated, info: r } = await turned.rotate(placement.rotation, { background: CLEAR }).raw().toBuffer({ resolveWithObject: true });
-    window = await region({ data: rotated, width: r.width, height: r.height }, Math.round((r.width - w) / 2), Math.round((r.height - h) / 2), w, h);
+  if (turn % 90 === 0) {
+    // No turn or quarter turns are exact: the whole photo is mirrored and turned without
+    // resampling, the window's centre follows, and the window is cut around it as for no turn.
+    let photo = sharp(upright.data, { raw: { width: upright.width, height: upright.height, channels: 4 }, limitInputPixels: false });
+    let [x, y, pw, ph] = [cx, cy, upright.width, upright.height];
+    if (placement.flipHorizontal) {
+      photo = await rawStage(photo.flop());
+      x = pw - x;
+    }
+    if (turn) {
+      photo = await rawStage(photo.rotate(turn));
+      // Clockwise: 90° takes (x, y) to (H − y, x); 180° to (W − x, H − y); 270° to (y, W − x).
+      [x, y] = turn === 90 ? [ph - y, x] : turn === 180 ? [pw - x, ph - y] : [y, pw - x];
+      if (turn !== 180) [pw, ph] = [ph, pw];
+    }
+    const { data } = await photo.raw().toBuffer({ resolveWithObject: true });
+    return region({ data, width: pw, height: ph }, Math.round(x - w / 2), Math.round(y - h / 2), w, h);
   }
-  return finish(window, size);
+  // A square around the window's centre large enough for any turn, mirrored, turned about its
+  // centre (the corners it opens are transparent), then the window cut from its middle.
+  const side = Math.ceil(Math.hypot(w, h)) + 2;
+  let turned = await region(upright, Math.round(cx - side / 2), Math.round(cy - side / 2), side, side);
+  if (placement.flipHorizontal) turned = await rawStage(turned.flop());
+  const { data: rotated, info: r } = await turned.rotate(turn, { background: CLEAR }).raw().toBuffer({ resolveWithObject: true });
+  return region({ data: rotated, width: r.width, height: r.height }, Math.round((r.width - w) / 2), Math.round((r.height - h) / 2), w, h);
+}
+
+/** The placed photo at the output's pixel size: the window resampled with Lanczos-3. */
+export async function placePhoto(bytes: Buffer, placement: Placement, area: { widthMm: number; heightMm: number }, linesPerInch: number): Promise<Rgba8> {
+  return finish(await placedWindow(bytes, placement), outputSize(area, linesPerInch));
+}
+
+/**
+ * The same placed photo in bands of rows, for outputs too large to hold whole (an 8 × 10 in
+ * master at 1000 ppi is 80 megapixels, 320 MB as RGBA): the window is decoded once, and libvips,
+ * which computes only the rows asked for, resamples each band. Bands overlap by `overlap` rows
+ * on each side, so neighbourhood steps (sharpening) see their neighbours.
+ */
+export async function* placePhotoInBands(bytes: Buffer, placement: Placement, size: { width: number; height: number }, bandRows: number, overlap: number): AsyncGenerator<{ top: number; from: number; pixels: Rgba8 }> {
+  const { data, info } = await (await placedWindow(bytes, placement)).raw().toBuffer({ resolveWithObject: true });
+  for (let top = 0; top < size.height; top += bandRows) {
+    const from = Math.max(0, top - overlap);
+    const to = Math.min(size.height, top + bandRows + overlap);
+    const band = sharp(data, { raw: { width: info.width, height: info.height, channels: 4 }, limitInputPixels: false })
+      .resize({ width: size.width, height: size.height, fit: 'fill', kernel: 'lanczos3' })
+      .extract({ left: 0, top: from, width: size.width, height: to - from });
+    const { data: rows } = await band.raw().toBuffer({ resolveWithObject: true });
+    yield { top, from, pixels: { width: size.width, height: to - from, data: new Uint8Array(rows.buffer, rows.byteOffset, rows.length) } };
+  }
 }
 
 async function finish(window: Sharp, size: { width: number; height: number }): Promise<Rgba8> {

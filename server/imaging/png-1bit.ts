@@ -8,13 +8,25 @@ import type { Bitmap } from '../../shared/imaging/image.ts';
  * Written here rather than by sharp, which saves 1-bit PNGs only as palette images.
  * In the file, 0 is black (the laser fires) and 1 is white.
  */
-function chunk(type: string, data: Buffer): Buffer {
+export function pngChunk(type: string, data: Buffer): Buffer {
   const head = Buffer.alloc(8);
   head.writeUInt32BE(data.length, 0);
   head.write(type, 4, 'latin1');
   const crc = Buffer.alloc(4);
   crc.writeUInt32BE(crc32(Buffer.concat([head.subarray(4), data])) >>> 0, 0);
   return Buffer.concat([head, data, crc]);
+}
+
+export const PNG_SIGNATURE = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
+
+/** IHDR: size, bit depth and colour type; deflate, adaptive filtering, no interlace. */
+export function ihdrChunk(width: number, height: number, bitDepth: number, colourType: number): Buffer {
+  const ihdr = Buffer.alloc(13);
+  ihdr.writeUInt32BE(width, 0);
+  ihdr.writeUInt32BE(height, 4);
+  ihdr[8] = bitDepth;
+  ihdr[9] = colourType;
+  return pngChunk('IHDR', ihdr);
 }
 
 export const pixelsPerMetre = (dpi: number) => Math.round(dpi / 0.0254);
@@ -24,19 +36,11 @@ export function pHYsChunk(dpi: number): Buffer {
   data.writeUInt32BE(pixelsPerMetre(dpi), 0);
   data.writeUInt32BE(pixelsPerMetre(dpi), 4);
   data[8] = 1; // unit: metre
-  return chunk('pHYs', data);
+  return pngChunk('pHYs', data);
 }
 
 export function encodeBitmapPng(bitmap: Bitmap, dpi: number): Buffer {
   const { width, height, data } = bitmap;
-  const ihdr = Buffer.alloc(13);
-  ihdr.writeUInt32BE(width, 0);
-  ihdr.writeUInt32BE(height, 4);
-  ihdr[8] = 1; // bit depth
-  ihdr[9] = 0; // colour type: grayscale
-  ihdr[10] = 0; // deflate
-  ihdr[11] = 0; // adaptive filtering
-  ihdr[12] = 0; // no interlace
   const stride = Math.ceil(width / 8);
   const raw = Buffer.alloc((stride + 1) * height); // each row: filter byte 0, then packed bits
   for (let y = 0; y < height; y++) {
@@ -44,11 +48,11 @@ export function encodeBitmapPng(bitmap: Bitmap, dpi: number): Buffer {
     for (let x = 0; x < width; x++) if (data[y * width + x]) raw[row + (x >> 3)]! |= 0x80 >> (x & 7);
   }
   return Buffer.concat([
-    Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
-    chunk('IHDR', ihdr),
+    PNG_SIGNATURE,
+    ihdrChunk(width, height, 1, 0), // 1 bit, grayscale
     pHYsChunk(dpi),
-    chunk('IDAT', deflateSync(raw, { level: 6 })),
-    chunk('IEND', Buffer.alloc(0)),
+    pngChunk('IDAT', deflateSync(raw, { level: 6 })),
+    pngChunk('IEND', Buffer.alloc(0)),
   ]);
 }
 

@@ -1,6 +1,8 @@
+import { pixelsFor } from './sizing.ts';
+
 /**
- * Estimated time of a raster engraving. The head sweeps one row per line: rows = area height ×
- * lines per inch. Each row travels the image width plus an overscan at both ends (room to reach
+ * Estimated time of a raster engraving. The head sweeps one row per line of the engrave file:
+ * rows = the file's pixel height (`pixelsFor`, the same rounding as placement). Each row travels the image width plus an overscan at both ends (room to reach
  * speed before the first dot) at the recipe's speed, and each row change costs a turnaround.
  * Passes multiply. Assumptions, stated on the job sheet: constant speed over the row, no
  * skipping of blank rows, acceleration folded into the overscan and the turnaround.
@@ -21,7 +23,7 @@ export type BurnTimeInput = {
 export function estimateBurnSeconds(input: BurnTimeInput): number {
   const { widthMm, heightMm, linesPerInch, speedMmPerSecond, passes, overscanMm = 5, turnaroundSeconds = 0.05 } = input;
   if (speedMmPerSecond <= 0) throw new RangeError('speed must be positive');
-  const rows = Math.ceil((heightMm / 25.4) * linesPerInch);
+  const rows = pixelsFor(heightMm, linesPerInch);
   const perRow = (widthMm + 2 * overscanMm) / speedMmPerSecond + turnaroundSeconds;
   return rows * perRow * passes;
 }

@@ -1,4 +1,5 @@
 import type { Bitmap } from './image.ts';
+import { insideShape, type BlankShape } from './shape.ts';
 
 /**
  * The mock-up: the halftoned result drawn in the material's colours inside the blank's shape.
@@ -6,51 +7,18 @@ import type { Bitmap } from './image.ts';
  * outside the shape is transparent. The bitmap is the engrave file's own, so what the buyer sees
  * is what will burn.
  */
-export type BlankShape = 'rectangle' | 'rounded-rectangle' | 'oval' | 'circle';
-
 export type MockupInput = {
   bitmap: Bitmap;
   shape: BlankShape;
   /** `#rrggbb`. */
   surfaceColour: string;
   markColour: string;
-  /** Corner radius for rounded rectangles, as a share of the shorter side (default 0.08). */
-  cornerShare?: number;
 };
 
 function hex(colour: string): [number, number, number] {
   const m = /^#([0-9a-f]{2})([0-9a-f]{2})([0-9a-f]{2})$/i.exec(colour);
   if (!m) throw new RangeError(`not a #rrggbb colour: ${colour}`);
   return [parseInt(m[1]!, 16), parseInt(m[2]!, 16), parseInt(m[3]!, 16)];
-}
-
-/** Whether the pixel centre (x + 0.5, y + 0.5) lies inside the shape of a w × h blank. */
-export function insideShape(shape: BlankShape, x: number, y: number, w: number, h: number, cornerShare = 0.08): boolean {
-  const px = x + 0.5;
-  const py = y + 0.5;
-  switch (shape) {
-    case 'rectangle':
-      return true;
-    case 'oval': {
-      const dx = (px - w / 2) / (w / 2);
-      const dy = (py - h / 2) / (h / 2);
-      return dx * dx + dy * dy <= 1;
-    }
-    case 'circle': {
-      const r = Math.min(w, h) / 2;
-      const dx = px - w / 2;
-      const dy = py - h / 2;
-      return dx * dx + dy * dy <= r * r;
-    }
-    case 'rounded-rectangle': {
-      const r = Math.min(w, h) * cornerShare;
-      const cx = px < r ? r : px > w - r ? w - r : px;
-      const cy = py < r ? r : py > h - r ? h - r : py;
-      const dx = px - cx;
-      const dy = py - cy;
-      return dx * dx + dy * dy <= r * r;
-    }
-  }
 }
 
 export function renderMockup(input: MockupInput): { width: number; height: number; data: Uint8ClampedArray } {
@@ -63,7 +31,7 @@ export function renderMockup(input: MockupInput): { width: number; height: numbe
     for (let x = 0; x < width; x++) {
       const i = y * width + x;
       const p = i * 4;
-      if (!insideShape(shape, x, y, width, height, input.cornerShare)) continue; // transparent
+      if (!insideShape(shape, x, y, width, height)) continue; // transparent
       const mark = bitmap.data[i] === 0;
       out[p] = mark ? mr : sr;
       out[p + 1] = mark ? mg : sg;

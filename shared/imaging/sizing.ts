@@ -24,3 +24,14 @@ export function orientedArea(size: { areaWidthMm: number; areaHeightMm: number }
   const [short, long] = [Math.min(size.areaWidthMm, size.areaHeightMm), Math.max(size.areaWidthMm, size.areaHeightMm)];
   return orientation === 'portrait' ? { widthMm: short, heightMm: long } : { widthMm: long, heightMm: short };
 }
+
+/**
+ * How far a photo's framing may differ in proportions from its engraving area (0.5 %): the
+ * window is resampled to fill the area, so any more would visibly stretch the photo. The
+ * designer's windows always have the area's proportions, up to a hundredth of a pixel.
+ */
+export const CROP_ASPECT_TOLERANCE = 0.005;
+
+export function cropMatchesArea(crop: { width: number; height: number }, area: { widthMm: number; heightMm: number }): boolean {
+  return Math.abs(crop.width / crop.height / (area.widthMm / area.heightMm) - 1) <= CROP_ASPECT_TOLERANCE;
+}

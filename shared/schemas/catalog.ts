@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { HALFTONE_METHODS, type HalftoneMethod } from '../imaging/halftone/halftone.ts';
+import { BLANK_SHAPES, type BlankShape } from '../imaging/shape.ts';
 
 /**
  * The catalog's contracts: materials, machines, recipes, blanks and their sizes. Lengths are
@@ -82,8 +83,7 @@ export const recipeSchema = recipeFields.extend({
 });
 export type RecipeView = z.infer<typeof recipeSchema>;
 
-export const BLANK_SHAPES = ['rectangle', 'rounded-rectangle', 'oval', 'circle'] as const;
-export type BlankShape = (typeof BLANK_SHAPES)[number];
+export { BLANK_SHAPES, type BlankShape };
 export const BLANK_STATUSES = ['draft', 'active', 'archived'] as const;
 export const blankStatusSchema = z.enum(BLANK_STATUSES);
 export type BlankStatus = z.infer<typeof blankStatusSchema>;
@@ -116,7 +116,15 @@ export const sizeInputSchema = sizeFields
   .refine((s) => s.areaWidthMm <= s.outerWidthMm, { path: ['areaWidthMm'], message: 'The engraving area must fit inside the blank.' })
   .refine((s) => s.areaHeightMm <= s.outerHeightMm, { path: ['areaHeightMm'], message: 'The engraving area must fit inside the blank.' });
 export type SizeInput = z.infer<typeof sizeInputSchema>;
-export const sizeSchema = sizeFields.extend({ id });
+export const sizeSchema = sizeFields.extend({
+  id,
+  /**
+   * Whether the engraving area fits inside the blank's outline, and the largest area of its
+   * proportions that does (`shape.ts`); a size saved before the check, or left behind when the
+   * blank's shape changed, is flagged with it.
+   */
+  fit: z.object({ fits: z.boolean(), largest: z.object({ widthMm: z.number(), heightMm: z.number() }) }),
+});
 export type SizeView = z.infer<typeof sizeSchema>;
 
 /** A product photo of a blank; `url` is where the signed-in workspace or the storefront loads it. */

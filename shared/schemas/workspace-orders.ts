@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { ITEM_STAGES, ORDER_STATUSES } from '../orders/stages.ts';
-import { orderViewSchema, placementSchema } from './checkout.ts';
+import { burnLookSchema, orderViewSchema, placementSchema } from './checkout.ts';
 import { buyerPhotoSchema } from './photos.ts';
 import { prepSettingsSchema, prepVersionSchema } from './prep.ts';
 
@@ -56,6 +56,8 @@ export const reviewItemSchema = z.object({
   sizeLabel: z.string(),
   areaWidthMm: z.number(),
   areaHeightMm: z.number(),
+  /** The blank's shape and colours, so the photo is reviewed in the piece's own outline. */
+  look: burnLookSchema,
   effectivePpi: z.number().int(),
   verdict: z.enum(['good', 'fair', 'too-low']),
   lowResolutionConfirmed: z.boolean(),

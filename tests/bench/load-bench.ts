@@ -4,6 +4,8 @@ import autocannon from 'autocannon';
 import pLimit from 'p-limit';
 import sharp from 'sharp';
 import type Stripe from 'stripe';
+import { orientedArea } from '../../shared/imaging/sizing.ts';
+import { fillCrop } from '../support/orders.ts';
 
 /**
  * The load run: many connections at once on the storefront's busiest calls, measured with
@@ -113,7 +115,7 @@ export async function prepareStorefrontLoad(baseUrl: string, stripe: Stripe, { u
   const jpeg = await sharp({ create: { width: 1200, height: 900, channels: 3, background: '#6a7b8c' } }).jpeg({ quality: 85 }).toBuffer();
   const accept = async (key: string) => json<{ id: string; width: number; height: number }>(await fetch(`${baseUrl}/api/storefront/${STUDIO}/buyer-photos`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ key }) }), 'accept');
 
-  const { blanks } = await json<{ blanks: Array<{ id: string; sizes: Array<{ id: string }> }> }>(await fetch(`${baseUrl}/api/storefront/${STUDIO}/blanks`), 'catalog');
+  const { blanks } = await json<{ blanks: Array<{ id: string; sizes: Array<{ id: string; areaWidthMm: number; areaHeightMm: number }> }> }>(await fetch(`${baseUrl}/api/storefront/${STUDIO}/blanks`), 'catalog');
   const blank = blanks.find((b) => b.sizes.length > 0)!;
   const photo = await accept(await uploadPhoto(baseUrl, jpeg));
   const placed = await json<{ orderId: string; paymentUrl: string }>(
@@ -121,7 +123,7 @@ export async function prepareStorefrontLoad(baseUrl: string, stripe: Stripe, { u
       method: 'POST',
       headers: { 'content-type': 'application/json' },
       body: JSON.stringify({
-        items: [{ blankId: blank.id, sizeId: blank.sizes[0]!.id, orientation: 'landscape', quantity: 1, photoId: photo.id, placement: { crop: { left: 0, top: 0, width: photo.width, height: photo.height } }, rightsConfirmed: true }],
+        items: [{ blankId: blank.id, sizeId: blank.sizes[0]!.id, orientation: 'landscape', quantity: 1, photoId: photo.id, placement: { crop: fillCrop(photo, orientedArea(blank.sizes[0]!, 'landscape')) }, rightsConfirmed: true }],
         buyer: { email: 'load.run@buyers.test', name: 'Lena Oakes' },
         delivery: { method: 'pickup' },
       }),

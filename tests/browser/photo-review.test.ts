@@ -47,7 +47,7 @@ describe('photo review: asking the buyer for a better photo', () => {
     const placed = await request(b.app)
       .post(`${store}/orders`)
       .send({
-        items: [{ blankId: glass.id, sizeId: size.id, orientation: 'landscape', quantity: 1, photoId: photo.id, placement: { crop: { left: 0, top: 12, width: 451, height: 276 } }, rightsConfirmed: true, lowResolutionConfirmed: true }],
+        items: [{ blankId: glass.id, sizeId: size.id, orientation: 'landscape', quantity: 1, photoId: photo.id, placement: { crop: { left: 0, top: 12, width: (276 * 6.5) / 4.5, height: 276 } }, rightsConfirmed: true, lowResolutionConfirmed: true }],
         buyer: { email: 'june@buyers.test', name: 'June Aldous' },
         delivery: { method: 'ship', rateId: rate.id, address: { line1: '7 Gull Row', city: 'Port Alder', postalCode: '04412', country: 'US' } },
       })
@@ -67,7 +67,7 @@ describe('photo review: asking the buyer for a better photo', () => {
     await staff.page.mouse.move(0, 0);
     await shot(staff.page, 'workspace-today');
     await staff.page.getByRole('navigation', { name: 'Workspace' }).getByRole('link', { name: 'Photo review' }).click();
-    // 451 × 276 px on the 6.5 × 4.5 in area: min(69, 61) = 61 pixels per inch, too low.
+    // A 398.7 × 276 px window on the 6.5 × 4.5 in area: 61 pixels per inch, too low.
     await expect.poll(() => staff.page.getByText('61 pixels per inch (too low)').count()).toBe(1);
     await staff.page.waitForTimeout(500);
     await shot(staff.page, 'review-queue');

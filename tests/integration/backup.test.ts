@@ -92,7 +92,7 @@ describe('database backups and migrations', () => {
     await script('restore', copy, file);
     // Back to the schema before production (batches, renders, hand-overs, proofs, positions, the
     // audit log and the shared rate-limit table)…
-    expect((await script('rollback', copy, 'Migration20261202002223')).stdout).toMatch(/^rolled back: Migration20261202025704, Migration20261202005233, Migration20261202004544, Migration20261202002223$/m);
+    expect((await script('rollback', copy, 'Migration20261202002223')).stdout).toMatch(/^rolled back: Migration20261203074038, Migration20261202025704, Migration20261202005233, Migration20261202004544, Migration20261202002223$/m);
     const tables = async () => (await query(copy, "select table_name from information_schema.tables where table_name in ('render', 'audit_entry', 'rate_limit', 'sign_in_limit') order by 1")).map((r) => r.table_name);
     expect(await tables()).toEqual(['sign_in_limit']);
     // …then forward again to the newest, as a deployment would run them.

@@ -103,13 +103,35 @@ describe('catalog', () => {
     [{ stock: -2 }, 'stock'],
     [{ orientation: 'sideways' }, 'orientation'],
   ])('sizes: %j answers 400 on %s', async (change, field) => {
-    const blank = (await owner.post(`${base}/blanks`).send({ name: 'Glass', materialId: named('Clear glass').id, shape: 'oval' }).expect(201)).body;
+    const blank = (await owner.post(`${base}/blanks`).send({ name: 'Glass', materialId: named('Clear glass').id, shape: 'rectangle' }).expect(201)).body;
     const res = await owner.post(`${base}/blanks/${blank.id}/sizes`).send({ ...goodSize, ...change }).expect(400);
     expect(res.body.issues.map((i: { path: string[] }) => i.path[0])).toEqual([field]);
   });
 
+  it('refuses an engraving area that reaches past a round or oval blank, offering the largest that fits, and flags sizes left behind', async () => {
+    const round = (await owner.post(`${base}/blanks`).send({ name: 'Round slate', materialId: named('Slate').id, shape: 'circle' }).expect(201)).body;
+    const coaster = { label: '100 mm round', outerWidthMm: 100, outerHeightMm: 100, orientation: 'either', priceMinor: 1200, stock: null };
+    // A 90 × 90 mm square's corners lie 63.6 mm from the centre, past the 50 mm radius; the
+    // largest square inside a 100 mm circle has a side of 100 / √2 = 70.71 mm (geometry).
+    const refused = await owner.post(`${base}/blanks/${round.id}/sizes`).send({ ...coaster, areaWidthMm: 90, areaHeightMm: 90 }).expect(400);
+    expect(refused.body.issues[0]).toEqual({ path: ['areaWidthMm'], message: refused.body.message });
+    expect(refused.body.message).toBe('A 3.54 × 3.54 in engraving area reaches past the edge of this round blank. The largest area of these proportions that fits is 2.78 × 2.78 in.');
+    await owner.post(`${base}/blanks/${round.id}/sizes`).send({ ...coaster, areaWidthMm: 70.7, areaHeightMm: 70.7 }).expect(201);
+    // An oval 120 × 80 mm: a 100 × 60 mm area has its corner at (50/60)² + (30/40)² = 1.26 > 1.
+    const oval = (await owner.post(`${base}/blanks`).send({ name: 'Oval plaque', materialId: named('Slate').id, shape: 'oval' }).expect(201)).body;
+    await owner.post(`${base}/blanks/${oval.id}/sizes`).send({ ...coaster, label: 'Oval', outerWidthMm: 120, outerHeightMm: 80, areaWidthMm: 100, areaHeightMm: 60 }).expect(400);
+    // Scaled by 1/√1.26 the corner lands on the ellipse: 89.1 × 53.4 mm fits.
+    await owner.post(`${base}/blanks/${oval.id}/sizes`).send({ ...coaster, label: 'Oval', outerWidthMm: 120, outerHeightMm: 80, areaWidthMm: 89, areaHeightMm: 53.4 }).expect(201);
+    // A size saved on a rectangle that then becomes round is flagged on the blank, not lost.
+    const tile = (await owner.post(`${base}/blanks`).send({ name: 'Square tile', materialId: named('Slate').id, shape: 'rectangle' }).expect(201)).body;
+    await owner.post(`${base}/blanks/${tile.id}/sizes`).send({ ...coaster, areaWidthMm: 90, areaHeightMm: 90 }).expect(201);
+    await owner.put(`${base}/blanks/${tile.id}`).send({ name: 'Square tile', materialId: named('Slate').id, shape: 'circle' }).expect(200);
+    const flagged = (await owner.get(`${base}/blanks/${tile.id}`).expect(200)).body.sizes[0];
+    expect(flagged.fit).toEqual({ fits: false, largest: { widthMm: 70.7, heightMm: 70.7 } });
+  });
+
   it('shows buyers only active blanks, with prices in the studio’s currency and a stock state', async () => {
-    const active = (await owner.post(`${base}/blanks`).send({ name: 'Granite heart', materialId: named('Black granite').id, shape: 'circle', status: 'active' }).expect(201)).body;
+    const active = (await owner.post(`${base}/blanks`).send({ name: 'Granite heart', materialId: named('Black granite').id, shape: 'rounded-rectangle', status: 'active' }).expect(201)).body;
     await owner.post(`${base}/blanks/${active.id}/sizes`).send({ ...goodSize, priceMinor: 3500, stock: 2 }).expect(201);
     await owner.post(`${base}/blanks`).send({ name: 'Hidden draft', materialId: named('Slate').id, shape: 'circle', status: 'draft' }).expect(201);
     // On sale but with no size yet: nothing to buy, so not listed.

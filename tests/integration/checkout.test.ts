@@ -15,6 +15,8 @@ import { eventually } from '../support/fakes.ts';
 import { postSignedEvent, usePaymentsFake } from '../support/payments.ts';
 import { useTestApp } from '../support/test-app.ts';
 import { agentFor, createUser } from '../support/factories.ts';
+import { fillCrop } from '../support/orders.ts';
+import { orientedArea } from '../../shared/imaging/sizing.ts';
 
 /**
  * From a photo to a paid order on the demo studio (USD, inches): uploads, pricing from the
@@ -74,7 +76,7 @@ describe('checkout and payment', () => {
     orientation: 'portrait',
     quantity: 1,
     photoId: photo.id,
-    placement: { crop: { left: 0, top: 0, width: photo.width, height: photo.height }, rotation: 0 },
+    placement: { crop: fillCrop(photo, orientedArea(size, (extra.orientation as 'portrait' | 'landscape' | undefined) ?? 'portrait')), rotation: 0 },
     rightsConfirmed: true,
     ...extra,
   });
@@ -215,11 +217,23 @@ describe('checkout and payment', () => {
     await scoped().nativeUpdate(BlankSize, { id: large.id }, { stock: 12 });
   });
 
+  it('refuses a framing whose proportions differ from the area’s by more than 0.5 %, rather than stretch it', async () => {
+    const area = orientedArea(small, 'portrait');
+    const fill = fillCrop(photo, area);
+    // 1.5 times too wide: placed with the old resize it came out distorted.
+    const refused = await checkout([item(small, { placement: { crop: { ...fill, width: fill.width * 1.5 } } })]).expect(400);
+    expect(refused.body.issues[0].path).toEqual(['items', 0, 'placement']);
+    expect(refused.body.message).toMatch(/does not have the proportions of the .* engraving area, so it would burn stretched/);
+    // 0.6 % off is refused, 0.4 % taken (a designer's window is exact to a hundredth of a pixel).
+    await checkout([item(small, { placement: { crop: { ...fill, width: fill.width * 1.006 } } })]).expect(400);
+    await checkout([item(small, { placement: { crop: { ...fill, width: fill.width * 1.004 } } })]).expect(201);
+  });
+
   it('says when a photo is too low in resolution, suggests a size, and takes it only once confirmed', async () => {
     const lowRes = await upload(await jpeg(320, 240));
     expect(lowRes.status).toBe(201);
     const low = lowRes.body;
-    const lowItem = item(small, { photoId: low.id, orientation: 'landscape', placement: { crop: { left: 0, top: 0, width: 320, height: 240 } } });
+    const lowItem = item(small, { photoId: low.id, orientation: 'landscape', placement: { crop: fillCrop(low, orientedArea(small, 'landscape')) } });
     const refused = await checkout([lowItem]).expect(400);
     expect(refused.body.issues[0].path).toEqual(['items', 0, 'lowResolutionConfirmed']);
     // 320 px across 6.5 in is 49 pixels per inch; no offered size reaches 150.

@@ -101,9 +101,12 @@ describe('production and shipping', () => {
     const engraveInfo = pillowImageInfo(engrave.bytes);
     expect(engraveInfo).toMatchObject({ format: 'PNG', mode: '1', width: 1620, height: 2340 });
     expect(engraveInfo.dpi![0]).toBeCloseTo(360, 1);
+    // The grayscale master at the studio's default, 1000 pixels per inch: 4500 × 6500, pHYs
+    // 39370 px/m (PNG specification), whatever the recipe's line density.
     const master = pillowImageInfo((await download(entry!.render.id, 'master')).bytes);
-    expect(master).toMatchObject({ format: 'PNG', mode: 'LA', width: 1620, height: 2340 });
-    expect(master.dpi![0]).toBeCloseTo(360, 1);
+    expect(master).toMatchObject({ format: 'PNG', mode: 'LA', width: 4500, height: 6500 });
+    expect(master.dpi![0]).toBeCloseTo(1000, 1);
+    expect(entry!.render.files.find((f) => f.kind === 'master')).toMatchObject({ width: 4500, height: 6500 });
 
     // The job sheet, read back by Poppler: one page with the settings, the burn estimate and the
     // cautions, and a QR code that opens the order.
@@ -112,7 +115,7 @@ describe('production and shipping', () => {
     const text = pdfText(sheet).replace(/\s+/g, ' ');
     expect(text).toMatch(/Order \d+: item 1 of 2/);
     for (const words of ['Workshop CO2, 100 W', '5 in/s', '10–14.5 %', '360 lines per inch', 'Negative', 'Before you burn', 'Class 4 laser product', 'Never burn PVC or vinyl', 'licensed practice']) expect(text).toContain(words);
-    // Burn time by hand: ceil(6.5 in × 360) = 2340 rows, each (114.3 + 2 × 5) mm at 5 in/s
+    // Burn time by hand: 6.5 in × 360 = 2340 rows (the engrave file's own height), each (114.3 + 2 × 5) mm at 5 in/s
     // (127 mm/s) plus a 0.05 s turnaround = 1.02874 s, so 2407 s (common practice, no source).
     expect(text).toContain('40 min 07 s per piece');
     expect(await pdfFirstPageQr(sheet)).toBe(`${t.env.APP_URL}/studio/harbour-light/orders/${orderId}`);
@@ -120,10 +123,20 @@ describe('production and shipping', () => {
     const downloads = await t.orm.em.fork().find(AuditEntry, { action: 'render.downloaded', details: { renderId: entry!.render.id } }, { filters: false, orderBy: { createdAt: 'asc' } });
     expect(downloads.map((d) => [d.actorName, d.summary])).toEqual(['engrave file', 'grayscale master', 'job sheet'].map((file) => ['Tobias Renn', `Downloaded the ${file} for Black-backed glass portrait, 5 × 7 in.`]));
 
-    // The maple plaque has no recipe: it batches alone, and its sheet says to set the machine by hand.
+    // The maple plaque has no recipe: it batches alone, and its sheet says to set the machine by
+    // hand and why there is no estimate. The owner has chosen masters at the line density.
+    const owner = request.agent(t.app);
+    await signIn(owner, 'maren@harbour-light.test', DEMO_PASSWORD);
+    await owner.put(`${work}/settings/orders`).send({ lowResolutionPolicy: 'confirm', pickupEnabled: true, pickupNote: 'At the workshop.', proofsRequired: false, masterResolution: 'recipe' }).expect(200);
     const mapleBatch = await renderedBatch((await staff.post(`${work}/production/batches`).send({ itemIds: [mapleItem] }).expect(201)).body.id);
     expect(mapleBatch.machineName).toBeNull();
-    expect(pdfText((await download(mapleBatch.items[0]!.render.id, 'sheet')).bytes)).toContain('None for this material');
+    const mapleText = pdfText((await download(mapleBatch.items[0]!.render.id, 'sheet')).bytes).replace(/\s+/g, ' ');
+    expect(mapleText).toContain('None for this material');
+    expect(mapleText).toContain('Not estimated: the material has no recipe for this machine.');
+    const mapleFiles = mapleBatch.items[0]!.render.files;
+    const [mapleEngrave, mapleMaster] = ['engrave', 'master'].map((kind) => mapleFiles.find((f) => f.kind === kind)!);
+    expect([mapleMaster!.width, mapleMaster!.height]).toEqual([mapleEngrave!.width, mapleEngrave!.height]);
+    expect(pillowImageInfo((await download(mapleBatch.items[0]!.render.id, 'master')).bytes).dpi![0]).toBeCloseTo(pillowImageInfo((await download(mapleBatch.items[0]!.render.id, 'engrave')).bytes).dpi![0], 3);
 
     await staff.post(`${work}/items/${glassItem}/burned`).expect(200, { stage: 'burned' });
     const notYet = await staff.post(`${work}/orders/${orderId}/handover`).send({ method: 'pickup', itemIds: [mapleItem] }).expect(409);

@@ -8,7 +8,7 @@ import { OutboxEmail } from '../../server/features/outbox/outbox-email.entity.ts
 import { OrderItem } from '../../server/features/orders/order.entity.ts';
 import { Studio } from '../../server/features/studios/studio.entity.ts';
 import { useTestApp } from '../support/test-app.ts';
-import { uploadBuyerPhoto, placePaidOrder } from '../support/orders.ts';
+import { fillCrop, uploadBuyerPhoto, placePaidOrder } from '../support/orders.ts';
 import { signIn } from '../support/factories.ts';
 import { DEMO_PASSWORD } from '../../server/db/demo-scenario.ts';
 
@@ -68,12 +68,17 @@ describe('photo review', () => {
     const asked = (await request(t.app).get(`${store}/replacements/${token}`).expect(200)).body;
     expect(asked).toMatchObject({ blankName: 'Black-backed glass portrait', reason: 'Blurred or out of focus', note: 'The faces are soft; the original file would help.' });
     const better = await upload(1800, 2520);
-    await request(t.app).post(`${store}/replacements/${token}`).send({ photoId: better.id, placement: { crop: { left: 0, top: 0, width: 1800, height: 2520 } } }).expect(400); // no permission ticked
-    await request(t.app).post(`${store}/replacements/${token}`).send({ photoId: better.id, placement: { crop: { left: 0, top: 0, width: 1800, height: 2520 } }, rightsConfirmed: true }).expect(200, { stage: 'photo_review' });
+    // The 5 × 7 in portrait's area is 4.5 × 6.5 in.
+    const crop = fillCrop(better, { widthMm: 4.5 * 25.4, heightMm: 6.5 * 25.4 });
+    await request(t.app).post(`${store}/replacements/${token}`).send({ photoId: better.id, placement: { crop } }).expect(400); // no permission ticked
+    // The whole 1800 × 2520 photo is 3 % narrower than the area: it would burn stretched.
+    const stretched = await request(t.app).post(`${store}/replacements/${token}`).send({ photoId: better.id, placement: { crop: { left: 0, top: 0, width: 1800, height: 2520 } }, rightsConfirmed: true }).expect(400);
+    expect(stretched.body.message).toMatch(/would burn stretched/);
+    await request(t.app).post(`${store}/replacements/${token}`).send({ photoId: better.id, placement: { crop }, rightsConfirmed: true }).expect(200, { stage: 'photo_review' });
     // The link is used up; the item is back in the queue with the new photo and its history.
     await request(t.app).get(`${store}/replacements/${token}`).expect(404);
     const back = (await staff.get(`${work}/review-queue`).expect(200)).body.items.find((i: { itemId: string }) => i.itemId === item.itemId);
-    expect(back).toMatchObject({ replacements: 1, effectivePpi: 387, photo: { id: better.id } }); // min(1800 / 4.5, 2520 / 6.5)
+    expect(back).toMatchObject({ replacements: 1, effectivePpi: 387, photo: { id: better.id } }); // min(1744.6 / 4.5, 2520 / 6.5): the window's own width
     const order = (await staff.get(`${work}/orders/${orderId}`).expect(200)).body;
     expect(order.events.map((e: { text: string }) => e.text).join('\n')).toMatch(/New photo asked for by Tobias Renn: blurred or out of focus[\s\S]*The buyer sent a new photo/);
     const stored = await t.orm.em.fork().findOneOrFail(OrderItem, { id: item.itemId }, { filters: { [TENANT_FILTER]: { studioId: studio.id } } });

@@ -37,9 +37,9 @@ describe('studio settings', () => {
   });
 
   it('saves how orders are taken; the storefront and checkout follow', async () => {
-    await owner.put('/api/studios/willow-flint/settings/orders').send({ lowResolutionPolicy: 'refuse', pickupEnabled: true, pickupNote: '', proofsRequired: true }).expect(400);
-    const res = await owner.put('/api/studios/willow-flint/settings/orders').send({ lowResolutionPolicy: 'refuse', pickupEnabled: true, pickupNote: 'The workshop, Fridays 2–6 pm.', proofsRequired: false }).expect(200);
-    expect(res.body.orders).toEqual({ lowResolutionPolicy: 'refuse', pickupEnabled: true, pickupNote: 'The workshop, Fridays 2–6 pm.', proofsRequired: false });
+    await owner.put('/api/studios/willow-flint/settings/orders').send({ lowResolutionPolicy: 'refuse', pickupEnabled: true, pickupNote: '', proofsRequired: true, masterResolution: '1000-ppi' }).expect(400);
+    const res = await owner.put('/api/studios/willow-flint/settings/orders').send({ lowResolutionPolicy: 'refuse', pickupEnabled: true, pickupNote: 'The workshop, Fridays 2–6 pm.', proofsRequired: false, masterResolution: 'recipe' }).expect(200);
+    expect(res.body.orders).toEqual({ lowResolutionPolicy: 'refuse', pickupEnabled: true, pickupNote: 'The workshop, Fridays 2–6 pm.', proofsRequired: false, masterResolution: 'recipe' });
     expect((await request(t.app).get('/api/storefront/willow-flint').expect(200)).body.lowResolutionPolicy).toBe('refuse');
     expect((await request(t.app).get('/api/storefront/willow-flint/delivery').expect(200)).body.pickup).toEqual({ note: 'The workshop, Fridays 2–6 pm.' });
   });

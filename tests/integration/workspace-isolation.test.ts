@@ -119,7 +119,7 @@ describe('workspace isolation matrix', () => {
         const blank = await catalog.createBlank(fork, studio, { name: 'B', description: '', materialId: (await material()).id, shape: 'oval', status: 'draft', sortOrder: 0 });
         if (kind === 'blank') return blank.id;
         if (kind === 'photo') return (await catalog.addPhoto(fork, t.storage, studio, blank.id, await fixtures.upload('blank-photos'))).id;
-        return (await catalog.addSize(fork, studio, blank.id, { label: 'S', outerWidthMm: 100, outerHeightMm: 100, areaWidthMm: 90, areaHeightMm: 90, orientation: 'either', priceMinor: 100, stock: 3, sku: '' }, actor)).id;
+        return (await catalog.addSize(fork, studio, blank.id, { label: 'S', outerWidthMm: 100, outerHeightMm: 100, areaWidthMm: 70, areaHeightMm: 70, orientation: 'either', priceMinor: 100, stock: 3, sku: '' }, actor)).id;
       },
     };
   });

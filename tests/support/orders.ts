@@ -1,6 +1,7 @@
 import sharp from 'sharp';
 import request from 'supertest';
 import type { TestApp } from './test-app.ts';
+import { orientedArea } from '../../shared/imaging/sizing.ts';
 import { payWithTestCard, postSignedEvent } from './payments.ts';
 
 /**
@@ -15,13 +16,33 @@ export async function uploadBuyerPhoto(t: TestApp, studioSlug: string, width: nu
   return (await request(t.app).post(`${store}/buyer-photos`).send({ key: ticket.key }).expect(201)).body as { id: string; width: number; height: number };
 }
 
+/**
+ * The designer's starting framing: the largest window of the area's proportions inside the
+ * photo, centred (checkout refuses a window of other proportions, which would burn stretched).
+ */
+export function fillCrop(photo: { width: number; height: number }, area: { widthMm: number; heightMm: number }) {
+  const aspect = area.widthMm / area.heightMm;
+  const width = Math.min(photo.width, photo.height * aspect);
+  const height = width / aspect;
+  return { left: (photo.width - width) / 2, top: (photo.height - height) / 2, width, height };
+}
+
+/** A size's engraving area turned as ordered, from the storefront's own listing. */
+export async function orderedArea(t: TestApp, studioSlug: string, line: { blankId: string; sizeId: string; orientation?: 'portrait' | 'landscape' }) {
+  const listed = (await request(t.app).get(`/api/storefront/${studioSlug}/blanks`).expect(200)).body as { blanks: Array<{ id: string; sizes: Array<{ id: string; areaWidthMm: number; areaHeightMm: number }> }> };
+  const size = listed.blanks.find((b) => b.id === line.blankId)?.sizes.find((s) => s.id === line.sizeId);
+  if (!size) throw new Error(`size ${line.sizeId} is not on sale`);
+  return orientedArea(size, line.orientation ?? 'portrait');
+}
+
 export type OrderLine = { blankId: string; sizeId: string; orientation?: 'portrait' | 'landscape'; photo: { id: string; width: number; height: number } };
 
 export async function placePaidOrder(t: TestApp, studioSlug: string, lines: OrderLine[], buyer: { email: string; name: string }, delivery: object = { method: 'pickup' }): Promise<string> {
+  const areas = await Promise.all(lines.map((line) => orderedArea(t, studioSlug, line)));
   const placed = await request(t.app)
     .post(`/api/storefront/${studioSlug}/orders`)
     .send({
-      items: lines.map((line) => ({ blankId: line.blankId, sizeId: line.sizeId, orientation: line.orientation ?? 'portrait', quantity: 1, photoId: line.photo.id, placement: { crop: { left: 0, top: 0, width: line.photo.width, height: line.photo.height } }, rightsConfirmed: true })),
+      items: lines.map((line, i) => ({ blankId: line.blankId, sizeId: line.sizeId, orientation: line.orientation ?? 'portrait', quantity: 1, photoId: line.photo.id, placement: { crop: fillCrop(line.photo, areas[i]!) }, rightsConfirmed: true })),
       buyer,
       delivery,
     })

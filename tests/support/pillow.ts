@@ -65,3 +65,17 @@ export function pillowImageInfo(bytes: Uint8Array): { format: string; mode: stri
   const out = execFileSync(PYTHON, ['-c', 'import sys, io, json; from PIL import Image; i = Image.open(io.BytesIO(sys.stdin.buffer.read())); print(json.dumps({"format": i.format, "mode": i.mode, "width": i.size[0], "height": i.size[1], "dpi": [float(v) for v in i.info["dpi"]] if "dpi" in i.info else None}))'], { input: bytes, encoding: 'utf8' });
   return JSON.parse(out);
 }
+
+/** Pillow's view of a PNG file: mode, size, dpi and raw bytes (Debian python3-pil). */
+export function pillowOpen(png: Buffer): { mode: string; size: [number, number]; dpi: [number, number]; bytes: Buffer } {
+  const dir = mkdtempSync(join(tmpdir(), 'etchwell-pillow-'));
+  try {
+    const path = join(dir, 'in.png');
+    writeFileSync(path, png);
+    const script = `import json,sys; from PIL import Image; i=Image.open(${JSON.stringify(path)}); print(json.dumps({'mode': i.mode, 'size': i.size, 'dpi': i.info.get('dpi')})); sys.stdout.flush(); open(${JSON.stringify(path + '.raw')}, 'wb').write(i.tobytes())`;
+    const facts = JSON.parse(execFileSync(PYTHON, ['-c', script], { encoding: 'utf8' }));
+    return { ...facts, bytes: readFileSync(`${path}.raw`) };
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+}

@@ -106,12 +106,18 @@ export function catalogRoutes({ orm, storage }: { orm: Orm; storage: Storage }):
     {
       method: 'post', path: '/catalog/blanks/:blankId/sizes', permission: 'catalog:write',
       sample: async (f) => ({ params: { blankId: await f.catalog('blank') }, body: size }),
-      handler: async (req, res) => void res.status(201).json(sizeView(await catalog.addSize(em(), req.studio!, id(req, 'blankId'), sizeInputSchema.parse(req.body), req.user!))),
+      handler: async (req, res) => {
+        const size = await catalog.addSize(em(), req.studio!, id(req, 'blankId'), sizeInputSchema.parse(req.body), req.user!);
+        res.status(201).json(sizeView(size, size.blank.shape));
+      },
     },
     {
       method: 'put', path: '/catalog/sizes/:sizeId', permission: 'catalog:write',
       sample: async (f) => ({ params: { sizeId: await f.catalog('size') }, body: size }),
-      handler: async (req, res) => void res.json(sizeView(await catalog.updateSize(em(), req.studio!, id(req, 'sizeId'), sizeInputSchema.parse(req.body), req.user!))),
+      handler: async (req, res) => {
+        const size = await catalog.updateSize(em(), req.studio!, id(req, 'sizeId'), sizeInputSchema.parse(req.body), req.user!);
+        res.json(sizeView(size, size.blank.shape));
+      },
     },
     {
       method: 'delete', path: '/catalog/sizes/:sizeId', permission: 'catalog:write',

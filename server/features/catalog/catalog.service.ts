@@ -14,6 +14,8 @@ import type { User } from '../accounts/user.entity.ts';
 import { describeChanges, describeFacts, recordAudit } from '../audit/audit.service.ts';
 import { recipeFacts, recipeSubject, sizeSubject } from './catalog-audit.ts';
 import { formatMoney } from '../../../shared/money.ts';
+import { sizeFit, sizeFitMessage, type BlankShape } from '../../../shared/imaging/shape.ts';
+import { formatSize, mmToUnitDown } from '../../../shared/units.ts';
 
 const recipesLink = (studio: Studio) => `/studio/${studio.slug}/catalog/recipes`;
 const blankLink = (studio: Studio, blank: Blank) => `/studio/${studio.slug}/catalog/blanks/${blank.id}`;
@@ -172,8 +174,21 @@ export async function updateBlank(em: EntityManager, studio: Studio, id: string,
   return getBlank(em, studio, blank.id);
 }
 
+/**
+ * Refuses an engraving area that reaches past the blank's outline (a 90 × 90 mm square on a
+ * 100 mm round coaster), naming the largest area of its proportions that fits.
+ */
+function assertAreaFits(studio: Studio, shape: BlankShape, input: SizeInput): void {
+  const { fits, largest } = sizeFit(shape, input);
+  if (fits) return;
+  const unit = studio.units;
+  const message = sizeFitMessage(shape, input, largest, (w, h) => formatSize(w, h, unit), (w, h) => `${mmToUnitDown(w, unit)} × ${mmToUnitDown(h, unit)} ${unit}`);
+  throw new AppError('VALIDATION_FAILED', message, { issues: [{ path: ['areaWidthMm'], message }, { path: ['areaHeightMm'], message: 'See the engraving width.' }] });
+}
+
 export async function addSize(em: EntityManager, studio: Studio, blankId: string, input: SizeInput, actor: User): Promise<BlankSize> {
   const blank = await findIn(em, Blank, studio, blankId, 'blank');
+  assertAreaFits(studio, blank.shape, input);
   const size = em.create(BlankSize, { ...input, blank, studio });
   recordAudit(em, studio, actor, { action: 'price.changed', subject: sizeSubject(size), summary: `New size offered at ${formatMoney(size.priceMinor, studio.currency)}.`, link: blankLink(studio, blank), details: { sizeId: size.id, priceMinor: size.priceMinor, currency: studio.currency } });
   await em.flush();
@@ -183,6 +198,7 @@ export async function addSize(em: EntityManager, studio: Studio, blankId: string
 export async function updateSize(em: EntityManager, studio: Studio, id: string, input: SizeInput, actor: User): Promise<BlankSize> {
   const size = await findIn(em, BlankSize, studio, id, 'size');
   await em.populate(size, ['blank']);
+  assertAreaFits(studio, size.blank.shape, input);
   const fromMinor = size.priceMinor;
   em.assign(size, input);
   if (size.priceMinor !== fromMinor) {

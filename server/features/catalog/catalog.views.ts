@@ -1,4 +1,5 @@
 import type { BlankPhotoView, BlankView, MachineView, MaterialView, RecipeView, SizeView } from '../../../shared/schemas/catalog.ts';
+import { sizeFit, type BlankShape } from '../../../shared/imaging/shape.ts';
 import type { Blank, BlankPhoto, BlankSize, Machine, Material, Recipe } from './catalog.entity.ts';
 
 /**
@@ -47,7 +48,7 @@ export const recipeView = (r: Recipe): RecipeView => ({
   notes: r.notes,
 });
 
-export const sizeView = (s: BlankSize): SizeView => ({
+export const sizeView = (s: BlankSize, shape: BlankShape): SizeView => ({
   id: s.id,
   label: s.label,
   outerWidthMm: s.outerWidthMm,
@@ -58,6 +59,7 @@ export const sizeView = (s: BlankSize): SizeView => ({
   priceMinor: s.priceMinor,
   stock: s.stock,
   sku: s.sku,
+  fit: sizeFit(shape, s),
 });
 
 export const photoView = (p: BlankPhoto, url: (photo: BlankPhoto) => string): BlankPhotoView => ({ id: p.id, url: url(p), width: p.width, height: p.height });
@@ -77,6 +79,6 @@ export const blankView = (b: Blank, photoUrl: (photo: BlankPhoto) => string): Bl
   sizes: b.sizes
     .getItems()
     .sort((x, y) => x.priceMinor - y.priceMinor || x.label.localeCompare(y.label))
-    .map(sizeView),
+    .map((s) => sizeView(s, b.shape)),
   photos: b.photos.getItems().sort(byPosition).map((p) => photoView(p, photoUrl)),
 });

@@ -2,7 +2,7 @@ import type { EntityManager } from '@mikro-orm/postgresql';
 import { AppError, type FieldIssue } from '../../../shared/errors.ts';
 import { formatMoney } from '../../../shared/money.ts';
 import { effectivePpi, largestFairOffered, verdictFor } from '../../../shared/imaging/photo-checks.ts';
-import { orientedArea } from '../../../shared/imaging/sizing.ts';
+import { cropMatchesArea, orientedArea } from '../../../shared/imaging/sizing.ts';
 import type { checkoutInputSchema } from '../../../shared/schemas/checkout.ts';
 import { formatSize } from '../../../shared/units.ts';
 import type { z } from 'zod';
@@ -21,6 +21,10 @@ type CheckoutInput = z.output<typeof checkoutInputSchema>;
 
 /** A checkout session lives a little over the provider's 30-minute minimum. */
 const SESSION_SECONDS = 31 * 60;
+
+/** Why a framing of the wrong proportions is refused: placed, it would come out stretched. */
+export const stretchedMessage = (crop: { width: number; height: number }, area: { widthMm: number; heightMm: number }) =>
+  `The photo’s framing (${Math.round(crop.width)} × ${Math.round(crop.height)} pixels) does not have the proportions of the ${formatSize(area.widthMm, area.heightMm, 'mm')} engraving area, so it would burn stretched. Please place the photo again.`;
 
 const refuse = (path: Array<string | number>, message: string): never => {
   throw new AppError('VALIDATION_FAILED', message, { issues: [{ path, message } satisfies FieldIssue] });
@@ -54,6 +58,7 @@ export async function placeOrder(em: EntityManager, deps: { env: Env; payments: 
     const overlaps = crop.left < photo.width && crop.top < photo.height && crop.left + crop.width > 0 && crop.top + crop.height > 0;
     if (!overlaps || crop.width > 4 * Math.max(photo.width, photo.height)) refuse(at('placement'), 'The photo is placed outside the engraving area. Please place it again.');
     const area = orientedArea(size, item.orientation);
+    if (!cropMatchesArea(crop, area)) refuse(at('placement'), stretchedMessage(crop, area));
     const ppi = effectivePpi(crop, area);
     if (verdictFor(ppi) === 'too-low') {
       const offered = blank!.sizes.getItems().map((s) => ({ ...orientedArea(s, item.orientation), label: s.label }));

@@ -1,10 +1,11 @@
 import { randomUUID } from 'node:crypto';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { assertItemAction } from '../../../shared/orders/stages.ts';
+import { recipePrep } from '../../../shared/orders/prep-pipeline.ts';
 import type { Storage } from '../../adapters/storage.ts';
 import { renderProofImage } from './proof-image.ts';
 import { AppError } from '../../../shared/errors.ts';
-import { NO_CUTOUT, prepSettingsSchema, type PrepSettings, type ProofDecision } from '../../../shared/schemas/prep.ts';
+import { prepSettingsSchema, type PrepSettings, type ProofDecision } from '../../../shared/schemas/prep.ts';
 import { hashToken, newLinkToken } from '../../lib/tokens.ts';
 import { displayName, type User } from '../accounts/user.entity.ts';
 import { queueEmail } from '../outbox/outbox.service.ts';
@@ -15,11 +16,8 @@ import { OrderEvent, OrderItem } from './order.entity.ts';
 import { lookOf } from './order.views.ts';
 
 
-/** Prep settings an item starts from: its recipe's method, density and tone, a hard sharpen (common practice, no source). */
-export function defaultPrep(item: OrderItem): PrepSettings {
-  const look = lookOf(item);
-  return { brightness: 0, contrast: 10, gamma: 1, autoLevels: true, sharpenAmount: 150, sharpenRadius: 2, sharpenThreshold: 2, halftoneMethod: look.halftoneMethod, linesPerInch: look.linesPerInch, negative: look.tone === 'negative', featherRadius: 4, cutout: NO_CUTOUT };
-}
+/** Prep settings an item starts from: its recipe's (`recipePrep`, shared with the storefront's mock-up). */
+export const defaultPrep = (item: OrderItem): PrepSettings => recipePrep(lookOf(item));
 
 /** What burns: the last saved version (read through the schema, so older versions gain new fields' defaults). */
 export const currentPrep = (item: OrderItem): PrepSettings => {

@@ -2,7 +2,7 @@ import type { PrepSettings, RegionPreview } from '../../../shared/schemas/prep.t
 import type { Storage } from '../../adapters/storage.ts';
 import { encodeBitmapPng } from '../../imaging/png-1bit.ts';
 import type { OrderItem } from './order.entity.ts';
-import { burnItem, placeItemPhoto } from './item-burn.ts';
+import { burnItem } from './item-burn.ts';
 
 /** The side of the 1:1 region, in dots of the burn. */
 export const REGION_SIDE = 480;
@@ -13,7 +13,7 @@ export const REGION_SIDE = 480;
  * cut-out's feather need their neighbours), then the region around `centre` is cut from it.
  */
 export async function regionPreview(storage: Storage, item: OrderItem, settings: PrepSettings, centre: { x: number; y: number }): Promise<RegionPreview> {
-  const { bitmap } = await burnItem(item, await placeItemPhoto(storage, item, settings.linesPerInch), settings);
+  const { bitmap } = await burnItem(storage, item, settings);
   const width = Math.min(REGION_SIDE, bitmap.width);
   const height = Math.min(REGION_SIDE, bitmap.height);
   const left = Math.min(Math.max(0, Math.round(centre.x * bitmap.width - width / 2)), bitmap.width - width);

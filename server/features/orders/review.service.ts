@@ -1,5 +1,7 @@
 import type { EntityManager, FilterQuery } from '@mikro-orm/postgresql';
 import { AppError } from '../../../shared/errors.ts';
+import { cropMatchesArea } from '../../../shared/imaging/sizing.ts';
+import { stretchedMessage } from './checkout.service.ts';
 import { formatMoney } from '../../../shared/money.ts';
 import { effectivePpi, verdictFor } from '../../../shared/imaging/photo-checks.ts';
 import { ITEM_STAGE_LABELS } from '../../../shared/orders/stages.ts';
@@ -78,6 +80,7 @@ export async function reviewQueue(em: EntityManager, studio: Studio): Promise<Re
       sizeLabel: item.snapshot.size.label,
       areaWidthMm: look.areaWidthMm,
       areaHeightMm: look.areaHeightMm,
+      look,
       effectivePpi: Math.floor(ppi),
       verdict: verdictFor(ppi),
       lowResolutionConfirmed: item.lowResolutionConfirmed,
@@ -133,7 +136,9 @@ export async function submitReplacement(em: EntityManager, studio: Studio, token
   const item = await findReplacement(em, studio, token);
   const photo = await findBuyerPhoto(em, studio, input.photoId);
   const look = lookOf(item);
-  const ppi = effectivePpi(input.placement.crop, { widthMm: look.areaWidthMm, heightMm: look.areaHeightMm });
+  const area = { widthMm: look.areaWidthMm, heightMm: look.areaHeightMm };
+  if (!cropMatchesArea(input.placement.crop, area)) throw new AppError('VALIDATION_FAILED', stretchedMessage(input.placement.crop, area), { issues: [{ path: ['placement'], message: stretchedMessage(input.placement.crop, area) }] });
+  const ppi = effectivePpi(input.placement.crop, area);
   Object.assign(item, { photo, placement: input.placement, effectivePpi: Math.floor(ppi), replacementTokenHash: null, replacements: item.replacements + 1 });
   moveItem(em, item, 'receiveNewPhoto', 'buyer', `The buyer sent a new photo (${Math.floor(ppi)} pixels per inch at the size): ${ITEM_STAGE_LABELS.photo_review.toLowerCase()}.`, 'new_photo_received');
   await em.flush();

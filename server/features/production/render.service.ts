@@ -2,9 +2,9 @@ import sharp from 'sharp';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { HALFTONE_METHODS } from '../../../shared/imaging/halftone/halftone.ts';
 import { estimateBurnSeconds, formatBurnTime, speedInMmPerSecond } from '../../../shared/imaging/burn-time.ts';
-import { prepareMaster } from '../../../shared/imaging/pipeline.ts';
 import { orientedArea } from '../../../shared/imaging/sizing.ts';
-import { LASER_KIND_LABELS, type LaserKind } from '../../../shared/schemas/catalog.ts';
+import { LASER_KIND_LABELS, SPEED_UNIT_LABELS, type LaserKind } from '../../../shared/schemas/catalog.ts';
+import { masterPpi } from '../../../shared/studio.ts';
 import type { BatchMachine, RenderFiles } from '../../../shared/schemas/production.ts';
 import type { PrepSettings } from '../../../shared/schemas/prep.ts';
 import { formatSize } from '../../../shared/units.ts';
@@ -13,10 +13,9 @@ import type { Env } from '../../env.ts';
 import type { Logger } from '../../logger.ts';
 import type { Orm } from '../../db/orm.ts';
 import { TENANT_FILTER } from '../../db/tenant.ts';
-import { encodeGrayscaleMaster } from '../../imaging/grayscale-master.ts';
 import { encodeBitmapPng } from '../../imaging/png-1bit.ts';
-import { inscribeMaster } from '../../imaging/inscription.ts';
-import { burnItem, placeItemPhoto } from '../orders/item-burn.ts';
+import { burnPiece, writePieceMaster } from '../../imaging/piece.ts';
+import { originalPhoto, pieceOf } from '../orders/item-burn.ts';
 import { OrderEvent, type OrderItem } from '../orders/order.entity.ts';
 import { currentPrep } from '../orders/prep.service.ts';
 import { workspaceOrderPath } from '../orders/order.views.ts';
@@ -27,12 +26,19 @@ import { Render, type ProductionBatch } from './production.entity.ts';
 /** Where each file of a render lives: the same keys on every attempt. */
 export const renderKeys = (prefix: string) => ({ engrave: `${prefix}/engrave.png`, master: `${prefix}/grayscale-master.png`, sheet: `${prefix}/job-sheet.pdf` });
 
-/** Estimated time to burn one piece, or null when the machine's speed is not in a length per second. */
+/** Estimated time to burn one piece, or null when there is no recipe or its speed is not in a length per second. */
 export function burnSecondsFor(item: OrderItem, prep: PrepSettings, machine: BatchMachine | null): number | null {
   const speed = machine && speedInMmPerSecond(machine.speed, machine.speedUnit);
   if (!machine || !speed) return null;
   const area = orientedArea(item.snapshot.size, item.orientation);
   return estimateBurnSeconds({ widthMm: area.widthMm, heightMm: area.heightMm, linesPerInch: prep.linesPerInch, speedMmPerSecond: speed, passes: machine.passes });
+}
+
+/** The job sheet's line for the estimate: the time, or why there is none. */
+export function burnEstimateLine(seconds: number | null, machine: BatchMachine | null, quantity: number): string {
+  if (!machine) return 'Not estimated: the material has no recipe for this machine.';
+  if (seconds === null) return `Not estimated: the recipe’s speed is a share of the machine’s top speed (${SPEED_UNIT_LABELS[machine.speedUnit]}), not a length per second.`;
+  return `${formatBurnTime(seconds)} per piece${quantity > 1 ? `, ${formatBurnTime(seconds * quantity)} for ${quantity}` : ''} (raster, 5 mm overscan)`;
 }
 
 type RenderDeps = { orm: Orm; storage: Storage; env: Pick<Env, 'APP_URL'>; logger: Logger };
@@ -63,23 +69,24 @@ export async function runRender({ orm, storage, env, logger }: RenderDeps, rende
     const { item, studio, batch } = render;
     const prep = currentPrep(item);
     await report(10, 'Placing the photo at the machine’s resolution');
-    const placed = await placeItemPhoto(storage, item, prep.linesPerInch);
+    const photo = await originalPhoto(storage, item);
+    const piece = pieceOf(item);
     await report(30, 'Halftoning');
-    const { settings, lettering, bitmap } = await burnItem(item, placed, prep);
+    const burned = await burnPiece(photo, piece, prep);
+    const { bitmap } = burned;
     const engrave = encodeBitmapPng(bitmap, prep.linesPerInch);
     await storage.put(keys.engrave, engrave, 'image/png');
-    await report(55, 'Making the grayscale master');
-    const prepared = prepareMaster(placed, settings);
-    inscribeMaster(prepared, lettering);
-    const master = await encodeGrayscaleMaster(prepared, prep.linesPerInch);
-    await storage.put(keys.master, master, 'image/png');
+    const ppi = masterPpi(studio.masterResolution, prep.linesPerInch);
+    await report(55, `Making the grayscale master at ${ppi} ppi`);
+    const master = await writePieceMaster(photo, piece, prep, burned, ppi);
+    await storage.put(keys.master, master.png, 'image/png');
     await report(80, 'Writing the job sheet');
     const preview = await sharp(engrave).resize({ width: 340, height: 440, fit: 'inside', kernel: 'lanczos3' }).png().toBuffer();
     const sheet = await jobSheetPdf(jobSheetFor({ studio, batch, item, prep, preview, appUrl: env.APP_URL, pixels: { width: bitmap.width, height: bitmap.height }, version: item.prepVersions.at(-1)?.version ?? 0 }));
     await storage.put(keys.sheet, sheet, 'application/pdf');
     const files: RenderFiles = {
       engrave: { key: keys.engrave, bytes: engrave.length, contentType: 'image/png', width: bitmap.width, height: bitmap.height },
-      master: { key: keys.master, bytes: master.length, contentType: 'image/png', width: bitmap.width, height: bitmap.height },
+      master: { key: keys.master, bytes: master.png.length, contentType: 'image/png', width: master.width, height: master.height },
       sheet: { key: keys.sheet, bytes: sheet.length, contentType: 'application/pdf' },
     };
     // Done only if it is still this render's turn (not taken out of the batch meanwhile).
@@ -124,7 +131,7 @@ function jobSheetFor(input: { studio: Studio; batch: ProductionBatch; item: Orde
     ...(machine
       ? ([
           ['Machine', `${machine.name} (${LASER_KIND_LABELS[machine.laserKind as LaserKind] ?? machine.laserKind})`],
-          ['Speed', `${machine.speed} ${machine.speedUnit === 'percent' ? '% of top speed' : machine.speedUnit}`],
+          ['Speed', `${machine.speed} ${SPEED_UNIT_LABELS[machine.speedUnit]}`],
           ['Power', `${machine.powerMinPercent}–${machine.powerMaxPercent} %`],
           ['Passes', String(machine.passes)],
           ...(machine.notes ? [['Recipe notes', machine.notes] as [string, string]] : []),
@@ -136,7 +143,7 @@ function jobSheetFor(input: { studio: Studio; batch: ProductionBatch; item: Orde
     ['Tone', prep.negative ? 'Negative (the laser marks light)' : 'Positive (the laser marks dark)'],
     ['Pixels', `${pixels.width} × ${pixels.height}`],
     ['Prep version', version ? String(version) : 'recipe defaults'],
-    ['Estimated burn', seconds === null ? 'Not estimated: the recipe’s speed is not in a length per second.' : `${formatBurnTime(seconds)} per piece${item.quantity > 1 ? `, ${formatBurnTime(seconds * item.quantity)} for ${item.quantity}` : ''} (raster, 5 mm overscan)`],
+    ['Estimated burn', burnEstimateLine(seconds, machine, item.quantity)],
   ];
   return {
     studioName: studio.name,

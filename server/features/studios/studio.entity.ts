@@ -1,10 +1,11 @@
 import { Entity, Enum, Property, Unique } from '@mikro-orm/core';
+import type { MasterResolution } from '../../../shared/studio.ts';
 import type { StudioStatus } from '../../../shared/studio.ts';
 import { BaseEntity } from '../../db/base.entity.ts';
 
 /** A tenant: one engraving studio with its own storefront and workspace. */
 @Entity({ tableName: 'studio' })
-export class Studio extends BaseEntity<'accentColour' | 'status' | 'currency' | 'units' | 'contactEmail' | 'logoKey' | 'lowResolutionPolicy' | 'pickupEnabled' | 'pickupNote' | 'nextOrderNumber' | 'proofsRequired'> {
+export class Studio extends BaseEntity<'accentColour' | 'status' | 'currency' | 'units' | 'contactEmail' | 'logoKey' | 'lowResolutionPolicy' | 'pickupEnabled' | 'pickupNote' | 'nextOrderNumber' | 'proofsRequired' | 'masterResolution'> {
   @Property({ type: 'string', length: 40 })
   @Unique()
   slug!: string;
@@ -44,6 +45,10 @@ export class Studio extends BaseEntity<'accentColour' | 'status' | 'currency' | 
   /** When false, staff approve prepared items themselves; no proof goes to the buyer. */
   @Property({ type: 'boolean' })
   proofsRequired: boolean = true;
+
+  /** The grayscale master's resolution: 1000 ppi, or the recipe's line density (`MASTER_RESOLUTIONS`). */
+  @Enum({ items: ['1000-ppi', 'recipe'], type: 'string' })
+  masterResolution: MasterResolution = '1000-ppi';
 
   /** Where and when buyers collect, shown at checkout. */
   @Property({ type: 'string', length: 300 })

@@ -15,7 +15,7 @@ const describe = (req: Request) => {
   const s = req.studio!;
   return {
     studio: { slug: s.slug, name: s.name, accentColour: s.accentColour, currency: s.currency, units: s.units, contactEmail: s.contactEmail, status: s.status, logoUrl: logoUrl(s) },
-    orders: { lowResolutionPolicy: s.lowResolutionPolicy, pickupEnabled: s.pickupEnabled, pickupNote: s.pickupNote, proofsRequired: s.proofsRequired },
+    orders: { lowResolutionPolicy: s.lowResolutionPolicy, pickupEnabled: s.pickupEnabled, pickupNote: s.pickupNote, proofsRequired: s.proofsRequired, masterResolution: s.masterResolution },
     role: req.role,
     permissions: ROLE_PERMISSIONS[req.role!],
   };
@@ -47,7 +47,7 @@ export function studioRoutes({ orm, storage }: { orm: Orm; storage: Storage }): 
       method: 'put',
       path: '/settings/orders',
       permission: 'studio:settings',
-      sample: () => ({ body: { lowResolutionPolicy: 'refuse', pickupEnabled: true, pickupNote: 'At the workshop, weekdays.', proofsRequired: false } }),
+      sample: () => ({ body: { lowResolutionPolicy: 'refuse', pickupEnabled: true, pickupNote: 'At the workshop, weekdays.', proofsRequired: false, masterResolution: 'recipe' } }),
       handler: async (req, res) => {
         (orm.em as EntityManager).assign(req.studio!, orderSettingsInputSchema.parse(req.body));
         await orm.em.flush();

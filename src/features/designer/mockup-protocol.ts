@@ -1,8 +1,7 @@
 import type { HalftoneMethod } from '../../../shared/imaging/halftone/halftone.ts';
 import type { BlankShape } from '../../../shared/schemas/catalog.ts';
 import type { Placement } from '../../../shared/schemas/checkout.ts';
-import type { ToneOptions } from '../../../shared/imaging/tone.ts';
-import type { Cutout } from '../../../shared/schemas/prep.ts';
+import type { PrepSettings } from '../../../shared/schemas/prep.ts';
 
 /** Messages between the page and the mock-up worker. */
 export type MockupLook = { shape: BlankShape; surfaceColour: string; markColour: string; tone: 'positive' | 'negative'; halftoneMethod: HalftoneMethod; linesPerInch: number };
@@ -13,12 +12,14 @@ export type MockupJob = {
   size: { width: number; height: number };
   placement: Placement;
   look: MockupLook;
-  tone?: ToneOptions;
-  /** Staff prep: their sharpening and auto-levels instead of the storefront's defaults. */
-  sharpen?: { amount: number; radius: number; threshold: number };
-  autoLevelsClip?: number;
-  /** Staff prep's cut-out, with the feather in screen pixels. In the photo view it fades what is cut away. */
-  cutout?: { cutout: Cutout; featherRadius: number };
+  /** The engraving area's width, which relates the burn's pixels to the screen's. */
+  areaWidthMm: number;
+  /**
+   * The prep at the burn's resolution, shrunk to the screen by the worker with `prepAtWidth`
+   * as the proof is: staff's current prep, or (the storefront) the recipe's own, `recipePrep`.
+   * In the photo view its cut-out fades what is cut away.
+   */
+  prep?: PrepSettings;
   view: 'photo' | 'burn';
 };
 

@@ -1,14 +1,16 @@
 /// <reference lib="webworker" />
 import { renderBitmap } from '../../../shared/imaging/pipeline.ts';
-import { insideShape, renderMockup } from '../../../shared/imaging/mockup.ts';
+import { renderMockup } from '../../../shared/imaging/mockup.ts';
+import { insideShape } from '../../../shared/imaging/shape.ts';
 import { featherMask, maskFromAlpha, paintStrokes } from '../../../shared/imaging/mask.ts';
-import { startMask, strokesInPixels } from '../../../shared/orders/prep-pipeline.ts';
+import { pipelineSettings, prepAtWidth, recipePrep } from '../../../shared/orders/prep-pipeline.ts';
 import type { MockupJob, MockupReply, MockupRequest } from './mockup-protocol.ts';
 
 /**
  * The mock-up, off the page's thread: the photo placed in the engraving area at screen size,
- * then either shown as it is (clipped to the blank's shape) or run through the imaging core
- * (gray, tone, sharpening, negative, halftone) and drawn in the material's colours. Requests
+ * then either shown as it is (clipped to the blank's shape) or run through the imaging core with
+ * the same settings the burn uses, shrunk to the screen (`pipelineSettings` of `prepAtWidth`,
+ * as the proof does), and drawn in the material's colours. Requests
  * that arrive while one is rendering collapse into the newest: a drag never queues up work.
  */
 const scope = self as unknown as DedicatedWorkerGlobalScope;
@@ -66,11 +68,14 @@ function render(job: MockupJob): ImageBitmap {
     ctx.setTransform(1, 0, 0, 1, 0, 0);
   }
   const placed = ctx.getImageData(0, 0, width, height);
-  const cutout = job.cutout && { strokes: strokesInPixels(job.cutout.cutout, width, height), startMask: startMask(placed, job.cutout.cutout), featherRadius: job.cutout.featherRadius };
+  const prep = prepAtWidth(job.prep ?? recipePrep(job.look), job.areaWidthMm, width);
+  const settings = pipelineSettings(prep, placed, job.look.shape);
   let out: ImageData;
   if (job.view === 'photo') {
     // With a cut-out, what is cut away stays faintly visible, so the brush can bring it back.
-    const mask = cutout && featherMask(paintStrokes(cutout.startMask ?? maskFromAlpha(placed), cutout.strokes), cutout.featherRadius);
+    const { cutout } = settings;
+    const cut = Boolean(cutout?.startMask || cutout?.strokes?.length);
+    const mask = cut && cutout ? featherMask(paintStrokes(cutout.startMask ?? maskFromAlpha(placed), cutout.strokes ?? []), cutout.featherRadius ?? 0) : undefined;
     for (let y = 0; y < height; y++) {
       for (let x = 0; x < width; x++) {
         const i = y * width + x;
@@ -80,15 +85,7 @@ function render(job: MockupJob): ImageBitmap {
     }
     out = placed;
   } else {
-    const bitmap = renderBitmap(placed, {
-      negative: job.look.tone === 'negative',
-      tone: job.tone,
-      autoLevelsClip: job.autoLevelsClip,
-      // Sharpening at screen scale: a one-pixel radius keeps the look of a hard-sharpened burn.
-      sharpen: job.sharpen ?? { amount: 150, radius: 1, threshold: 2 },
-      halftone: { method: job.look.halftoneMethod, pixelsPerInch: job.look.linesPerInch },
-      cutout,
-    });
+    const bitmap = renderBitmap(placed, settings);
     const mock = renderMockup({ bitmap, shape: job.look.shape, surfaceColour: job.look.surfaceColour, markColour: job.look.markColour });
     out = new ImageData(mock.data as Uint8ClampedArray<ArrayBuffer>, width, height);
   }

@@ -1,28 +1,14 @@
 import { join } from 'node:path';
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { execFileSync } from 'node:child_process';
-import { tmpdir } from 'node:os';
-import { afterAll, describe, expect, it } from 'vitest';
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
 import sharp, { type Sharp } from 'sharp';
 import { AppError } from '../../../shared/errors.ts';
 import { encodeBitmapPng, readPngFacts } from '../../../server/imaging/png-1bit.ts';
 import { encodeGrayscaleMaster } from '../../../server/imaging/grayscale-master.ts';
 import { decodePhoto, inspectPhoto } from '../../../server/imaging/photo-decode.ts';
 import { placePhoto } from '../../../server/imaging/placement.ts';
-import { prepareGray, prepareMaster, renderBitmap } from '../../../shared/imaging/pipeline.ts';
-import { referencePhotoDir } from '../../support/pillow.ts';
-
-const work = mkdtempSync(join(tmpdir(), 'etchwell-adapters-'));
-afterAll(() => rmSync(work, { recursive: true, force: true }));
-
-/** Pillow's view of a PNG file: mode, size, dpi and raw bytes (Debian python3-pil). */
-function pillowOpen(png: Buffer): { mode: string; size: [number, number]; dpi: [number, number]; bytes: Buffer } {
-  const path = join(work, `f${Math.random().toString(36).slice(2)}.png`);
-  writeFileSync(path, png);
-  const script = `import json,sys; from PIL import Image; i=Image.open(${JSON.stringify(path)}); print(json.dumps({'mode': i.mode, 'size': i.size, 'dpi': i.info.get('dpi')})); sys.stdout.flush(); open(${JSON.stringify(path + '.raw')}, 'wb').write(i.tobytes())`;
-  const facts = JSON.parse(execFileSync('/usr/bin/python3', ['-c', script], { encoding: 'utf8' }));
-  return { ...facts, bytes: readFileSync(`${path}.raw`) };
-}
+import { prepareGray, renderBitmap } from '../../../shared/imaging/pipeline.ts';
+import { pillowOpen, referencePhotoDir } from '../../support/pillow.ts';
 
 describe('engrave file and grayscale master (PNG bytes)', () => {
   // PNG specification (ISO/IEC 15948:2004) §11.3.5.3: pixels per metre = round(dpi / 0.0254).
@@ -153,19 +139,6 @@ describe('placement and the whole server pipeline', () => {
     const bitmap = renderBitmap(placed, { negative: true, sharpen: { amount: 150, radius: 2, threshold: 2 }, halftone: { method: 'jarvis-judice-ninke' } });
     const png = encodeBitmapPng(bitmap, 360);
     expect(readPngFacts(png)).toMatchObject({ width: 2880, height: 3600, bitDepth: 1, colourType: 0, pixelsPerMetre: 14173 });
-  });
-
-  it('prepares the grayscale master in bands exactly as in one piece', async () => {
-    const bytes = readFileSync(join(referencePhotoDir, 'coffee.png'));
-    const placed = await placePhoto(bytes, { crop: { left: 0, top: 0, width: 600, height: 400 } }, { widthMm: 152.4, heightMm: 101.6 }, 100);
-    const settings = { negative: false, autoLevelsClip: 0.01, sharpen: { amount: 200, radius: 2, threshold: 1 }, cutout: { strokes: [{ mode: 'remove' as const, width: 40, points: [[0, 200], [600, 200]] as Array<[number, number]> }], featherRadius: 6 } };
-    const whole = prepareGray(placed, settings);
-    const banded = prepareMaster(placed, settings, 37);
-    let worst = 0;
-    for (let i = 0; i < banded.gray.length; i++) worst = Math.max(worst, Math.abs(banded.gray[i]! - Math.min(255, Math.max(0, Math.round(whole.gray.data[i]!)))));
-    // The box-approximated blur restarts at each band's edge rows; enough overlap keeps it exact
-    // to rounding.
-    expect(worst).toBeLessThanOrEqual(1);
   });
 
   it('leaves what the turned photo does not cover transparent, so it never burns', async () => {

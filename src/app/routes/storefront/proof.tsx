@@ -32,7 +32,7 @@ export function ProofPage() {
                 <CardTitle>
                   {item.blankName}, {item.sizeLabel}
                 </CardTitle>
-                <div className="inline-flex rounded-lg p-3" style={{ background: item.look.surfaceColour }}>
+                <div className="inline-flex rounded-lg bg-graphite-100 p-3">
                   <img src={imageUrl} alt="Your proof, as it will burn" width={width} height={Math.round((width * item.look.areaHeightMm) / item.look.areaWidthMm)} className="max-w-full" />
                 </div>
                 <p className="mt-2 text-xs text-graphite-500">The dots are drawn at screen size; the laser burns them far finer.</p>

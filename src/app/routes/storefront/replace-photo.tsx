@@ -61,8 +61,8 @@ export function ReplacePhotoPage() {
                   <PhotoDrop studioSlug={studio.slug} hasPhoto={Boolean(photo)} onPhoto={setPhoto} />
                   {photo && placement && (
                     <>
-                      <div className="inline-flex self-start rounded-lg p-3" style={{ background: item.look.surfaceColour }}>
-                        <PlacedPhoto photo={photo} placement={placement} look={item.look} size={size} view="burn" label="Your new photo as it will burn" />
+                      <div className="inline-flex self-start rounded-lg bg-graphite-100 p-3">
+                        <PlacedPhoto photo={photo} placement={placement} look={item.look} areaWidthMm={item.look.areaWidthMm} size={size} view="burn" label="Your new photo as it will burn" />
                       </div>
                       <p role="status" className={verdict === 'too-low' ? 'font-semibold text-rust-600' : 'font-semibold text-moss-800'}>
                         {verdict === 'too-low' ? 'Still too low' : verdict === 'fair' ? 'Fair' : 'Good'}: {Math.floor(ppi!)} pixels per inch at {formatSize(area.widthMm, area.heightMm, studio.units)}.

@@ -1,7 +1,9 @@
 import { useForm } from 'react-hook-form';
-import { sizeInputSchema, type SizeInput, type SizeView } from '../../../../shared/schemas/catalog.ts';
+import { sizeInputSchema, type BlankShape, type SizeInput, type SizeView } from '../../../../shared/schemas/catalog.ts';
+import { sizeFit } from '../../../../shared/imaging/shape.ts';
+import { Button } from '../../../components/ui/button.tsx';
 import { moneyInputValue, parseMoneyInput } from '../../../../shared/money.ts';
-import { mmToUnit, unitToMm, type LengthUnit } from '../../../../shared/units.ts';
+import { mmToUnit, mmToUnitDown, unitToMm, type LengthUnit } from '../../../../shared/units.ts';
 import { Dialog } from '../../../components/ui/dialog.tsx';
 import { SelectField } from '../../../components/ui/field.tsx';
 import { TextField } from '../../../components/ui/text-field.tsx';
@@ -26,7 +28,7 @@ type FormValues = {
   sku: string;
 };
 
-export function SizeDialog({ slug, blankId, units, currency, size, onClose }: { slug: string; blankId: string; units: LengthUnit; currency: string; size?: SizeView; onClose(): void }) {
+export function SizeDialog({ slug, blankId, shape, units, currency, size, onClose }: { slug: string; blankId: string; shape: BlankShape; units: LengthUnit; currency: string; size?: SizeView; onClose(): void }) {
   const add = useAddSize(slug, blankId);
   const update = useUpdateSize(slug, blankId);
   const toast = useToast();
@@ -61,6 +63,16 @@ export function SizeDialog({ slug, blankId, units, currency, size, onClose }: { 
   const { register, formState, watch } = form;
   const errors = formState.errors;
   const length = { type: 'number', inputMode: 'decimal', step: 'any', suffix: units } as const;
+  // The area checked against the blank's outline as it is typed (the server checks it again):
+  // when it reaches past the edge, the largest area of its proportions is offered, rounded down.
+  const typed = watch(['outerWidthMm', 'outerHeightMm', 'areaWidthMm', 'areaHeightMm']).map((v) => unitToMm(v, units));
+  const fit = typed.every((v) => Number.isFinite(v) && v > 0) ? sizeFit(shape, { outerWidthMm: typed[0]!, outerHeightMm: typed[1]!, areaWidthMm: typed[2]!, areaHeightMm: typed[3]! }) : undefined;
+  const down = (mm: number) => mmToUnitDown(mm, units);
+  const useLargest = () => {
+    if (!fit) return;
+    form.setValue('areaWidthMm', down(fit.largest.widthMm), { shouldValidate: true });
+    form.setValue('areaHeightMm', down(fit.largest.heightMm), { shouldValidate: true });
+  };
 
   const onSubmit = form.handleSubmit(async (input) => {
     try {
@@ -87,6 +99,20 @@ export function SizeDialog({ slug, blankId, units, currency, size, onClose }: { 
         <TextField label="Blank height" {...length} {...register('outerHeightMm', { valueAsNumber: true })} error={errors.outerHeightMm?.message} />
         <TextField label="Engraving area width" {...length} {...register('areaWidthMm', { valueAsNumber: true })} error={errors.areaWidthMm?.message} hint="The part the photo is burned on." />
         <TextField label="Engraving area height" {...length} {...register('areaHeightMm', { valueAsNumber: true })} error={errors.areaHeightMm?.message} />
+        {fit && !fit.fits && shape !== 'rectangle' && (
+          <div className="sm:col-span-2">
+            <Notice tone="caution" title="The area reaches past the blank’s edge">
+              <span className="flex flex-wrap items-center gap-3">
+                <span>
+                  The largest area of these proportions that fits this {shape === 'circle' ? 'round' : shape === 'oval' ? 'oval' : 'rounded'} blank is {down(fit.largest.widthMm)} × {down(fit.largest.heightMm)} {units}.
+                </span>
+                <Button size="sm" variant="secondary" onClick={useLargest}>
+                  Use {down(fit.largest.widthMm)} × {down(fit.largest.heightMm)} {units}
+                </Button>
+              </span>
+            </Notice>
+          </div>
+        )}
         <TextField label="Price" inputMode="decimal" suffix={currency} {...register('priceMinor')} error={errors.priceMinor?.message} />
         <TextField label="SKU" {...register('sku')} error={errors.sku?.message} hint="Your own stock code; optional." />
         <fieldset className="flex flex-col gap-2 sm:col-span-2">

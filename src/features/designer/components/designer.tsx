@@ -57,8 +57,9 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
 
   useEffect(() => {
     if (!placement || !mockup.ready) return;
-    mockup.render({ size: canvasSize, placement, look, view });
-  }, [mockup.ready, mockup.render, JSON.stringify(placement), canvasSize.width, canvasSize.height, look, view]); // eslint-disable-line react-hooks/exhaustive-deps
+    // No prep given: the worker uses the recipe's own (`recipePrep`), as the burn will.
+    mockup.render({ size: canvasSize, placement, look, areaWidthMm: area.widthMm, view });
+  }, [mockup.ready, mockup.render, JSON.stringify(placement), canvasSize.width, canvasSize.height, look, view, area.widthMm]); // eslint-disable-line react-hooks/exhaustive-deps
 
   useEffect(() => {
     const ctx = canvas.current?.getContext('2d');

@@ -5,14 +5,14 @@ import { drawInscription } from '../inscription.ts';
 
 type Item = OrderView['items'][number];
 
-/** An ordered item drawn again as it will burn, from its stored placement and recipe. */
+/** An ordered item drawn again as it will burn, from its stored placement and its recipe's prep, in the blank's shape. */
 export function ItemMockup({ item, width = 220 }: { item: Item; width?: number }) {
   const { look, placement, photo } = item;
   const size = { width, height: Math.round((width * look.areaHeightMm) / look.areaWidthMm) };
   const mockup = useMockup(photo);
   const canvas = useRef<HTMLCanvasElement>(null);
   useEffect(() => {
-    if (mockup.ready) mockup.render({ size, placement, look, view: 'burn' });
+    if (mockup.ready) mockup.render({ size, placement, look, areaWidthMm: look.areaWidthMm, view: 'burn' });
   }, [mockup.ready]); // eslint-disable-line react-hooks/exhaustive-deps
   useEffect(() => {
     const ctx = canvas.current?.getContext('2d');
@@ -21,7 +21,7 @@ export function ItemMockup({ item, width = 220 }: { item: Item; width?: number }
     if (item.inscription) drawInscription(ctx, item.inscription, size, look.markColour);
   }, [mockup.result]); // eslint-disable-line react-hooks/exhaustive-deps
   return (
-    <div className="inline-flex rounded-lg p-3" style={{ background: look.surfaceColour }}>
+    <div className="inline-flex rounded-lg bg-graphite-100 p-3">
       <canvas ref={canvas} width={size.width} height={size.height} role="img" aria-label={`${item.blankName} as it will burn`} />
     </div>
   );

@@ -14,7 +14,7 @@ export const workspaceSchema = z.object({
     status: z.enum(['active', 'suspended']),
     logoUrl: z.string().nullable(),
   }),
-  orders: z.object({ lowResolutionPolicy: z.enum(['confirm', 'refuse']), pickupEnabled: z.boolean(), pickupNote: z.string(), proofsRequired: z.boolean() }),
+  orders: z.object({ lowResolutionPolicy: z.enum(['confirm', 'refuse']), pickupEnabled: z.boolean(), pickupNote: z.string(), proofsRequired: z.boolean(), masterResolution: z.enum(['1000-ppi', 'recipe']) }),
   role: z.enum(ROLES),
   permissions: z.array(z.enum(PERMISSIONS)),
 });

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { formatMoney, moneyInputValue, parseMoneyInput } from '../../../../shared/money.ts';
-import { orderSettingsInputSchema, shippingRateInputSchema, type OrderSettingsInput, type ShippingRateInput, type ShippingRateView } from '../../../../shared/studio.ts';
+import { MASTER_RESOLUTIONS, orderSettingsInputSchema, shippingRateInputSchema, type OrderSettingsInput, type ShippingRateInput, type ShippingRateView } from '../../../../shared/studio.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { Card, CardTitle } from '../../../components/ui/card.tsx';
 import { Dialog } from '../../../components/ui/dialog.tsx';
@@ -16,7 +16,7 @@ import { serverErrorOf, showServerError } from '../../../lib/form-errors.ts';
 import type { Workspace } from '../api/get-workspace.ts';
 import { useAddShippingRate, useDeleteShippingRate, useShippingRates, useUpdateOrderSettings, useUpdateShippingRate } from '../api/order-settings.ts';
 
-/** How the studio takes orders: what happens to low-resolution photos, and pickup. */
+/** How the studio takes orders: what happens to low-resolution photos, pickup, and the master's resolution. */
 export function OrderSettingsCard({ workspace }: { workspace: Workspace }) {
   const save = useUpdateOrderSettings(workspace.studio.slug);
   const toast = useToast();
@@ -32,7 +32,7 @@ export function OrderSettingsCard({ workspace }: { workspace: Workspace }) {
   });
   return (
     <Card>
-      <CardTitle>Orders and pickup</CardTitle>
+      <CardTitle>Orders, pickup and files</CardTitle>
       <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
         {serverErrorOf(form) && <Notice tone="error">{serverErrorOf(form)}</Notice>}
         <SelectField
@@ -53,6 +53,13 @@ export function OrderSettingsCard({ workspace }: { workspace: Workspace }) {
           <input type="checkbox" {...form.register('proofsRequired')} className="size-4 accent-ember-500" />
           Send every buyer a proof to approve before engraving
         </label>
+        <SelectField
+          label="Grayscale master"
+          options={Object.entries(MASTER_RESOLUTIONS).map(([value, label]) => ({ value, label }))}
+          {...form.register('masterResolution')}
+          error={errors.masterResolution?.message}
+          hint="Each render also writes a grayscale master for machine software that halftones by itself. At 1000 pixels per inch an 8 × 10 in master is about 80 megapixels."
+        />
         {form.watch('pickupEnabled') && <TextAreaField label="Where and when to collect" rows={2} {...form.register('pickupNote')} error={errors.pickupNote?.message} />}
         <Button type="submit" busy={form.formState.isSubmitting} className="self-start">
           Save order settings

@@ -159,6 +159,11 @@ function SizesCard({ slug, blankId, units, currency, canEdit, blank }: { slug: s
           <span>
             {formatSize(row.original.areaWidthMm, row.original.areaHeightMm, units)}
             <span className="block text-xs text-graphite-500">blank {formatSize(row.original.outerWidthMm, row.original.outerHeightMm, units)}</span>
+            {!row.original.fit.fits && (
+              <span className="mt-1 block text-xs font-semibold text-rust-600">
+                Reaches past the blank’s edge; at most {formatSize(row.original.fit.largest.widthMm, row.original.fit.largest.heightMm, units)} fits. Edit the size.
+              </span>
+            )}
           </span>
         ),
       }),
@@ -182,8 +187,13 @@ function SizesCard({ slug, blankId, units, currency, canEdit, blank }: { slug: s
     <Card>
       <CardTitle aside={canEdit && <Button size="sm" onClick={() => setEditing('new')}>Add size</Button>}>Sizes and prices</CardTitle>
       {blank.status === 'active' && blank.sizes.length === 0 && <Notice tone="caution">This blank is on sale but has no sizes, so buyers cannot see it. Add a size.</Notice>}
+      {blank.sizes.some((s) => !s.fit.fits) && (
+        <Notice tone="caution" title="An engraving area does not fit this blank">
+          {blank.sizes.filter((s) => !s.fit.fits).map((s) => s.label).join(', ')}: the area reaches past the edge of the blank’s shape. Burns stay inside the shape drawn in the area, but the area itself should fit the piece: edit the size to the largest area that fits.
+        </Notice>
+      )}
       <DataTable caption={`Sizes of ${blank.name}`} data={blank.sizes} columns={columns} getRowId={(s) => s.id} searchLabel="Search sizes" initialSorting={[{ id: 'priceMinor', desc: false }]} empty="No sizes yet." />
-      {editing && <SizeDialog slug={slug} blankId={blankId} units={units} currency={currency} size={editing === 'new' ? undefined : editing} onClose={() => setEditing(undefined)} />}
+      {editing && <SizeDialog slug={slug} blankId={blankId} shape={blank.shape} units={units} currency={currency} size={editing === 'new' ? undefined : editing} onClose={() => setEditing(undefined)} />}
       <Dialog open={Boolean(removal.pending)} title={`Remove size ${removal.pending?.label ?? ''}?`} onClose={removal.cancel} confirm={{ label: 'Remove size', danger: true, onConfirm: () => void removal.confirm() }}>
         Buyers can no longer choose it. Orders already placed keep their own copy of the size and its price.
       </Dialog>

@@ -52,7 +52,7 @@ function StaffItem({ slug, itemId, canProduce, proofsRequired }: { slug: string;
   const settings = draft ?? prep;
   const inPrep = view_.stage === 'prep';
   const size = { width: PREVIEW_WIDTH, height: Math.round((PREVIEW_WIDTH * view_.look.areaHeightMm) / view_.look.areaWidthMm) };
-  const mock = prepMockup(view_, settings, PREVIEW_WIDTH);
+  const mock = prepMockup(view_, settings);
   const set = (change: Partial<PrepSettings>) => setDraft({ ...settings, ...change });
   const editable = inPrep && canProduce;
   const setCutout = (cutout: Cutout) => set({ cutout });
@@ -98,13 +98,14 @@ function StaffItem({ slug, itemId, canProduce, proofsRequired }: { slug: string;
         <div className="flex flex-col gap-6">
           <Card>
             <CardTitle aside={<ViewSwitch view={view} onChange={setView} />}>Preview</CardTitle>
-            <div className="inline-flex rounded-lg p-3" style={{ background: view === 'after' ? view_.look.surfaceColour : '#e9e4dc' }}>
+            <div className="inline-flex rounded-lg bg-graphite-100 p-3">
               <div className="relative" style={{ width: size.width, height: size.height }}>
                 <PlacedPhoto
                   photo={view_.photo}
                   placement={view_.placement}
                   look={mock.look}
-                  prep={view === 'before' ? undefined : view === 'cutout' ? { cutout: mock.job.cutout } : mock.job}
+                  areaWidthMm={mock.job.areaWidthMm}
+                  prep={view === 'before' ? undefined : mock.job.prep}
                   size={size}
                   view={view === 'after' ? 'burn' : 'photo'}
                   label={view === 'before' ? 'The photo before prep' : view === 'cutout' ? 'The cut-out: faded parts are not burned' : 'Preview with these prep settings'}

@@ -70,7 +70,6 @@ function ReviewDetail({ slug, units, item }: { slug: string; units: LengthUnit; 
   const [reason, setReason] = useState<ReviewReason>(item.verdict === 'too-low' ? 'low_resolution' : item.photo.quality.blurry ? 'blurry' : 'other');
   const [note, setNote] = useState('');
   const printSize = { width: Math.round((item.areaWidthMm / 25.4) * CSS_PPI), height: Math.round((item.areaHeightMm / 25.4) * CSS_PPI) };
-  const look = { shape: 'rectangle' as const, surfaceColour: '#ffffff', markColour: '#000000', tone: 'positive' as const, halftoneMethod: 'floyd-steinberg' as const, linesPerInch: 300 };
   const centre = { x: item.placement.crop.left + item.placement.crop.width / 2, y: item.placement.crop.top + item.placement.crop.height / 2 };
 
   async function run(work: () => Promise<unknown>, done: string) {
@@ -122,8 +121,8 @@ function ReviewDetail({ slug, units, item }: { slug: string; units: LengthUnit; 
       <div className="grid gap-6 xl:grid-cols-2">
         <Card>
           <CardTitle>At print size ({formatSize(item.areaWidthMm, item.areaHeightMm, units)})</CardTitle>
-          <div className="overflow-auto">
-            <PlacedPhoto photo={item.photo} placement={item.placement} look={look} size={printSize} view="photo" label="The photo as placed, at print size" />
+          <div className="overflow-auto rounded-lg bg-graphite-100 p-3">
+            <PlacedPhoto photo={item.photo} placement={item.placement} look={item.look} areaWidthMm={item.areaWidthMm} size={printSize} view="photo" label="The photo as placed, at print size, in the blank’s shape" />
           </div>
           <p className="mt-2 text-xs text-graphite-500">At 96 screen pixels per inch; hold the screen at arm’s length for the look of the real piece.</p>
         </Card>
