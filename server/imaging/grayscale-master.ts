@@ -18,6 +18,7 @@ export class GrayAlphaPngWriter {
   private previous: Buffer;
   private current: Buffer;
   private rowsWritten = 0;
+  private draining: Promise<void> | undefined;
 
   constructor(
     readonly width: number,
@@ -51,12 +52,16 @@ export class GrayAlphaPngWriter {
     }
     [this.previous, this.current] = [previous, current];
     this.rowsWritten += rows;
-    if (!this.deflate.write(out)) await once(this.deflate, 'drain');
+    // Deflate runs on libuv's thread pool: the next band is prepared while this one compresses,
+    // and only one band's rows wait in its queue at a time.
+    await this.draining;
+    this.draining = this.deflate.write(out) ? undefined : once(this.deflate, 'drain').then(() => undefined);
   }
 
   /** The finished PNG. */
   async finish(): Promise<Buffer> {
     if (this.rowsWritten !== this.height) throw new RangeError(`${this.rowsWritten} of ${this.height} rows written`);
+    await this.draining;
     const ended = once(this.deflate, 'end');
     this.deflate.end();
     await ended;

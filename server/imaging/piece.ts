@@ -5,11 +5,11 @@ import { clipBitmapToShape, shapeMask, type BlankShape } from '../../shared/imag
 import { outputSize } from '../../shared/imaging/sizing.ts';
 import type { Levels } from '../../shared/imaging/tone.ts';
 import { gradeSettings, pipelineSettings, prepAtWidth } from '../../shared/orders/prep-pipeline.ts';
-import type { Inscription, Placement } from '../../shared/schemas/checkout.ts';
+import type { Inscription } from '../../shared/schemas/checkout.ts';
 import type { PrepSettings } from '../../shared/schemas/prep.ts';
 import { GrayAlphaPngWriter } from './grayscale-master.ts';
 import { burnInscription, inscribeMaster, inscriptionCoverage } from './inscription.ts';
-import { placePhoto, placePhotoInBands } from './placement.ts';
+import { placePhoto, placePhotoInBands, type Placement } from './placement.ts';
 
 /**
  * One piece as it burns, from the original photo: the one pipeline behind every picture of it
@@ -40,8 +40,8 @@ export async function burnPiece(photo: Buffer, piece: Piece, prep: PrepSettings)
   return { placed, settings, bitmap, levels };
 }
 
-/** Rows per band of the master: about 8000 × 256 pixels, some 30 MB of working copies. */
-const MASTER_BAND_ROWS = 256;
+/** Rows per band of the master: about 8000 × 512 pixels, some 80 MB of working copies. */
+const MASTER_BAND_ROWS = 512;
 
 /**
  * The grayscale master at `ppi`, written in bands from placement to PNG. It is the engrave

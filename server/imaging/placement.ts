@@ -103,14 +103,24 @@ export async function placePhoto(bytes: Buffer, placement: Placement, area: { wi
  */
 export async function* placePhotoInBands(bytes: Buffer, placement: Placement, size: { width: number; height: number }, bandRows: number, overlap: number): AsyncGenerator<{ top: number; from: number; pixels: Rgba8 }> {
   const { data, info } = await (await placedWindow(bytes, placement)).raw().toBuffer({ resolveWithObject: true });
-  for (let top = 0; top < size.height; top += bandRows) {
+  const band = (top: number) => {
     const from = Math.max(0, top - overlap);
     const to = Math.min(size.height, top + bandRows + overlap);
-    const band = sharp(data, { raw: { width: info.width, height: info.height, channels: 4 }, limitInputPixels: false })
+    const rows = sharp(data, { raw: { width: info.width, height: info.height, channels: 4 }, limitInputPixels: false })
       .resize({ width: size.width, height: size.height, fit: 'fill', kernel: 'lanczos3' })
-      .extract({ left: 0, top: from, width: size.width, height: to - from });
-    const { data: rows } = await band.raw().toBuffer({ resolveWithObject: true });
-    yield { top, from, pixels: { width: size.width, height: to - from, data: new Uint8Array(rows.buffer, rows.byteOffset, rows.length) } };
+      .extract({ left: 0, top: from, width: size.width, height: to - from })
+      .raw()
+      .toBuffer();
+    return { top, from, rows };
+  };
+  // libvips resamples the next band on its own threads while the caller works on this one.
+  let next = band(0);
+  while (next.top < size.height) {
+    const current = next;
+    if (current.top + bandRows < size.height) next = band(current.top + bandRows);
+    else next = { top: size.height, from: 0, rows: Promise.resolve(Buffer.alloc(0)) };
+    const rows = await current.rows;
+    yield { top: current.top, from: current.from, pixels: { width: size.width, height: rows.length / 4 / size.width, data: new Uint8Array(rows.buffer, rows.byteOffset, rows.length) } };
   }
 }
 

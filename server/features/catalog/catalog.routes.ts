@@ -16,7 +16,7 @@ import { blankView, machineView, materialView, photoView, recipeView, sizeView }
 const material = { name: 'Test slate', family: 'stone', surfaceColour: '#333333', markColour: '#cccccc', defaultTone: 'negative', linesPerInchMin: 250, linesPerInchMax: 330 };
 const machine = { name: 'Test CO2', laserKind: 'co2', powerWatts: 60, bedWidthMm: 600, bedHeightMm: 400, speedUnit: 'mm/s' };
 const blank = (materialId: string) => ({ name: 'Test tile', materialId, shape: 'rectangle' });
-const size = { label: '4 × 4 in', outerWidthMm: 101.6, outerHeightMm: 101.6, areaWidthMm: 90, areaHeightMm: 90, orientation: 'either', priceMinor: 2500, stock: null };
+const size = { label: '4 × 4 in', outerWidthMm: 101.6, outerHeightMm: 101.6, areaWidthMm: 71, areaHeightMm: 71, orientation: 'either', priceMinor: 2500, stock: null };
 const recipe = (materialId: string, machineId: string) => ({ materialId, machineId, linesPerInch: 300, halftoneMethod: 'jarvis-judice-ninke', tone: 'negative', speed: 300, powerMinPercent: 10, powerMaxPercent: 20, passes: 1 });
 
 /** Where the workspace loads a product photo from. */

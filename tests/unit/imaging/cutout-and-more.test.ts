@@ -6,6 +6,7 @@ import { grayF, toGrayF } from '../../../shared/imaging/image.ts';
 import { renderMockup } from '../../../shared/imaging/mockup.ts';
 import { insideShape } from '../../../shared/imaging/shape.ts';
 import { estimateBurnSeconds } from '../../../shared/imaging/burn-time.ts';
+import { pixelsFor } from '../../../shared/imaging/sizing.ts';
 import { exposure, laplacianVariance } from '../../../shared/imaging/photo-checks.ts';
 import { gaussianBlur } from '../../../shared/imaging/blur.ts';
 import { renderBitmap } from '../../../shared/imaging/pipeline.ts';
@@ -79,6 +80,11 @@ describe('clustered dots, mock-up, burn time, photo checks', () => {
     // Worked by hand: 100 × 100 mm at 254 lines per inch = 1000 rows; each row (100 + 2·5) mm at
     // 500 mm/s = 0.22 s, plus 0.05 s turnaround = 0.27 s; 1000 rows × 2 passes = 540 s.
     expect(estimateBurnSeconds({ widthMm: 100, heightMm: 100, linesPerInch: 254, speedMmPerSecond: 500, passes: 2 })).toBeCloseTo(540, 6);
+    // One row per row of the engrave file: 25.5 mm at 100 lines per inch is 100.39 lines, which
+    // placement rounds to 100 pixel rows; counting 101 would add a row that never burns.
+    const rows = pixelsFor(25.5, 100);
+    expect(rows).toBe(100);
+    expect(estimateBurnSeconds({ widthMm: 100, heightMm: 25.5, linesPerInch: 100, speedMmPerSecond: 500, passes: 1 })).toBeCloseTo(rows * 0.27, 6);
   });
 
   it('scores a blurred photo as less sharp and reports clipped tones (scikit-image "camera", CC0)', () => {

@@ -203,7 +203,7 @@ describe('one look from the storefront to the laser', () => {
 
 describe('quarter turns', () => {
   it.each([-90, 90, 180])('a %i° turn of a window that covers the photo leaves no transparent pixel (odd and even sides)', async (rotation) => {
-    for (const [pw, ph] of [[640, 427], [601, 400]]) {
+    for (const [pw, ph] of [[640, 427], [601, 400]] as const) {
       const bytes = await sharp({ create: { width: pw, height: ph, channels: 3, background: '#808080' } }).png().toBuffer();
       const [w, h] = Math.abs(rotation) === 90 ? [ph, pw] : [pw, ph];
       // At 100 lines per inch and an area of w × h hundredths of an inch, one window pixel is one output pixel.
