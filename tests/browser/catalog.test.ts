@@ -55,8 +55,16 @@ describe('an owner builds the catalog; staff can only look', () => {
     await dialog.getByLabel('Label').fill('8 × 10 in');
     await dialog.getByLabel('Blank width').fill('8');
     await dialog.getByLabel('Blank height').fill('10');
+    // 7.9 × 9.9 in is inside the 8 × 10 in rectangle but its corners reach past the rounded ones
+    // (radius 0.64 in): the form says so and offers the largest area that fits.
+    await dialog.getByLabel('Engraving area width').fill('7.9');
+    await dialog.getByLabel('Engraving area height').fill('9.9');
+    await expect.poll(() => dialog.getByText('The area reaches past the blank’s edge').count()).toBe(1);
+    expect(await dialog.getByRole('button', { name: /^Use \d+(\.\d+)? × \d+(\.\d+)? in$/ }).count()).toBe(1);
+    await shot(page, 'catalog-size-past-edge');
     await dialog.getByLabel('Engraving area width').fill('7.5');
     await dialog.getByLabel('Engraving area height').fill('9.5');
+    await expect.poll(() => dialog.getByText('The area reaches past the blank’s edge').count()).toBe(0);
     await dialog.getByLabel('Price').fill('64.50');
     await dialog.getByLabel('Unlimited (made to order)').uncheck();
     await dialog.getByLabel('Blanks in stock').fill('2');

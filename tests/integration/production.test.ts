@@ -1,3 +1,4 @@
+import sharp from 'sharp';
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { seedDemo } from '../../server/db/seed.ts';
@@ -8,10 +9,12 @@ import { Blank } from '../../server/features/catalog/catalog.entity.ts';
 import { OutboxEmail } from '../../server/features/outbox/outbox-email.entity.ts';
 import { Studio } from '../../server/features/studios/studio.entity.ts';
 import type { BatchView, ProductionBoard } from '../../shared/schemas/production.ts';
+import { SPEED_UNIT_LABELS } from '../../shared/schemas/catalog.ts';
+import { burnEstimateLine } from '../../server/features/production/render.service.ts';
 import { signIn } from '../support/factories.ts';
 import { placePaidOrder, uploadBuyerPhoto } from '../support/orders.ts';
 import { pdfFirstPageQr, pdfPages, pdfText } from '../support/pdf.ts';
-import { pillowImageInfo } from '../support/pillow.ts';
+import { pillowImageInfo, pillowOpen, unpackBits } from '../support/pillow.ts';
 import { useTestApp } from '../support/test-app.ts';
 
 /** From approved items to shipped: batches, renders with their files, burned, handed over. */
@@ -152,6 +155,60 @@ describe('production and shipping', () => {
     const mails = await t.orm.em.fork().find(OutboxEmail, { to: 'bea@buyers.test' }, { orderBy: { createdAt: 'asc' } });
     expect(mails.map((m) => m.subject)).toEqual(expect.arrayContaining([expect.stringMatching(/^Order \d+ has shipped$/), expect.stringMatching(/^Order \d+: picked up$/)]));
     expect(mails.find((m) => m.subject.endsWith('has shipped'))!.text).toContain('Tracking number: PW 4471 0923');
+  });
+
+  it('burns a round slate coaster inside its circle: nothing fires outside it in the engrave file, and the master is clear there', async () => {
+    const em = t.orm.em.fork();
+    const fernhill = await em.findOneOrFail(Studio, { slug: 'fernhill-stone' });
+    await em.nativeUpdate(Studio, { id: fernhill.id }, { proofsRequired: false });
+    const coaster = await em.findOneOrFail(Blank, { name: 'Slate coaster' }, { populate: ['sizes'], filters: { [TENANT_FILTER]: { studioId: fernhill.id } } });
+    const photo = await uploadBuyerPhoto(t, 'fernhill-stone', 1200, 1200, await sharp({ create: { width: 1200, height: 1200, channels: 3, background: '#9aa3ab' } }).jpeg().toBuffer());
+    const orderId = await placePaidOrder(t, 'fernhill-stone', [{ blankId: coaster.id, sizeId: coaster.sizes[0]!.id, photo }], { email: 'rory@buyers.test', name: 'Rory Vance' });
+    const dev = request.agent(t.app);
+    await signIn(dev, 'dev@fernhill-stone.test', DEMO_PASSWORD);
+    const fern = '/api/studios/fernhill-stone';
+    const order = (await dev.get(`${fern}/orders/${orderId}`).expect(200)).body as { items: Array<{ id: string }> };
+    const itemId = order.items[0]!.id;
+    await dev.post(`${fern}/items/${itemId}/approve-photo`).expect(200);
+    await dev.post(`${fern}/items/${itemId}/approve-without-proof`).expect(200);
+    const created = (await dev.post(`${fern}/production/batches`).send({ itemIds: [itemId] }).expect(201)).body as { id: string };
+    let batch: BatchView | undefined;
+    for (let i = 0; i < 600 && !batch; i++) {
+      const seen = (await dev.get(`${fern}/production/batches/${created.id}`).expect(200)).body as BatchView;
+      if (seen.items.every((item) => item.render.status === 'done')) batch = seen;
+      else await new Promise((r) => setTimeout(r, 100));
+    }
+    const renderId = batch!.items[0]!.render.id;
+    const fetchFile = async (kind: string) => {
+      const link = (await dev.get(`${fern}/production/renders/${renderId}/files/${kind}`).expect(200)).body as { url: string };
+      return Buffer.from(await (await fetch(link.url)).arrayBuffer());
+    };
+    // Read by Pillow (an independent PNG reader).
+    const engrave = pillowOpen(await fetchFile('engrave'));
+    const [w, h] = engrave.size;
+    const bits = unpackBits(engrave.bytes, w, h);
+    // Inside the circle inscribed in the 70 × 70 mm area, on pixel centres (geometry):
+    // (x + ½ − w/2)² + (y + ½ − h/2)² ≤ (min(w, h)/2)².
+    const inCircle = (x: number, y: number) => (x + 0.5 - w / 2) ** 2 + (y + 0.5 - h / 2) ** 2 <= (Math.min(w, h) / 2) ** 2;
+    let firedOutside = 0;
+    let firedInside = 0;
+    for (let y = 0; y < h; y++) for (let x = 0; x < w; x++) if (bits[y * w + x] === 0) inCircle(x, y) ? firedInside++ : firedOutside++;
+    expect(firedOutside).toBe(0);
+    expect(firedInside).toBeGreaterThan(0.05 * Math.PI * (w / 2) ** 2);
+    const master = pillowOpen(await fetchFile('master'));
+    expect(master.mode).toBe('LA');
+    const [mw, mh] = master.size;
+    expect(mw).toBe(Math.round((70 / 25.4) * 1000));
+    let opaqueOutside = 0;
+    for (let y = 0; y < mh; y++) for (let x = 0; x < mw; x++) if ((x + 0.5 - mw / 2) ** 2 + (y + 0.5 - mh / 2) ** 2 > (mw / 2) ** 2 && master.bytes[(y * mw + x) * 2 + 1]! > 0) opaqueOutside++;
+    expect(opaqueOutside).toBe(0);
+  });
+
+  it('says why a burn is not estimated, in the workspace’s own words for the speed unit', () => {
+    const machine = { name: 'Fibre 30 W', laserKind: 'fibre', speed: 40, speedUnit: 'percent' as const, powerMinPercent: 20, powerMaxPercent: 30, passes: 1, notes: '' };
+    expect(burnEstimateLine(null, null, 1)).toBe('Not estimated: the material has no recipe for this machine.');
+    expect(burnEstimateLine(null, machine, 1)).toBe(`Not estimated: the recipe’s speed is a share of the machine’s top speed (${SPEED_UNIT_LABELS.percent}), not a length per second.`);
+    expect(burnEstimateLine(125, machine, 2)).toBe('2 min 05 s per piece, 4 min 10 s for 2 (raster, 5 mm overscan)');
   });
 
   it('takes an item out of its batch: the render and its files go, and it waits for a new batch', async () => {

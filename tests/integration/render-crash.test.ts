@@ -32,7 +32,9 @@ describe('a render whose worker dies', () => {
     await seedDemo(t.orm.em.fork());
     const em = t.orm.em.fork();
     const studio = await em.findOneOrFail(Studio, { slug: 'harbour-light' });
-    await em.nativeUpdate(Studio, { id: studio.id }, { proofsRequired: false });
+    // Masters at the line density keep each attempt well inside the short job timeout used here
+    // (a 1000 ppi master of 8 × 10 in takes longer than the 8 s this test allows a render).
+    await em.nativeUpdate(Studio, { id: studio.id }, { proofsRequired: false, masterResolution: 'recipe' });
     glass = await em.findOneOrFail(Blank, { name: 'Black-backed glass portrait' }, { populate: ['sizes'], filters: { [TENANT_FILTER]: { studioId: studio.id } } });
     staff = request.agent(t.app);
     await signIn(staff, 'tobias@harbour-light.test', DEMO_PASSWORD);
