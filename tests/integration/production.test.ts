@@ -160,7 +160,7 @@ describe('production and shipping', () => {
   it('burns a round slate coaster inside its circle: nothing fires outside it in the engrave file, and the master is clear there', async () => {
     const em = t.orm.em.fork();
     const fernhill = await em.findOneOrFail(Studio, { slug: 'fernhill-stone' });
-    await em.nativeUpdate(Studio, { id: fernhill.id }, { proofsRequired: false });
+    await em.nativeUpdate(Studio, { id: fernhill.id }, { proofsRequired: false, pickupEnabled: true, pickupNote: 'At the stone room.' });
     const coaster = await em.findOneOrFail(Blank, { name: 'Slate coaster' }, { populate: ['sizes'], filters: { [TENANT_FILTER]: { studioId: fernhill.id } } });
     const photo = await uploadBuyerPhoto(t, 'fernhill-stone', 1200, 1200, await sharp({ create: { width: 1200, height: 1200, channels: 3, background: '#9aa3ab' } }).jpeg().toBuffer());
     const orderId = await placePaidOrder(t, 'fernhill-stone', [{ blankId: coaster.id, sizeId: coaster.sizes[0]!.id, photo }], { email: 'rory@buyers.test', name: 'Rory Vance' });
