@@ -46,6 +46,9 @@ describe('a buyer orders a glass portrait and pays', () => {
       await route.continue();
     });
     await openDesigner(page);
+    // Every step is there from the start; placement waits for a photo.
+    expect(await page.locator('legend').allTextContents()).toEqual(['1. Size', '2. Photo', '3. Placement', '4. Words (optional)']);
+    expect(await page.getByText('Choose a photo first; then move, zoom, turn and straighten it here.').count()).toBe(1);
     await page.getByLabel('Choose your photo').setInputFiles({ name: 'astronaut.jpg', mimeType: 'image/jpeg', buffer: photo });
     await expect.poll(async () => (progressSeen ||= (await page.getByRole('progressbar', { name: 'Upload progress' }).count()) > 0)).toBe(true);
     // Worked by hand: the square photo fills the 7.5 × 9.5 in area by its height, 2048 px over
@@ -56,6 +59,15 @@ describe('a buyer orders a glass portrait and pays', () => {
     await page.getByRole('button', { name: 'Your photo' }).click();
     await page.getByRole('button', { name: 'As it will burn' }).click();
     await page.getByLabel('Zoom', { exact: true }).fill('1.2');
+    expect(await page.getByText('1.20×').count()).toBe(1);
+    // A quarter turn leaves the fine straightening alone; straightening stays within ±15°.
+    await page.getByLabel('Straighten', { exact: true }).fill('2.5');
+    await page.getByRole('button', { name: 'Turn right' }).click();
+    expect(await page.getByLabel('Straighten', { exact: true }).inputValue()).toBe('2.5');
+    expect(await page.getByText('+2.5°').count()).toBe(1);
+    expect(await page.getByLabel('Straighten', { exact: true }).getAttribute('max')).toBe('15');
+    await page.getByRole('button', { name: 'Turn left' }).click();
+    await page.getByLabel('Straighten', { exact: true }).fill('0');
     await page.getByLabel('I took this photo or have permission to use it.').check();
     await shot(page, 'storefront-designer');
     await page.getByRole('button', { name: /^Add to cart/ }).click();
@@ -96,6 +108,19 @@ describe('a buyer orders a glass portrait and pays', () => {
     await again.page.goto(link);
     await expect.poll(() => again.page.getByText('Paid', { exact: true }).count()).toBe(1);
     expect([...problems, ...again.problems]).toEqual([]);
+  });
+
+  it('offers portrait or landscape only where the engraving area is not square', async () => {
+    const { page, problems } = await b.newPage();
+    await openDesigner(page);
+    expect(await page.getByRole('group', { name: 'Orientation' }).count()).toBe(1);
+    // The round slate coaster's area is 70 × 70 mm: either way round is the same.
+    await page.goto(`${b.baseUrl}/s/fernhill-stone`);
+    await page.getByRole('link', { name: 'Slate coaster' }).first().click();
+    await page.waitForURL(/\/s\/fernhill-stone\/blanks\//);
+    await expect.poll(() => page.getByText('2. Photo').count()).toBe(1);
+    expect(await page.getByRole('group', { name: 'Orientation' }).count()).toBe(0);
+    expect(problems).toEqual([]);
   });
 
   it('says a 320 × 240 photo is too low and suggests what to do', async () => {

@@ -26,6 +26,14 @@ const naturalOrientation = (size: Size): Orientation => (size.orientation === 'l
 const shapeRadius = { rectangle: '4px', 'rounded-rectangle': '7%', oval: '50%', circle: '50%' } as const;
 const STAGE = { width: 460, height: 520 };
 
+/** Fine straightening on top of quarter turns, within ±15°. */
+const MAX_STRAIGHTEN = 15;
+const quarterTurnsOf = (rotation: number) => Math.round(rotation / 90);
+const straightening = (rotation: number) => rotation - quarterTurnsOf(rotation) * 90;
+/** A quarter turn more or less, keeping the straightening, within −180…180. */
+const turned = (rotation: number, by: 90 | -90) => ((((rotation + by + 180) % 360) + 360) % 360) - 180;
+const formatDegrees = (degrees: number) => `${degrees > 0 ? '+' : degrees < 0 ? '−' : ''}${Math.abs(degrees).toFixed(1)}°`;
+
 export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank }) {
   const cart = useCart(studio.slug);
   const toast = useToast();
@@ -216,7 +224,8 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
               <span className="font-bold">{s.price}</span>
             </label>
           ))}
-          {size.orientation === 'either' && (
+          {/* A square area reads the same either way round: no choice to offer. */}
+          {size.orientation === 'either' && size.areaWidthMm !== size.areaHeightMm && (
             <div role="group" aria-label="Orientation" className="mt-1 inline-flex self-start rounded-full bg-white p-1 ring-1 ring-graphite-200">
               {(['portrait', 'landscape'] as const).map((o) => (
                 <button key={o} type="button" aria-pressed={orientation === o} onClick={() => setOrientation(o)} className={cx('rounded-full px-3 py-1 text-sm font-semibold', orientation === o ? 'bg-graphite-900 text-white' : 'text-graphite-700')}>
@@ -253,22 +262,29 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
           {refused && <Notice tone="error">This studio does not engrave photos this small at this size.</Notice>}
         </fieldset>
 
-        {photo && framing && (
+        {photo && framing ? (
           <fieldset className="flex flex-col gap-3">
             <legend className="mb-2 text-sm font-bold uppercase tracking-wide text-graphite-600">3. Placement</legend>
             <label className="flex flex-col gap-1 text-sm font-semibold">
-              Zoom
-              <input type="range" min={1} max={MAX_ZOOM} step={0.01} value={framing.zoom} onChange={(e) => frame((f) => ({ ...f, zoom: Number(e.target.value) }))} className="accent-[var(--color-accent)]" />
+              <span className="flex justify-between">
+                <span>Zoom</span>
+                <span className="font-normal text-graphite-600">{framing.zoom.toFixed(2)}×</span>
+              </span>
+              <input type="range" aria-label="Zoom" min={1} max={MAX_ZOOM} step={0.01} value={framing.zoom} onChange={(e) => frame((f) => ({ ...f, zoom: Number(e.target.value) }))} className="accent-[var(--color-accent)]" />
             </label>
+            {/* Quarter turns and fine straightening are kept apart: the slider moves only the last ±15°. */}
             <label className="flex flex-col gap-1 text-sm font-semibold">
-              Straighten ({Math.round(framing.rotation)}°)
-              <input type="range" min={-180} max={180} step={0.5} value={framing.rotation} onChange={(e) => frame((f) => ({ ...f, rotation: Number(e.target.value) }))} className="accent-[var(--color-accent)]" />
+              <span className="flex justify-between">
+                <span>Straighten</span>
+                <span className="font-normal text-graphite-600">{formatDegrees(straightening(framing.rotation))}</span>
+              </span>
+              <input type="range" aria-label="Straighten" min={-MAX_STRAIGHTEN} max={MAX_STRAIGHTEN} step={0.5} value={straightening(framing.rotation)} onChange={(e) => frame((f) => ({ ...f, rotation: quarterTurnsOf(f.rotation) * 90 + Number(e.target.value) }))} className="accent-[var(--color-accent)]" />
             </label>
             <div className="flex flex-wrap gap-2">
-              <Button size="sm" variant="secondary" onClick={() => frame((f) => ({ ...f, rotation: ((f.rotation - 90 + 540) % 360) - 180 }))}>
+              <Button size="sm" variant="secondary" onClick={() => frame((f) => ({ ...f, rotation: turned(f.rotation, -90) }))}>
                 Turn left
               </Button>
-              <Button size="sm" variant="secondary" onClick={() => frame((f) => ({ ...f, rotation: ((f.rotation + 90 + 540) % 360) - 180 }))}>
+              <Button size="sm" variant="secondary" onClick={() => frame((f) => ({ ...f, rotation: turned(f.rotation, 90) }))}>
                 Turn right
               </Button>
               <Button size="sm" variant="secondary" aria-pressed={framing.flip} onClick={() => frame((f) => ({ ...f, flip: !f.flip }))}>
@@ -281,6 +297,13 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
                 Show it all
               </Button>
             </div>
+          </fieldset>
+        ) : (
+          <fieldset disabled aria-describedby="placement-waits" className="flex flex-col gap-2 opacity-60">
+            <legend className="mb-2 text-sm font-bold uppercase tracking-wide text-graphite-600">3. Placement</legend>
+            <p id="placement-waits" className="text-sm text-graphite-600">
+              Choose a photo first; then move, zoom, turn and straighten it here.
+            </p>
           </fieldset>
         )}
 
