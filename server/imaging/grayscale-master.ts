@@ -75,10 +75,3 @@ export class GrayAlphaPngWriter {
     return Buffer.concat([PNG_SIGNATURE, ihdrChunk(this.width, this.height, 8, 4), pHYsChunk(this.dpi), ...chunks, pngChunk('IEND', Buffer.alloc(0))]);
   }
 }
-
-/** A whole master from gray and alpha planes in one call (small images and tests). */
-export async function encodeGrayscaleMaster(master: { width: number; height: number; gray: Uint8Array; alpha: Uint8Array }, dpi: number): Promise<Buffer> {
-  const writer = new GrayAlphaPngWriter(master.width, master.height, dpi);
-  await writer.writeRows(master.gray, master.alpha);
-  return writer.finish();
-}

@@ -2,6 +2,7 @@ import { readFileSync } from 'node:fs';
 import * as fontkit from 'fontkit';
 import sharp from 'sharp';
 import type { Bitmap } from '../../shared/imaging/image.ts';
+import { shapeMask, type BlankShape } from '../../shared/imaging/shape.ts';
 import type { Inscription } from '../../shared/schemas/checkout.ts';
 import { nunitoWoff } from '../lib/fonts.ts';
 
@@ -51,14 +52,18 @@ export function inscriptionPath(inscription: Inscription | null, width: number, 
 /**
  * Coverage of the inscription, 0–255 per pixel, or null when there is none: for the whole image,
  * or for the rows `band.top` … `band.top + band.rows − 1` of it (a large master is lettered band
- * by band, with the same layout).
+ * by band, with the same layout). The letters are laid out on the area's rectangle; on a round or
+ * oval piece their ends may reach past the blank's shape, so coverage there is cut away.
  */
-export async function inscriptionCoverage(inscription: Inscription | null, width: number, height: number, band = { top: 0, rows: height }): Promise<Uint8Array | null> {
+export async function inscriptionCoverage(inscription: Inscription | null, width: number, height: number, shape: BlankShape, band = { top: 0, rows: height }): Promise<Uint8Array | null> {
   const path = inscriptionPath(inscription, width, height);
   if (!path) return null;
   const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="${width}" height="${band.rows}" viewBox="0 ${band.top} ${width} ${band.rows}"><path d="${path}" fill="#000"/></svg>`;
   const { data } = await sharp(Buffer.from(svg), { density: 72, limitInputPixels: false }).ensureAlpha().extractChannel(3).raw().toBuffer({ resolveWithObject: true });
-  return new Uint8Array(data.buffer, data.byteOffset, data.length);
+  const coverage = new Uint8Array(data.buffer, data.byteOffset, data.length);
+  const inShape = shapeMask(shape, width, height, band.top, band.rows);
+  if (inShape) for (let i = 0; i < coverage.length; i++) if (!inShape[i]) coverage[i] = 0;
+  return coverage;
 }
 
 /** Burns the inscription into a bitmap: every pixel at least half covered fires the laser (0). */

@@ -1,7 +1,7 @@
 import type { Bitmap, Rgba8 } from '../../shared/imaging/image.ts';
-import { featherMask, fullMask, paintStrokes, type Mask } from '../../shared/imaging/mask.ts';
+import { cutoutMask, fullMask, hasCutout, type Mask } from '../../shared/imaging/mask.ts';
 import { prepareGray, renderBurn, type PrepSettings as PipelineSettings } from '../../shared/imaging/pipeline.ts';
-import { clipBitmapToShape, shapeMask, type BlankShape } from '../../shared/imaging/shape.ts';
+import type { BlankShape } from '../../shared/imaging/shape.ts';
 import { outputSize } from '../../shared/imaging/sizing.ts';
 import type { Levels } from '../../shared/imaging/tone.ts';
 import { gradeSettings, pipelineSettings, prepAtWidth } from '../../shared/orders/prep-pipeline.ts';
@@ -9,14 +9,14 @@ import type { Inscription } from '../../shared/schemas/checkout.ts';
 import type { PrepSettings } from '../../shared/schemas/prep.ts';
 import { GrayAlphaPngWriter } from './grayscale-master.ts';
 import { burnInscription, inscribeMaster, inscriptionCoverage } from './inscription.ts';
-import { placePhoto, placePhotoInBands, type Placement } from './placement.ts';
+import { placeWindow, placeWindowInBands, windowPixels, type Placement, type WindowPixels } from './placement.ts';
 
 /**
  * One piece as it burns, from the original photo: the one pipeline behind every picture of it
  * (the proof, the 1:1 region, the engrave file and the grayscale master; the storefront's
  * mock-up runs the same shared steps in the browser). The photo is placed in the engraving area
  * at a resolution, prepared (tone, sharpening, negative, cut-out within the blank's shape),
- * halftoned, lettered, and clipped to the shape, so nothing outside the piece ever fires.
+ * halftoned and lettered (the letters cut to the shape too), so nothing outside the piece fires.
  */
 export type Piece = {
   placement: Placement;
@@ -26,18 +26,17 @@ export type Piece = {
   inscription: Inscription | null;
 };
 
-export type Burned = { placed: Rgba8; settings: PipelineSettings; bitmap: Bitmap; levels: Levels | undefined };
+/** A burned piece with what a master at another resolution reuses: the decoded window, the settings and the levels. */
+export type Burned = { window: WindowPixels; placed: Rgba8; settings: PipelineSettings; bitmap: Bitmap; levels: Levels | undefined };
 
 /** The piece halftoned at `prep.linesPerInch`. */
 export async function burnPiece(photo: Buffer, piece: Piece, prep: PrepSettings): Promise<Burned> {
-  const placed = await placePhoto(photo, piece.placement, piece.area, prep.linesPerInch);
+  const window = await windowPixels(photo, piece.placement);
+  const placed = await placeWindow(window, outputSize(piece.area, prep.linesPerInch));
   const settings = pipelineSettings(prep, placed, piece.shape);
   const { bitmap, levels } = renderBurn(placed, settings);
-  burnInscription(bitmap, await inscriptionCoverage(piece.inscription, placed.width, placed.height));
-  // The lettering is laid out on the area's rectangle; on a round or oval piece its ends may
-  // reach past the shape, and they must not burn there either.
-  clipBitmapToShape(bitmap, piece.shape);
-  return { placed, settings, bitmap, levels };
+  burnInscription(bitmap, await inscriptionCoverage(piece.inscription, placed.width, placed.height, piece.shape));
+  return { window, placed, settings, bitmap, levels };
 }
 
 /** Rows per band of the master: about 8000 × 512 pixels, some 80 MB of working copies. */
@@ -50,14 +49,14 @@ const MASTER_BAND_ROWS = 512;
  * resolution and sampled up (a flood fill cannot run band by band), and the shape, the photo's
  * own edges and the lettering drawn exactly at the master's resolution.
  */
-export async function writePieceMaster(photo: Buffer, piece: Piece, prep: PrepSettings, burned: Burned, ppi: number): Promise<{ png: Buffer; width: number; height: number }> {
+export async function writePieceMaster(piece: Piece, prep: PrepSettings, burned: Burned, ppi: number): Promise<{ png: Buffer; width: number; height: number }> {
   const size = outputSize(piece.area, ppi);
   const scaled = prepAtWidth(prep, piece.area.widthMm, size.width);
   const grade = gradeSettings(scaled, piece.shape);
   const cutout = cutoutAtBurn(burned.settings, burned.placed);
   const overlap = Math.ceil(3 * scaled.sharpenRadius) + 4;
   const writer = new GrayAlphaPngWriter(size.width, size.height, ppi);
-  for await (const { top, from, pixels } of placePhotoInBands(photo, piece.placement, size, MASTER_BAND_ROWS, overlap)) {
+  for await (const { top, from, pixels } of placeWindowInBands(burned.window, size, MASTER_BAND_ROWS, overlap)) {
     const startMask = cutout && sampleCutout(cutout, pixels, from, size);
     const prepared = prepareGray(pixels, { ...grade, autoLevelsClip: undefined, levels: burned.levels, cutout: startMask && { startMask }, band: { top: from, fullHeight: size.height } });
     const rows = Math.min(MASTER_BAND_ROWS, size.height - top);
@@ -70,9 +69,7 @@ export async function writePieceMaster(photo: Buffer, piece: Piece, prep: PrepSe
       const c = prepared.mask ? prepared.mask.data[keepFrom + i]! : 1;
       alpha[i] = Math.round((c < 0 ? 0 : c > 1 ? 1 : c) * 255);
     }
-    inscribeMaster({ gray, alpha }, await inscriptionCoverage(piece.inscription, size.width, size.height, { top, rows }));
-    const inShape = shapeMask(piece.shape, size.width, size.height, top, rows);
-    if (inShape) for (let i = 0; i < inShape.length; i++) if (!inShape[i]) alpha[i] = 0;
+    inscribeMaster({ gray, alpha }, await inscriptionCoverage(piece.inscription, size.width, size.height, piece.shape, { top, rows }));
     await writer.writeRows(gray, alpha);
   }
   return { png: await writer.finish(), ...size };
@@ -80,12 +77,9 @@ export async function writePieceMaster(photo: Buffer, piece: Piece, prep: PrepSe
 
 /** The cut-out alone (its start, strokes and feather) at the burn's resolution, or undefined when there is none. */
 function cutoutAtBurn(settings: PipelineSettings, placed: Rgba8): Mask | undefined {
-  const cutout = settings.cutout;
-  if (!cutout?.startMask && !cutout?.strokes?.length) return undefined;
-  let mask = cutout.startMask ?? fullMask(placed.width, placed.height);
-  if (cutout.strokes?.length) mask = paintStrokes(mask, cutout.strokes);
-  if (cutout.featherRadius) mask = featherMask(mask, cutout.featherRadius);
-  return mask;
+  const { cutout } = settings;
+  // The photo's own alpha is left out: it is taken at the master's resolution, band by band.
+  return cutout && hasCutout(cutout) ? cutoutMask(cutout.startMask ?? fullMask(placed.width, placed.height), cutout) : undefined;
 }
 
 /** The cut-out sampled (bilinear) at a band's pixel centres, within the band's own coverage (its alpha). */

@@ -43,7 +43,7 @@ async function region(upright: { data: Buffer; width: number; height: number }, 
  * The window of the upright photo that fills the area, at the photo's own resolution, as raw
  * RGBA pixels: cut, mirrored and turned, not yet resampled to the line density.
  */
-export async function placedWindow(bytes: Buffer, placement: Placement): Promise<Sharp> {
+async function placedWindow(bytes: Buffer, placement: Placement): Promise<Sharp> {
   const { crop } = placement;
   const [w, h] = [Math.max(1, Math.round(crop.width)), Math.max(1, Math.round(crop.height))];
   const [cx, cy] = [crop.left + crop.width / 2, crop.top + crop.height / 2];
@@ -90,41 +90,48 @@ export async function placedWindow(bytes: Buffer, placement: Placement): Promise
   return region({ data: rotated, width: r.width, height: r.height }, Math.round((r.width - w) / 2), Math.round((r.height - h) / 2), w, h);
 }
 
-/** The placed photo at the output's pixel size: the window resampled with Lanczos-3. */
+/** The window's raw RGBA pixels, decoded once and kept when a piece is resampled more than once. */
+export type WindowPixels = { data: Buffer; width: number; height: number };
+
+export async function windowPixels(bytes: Buffer, placement: Placement): Promise<WindowPixels> {
+  const { data, info } = await (await placedWindow(bytes, placement)).raw().toBuffer({ resolveWithObject: true });
+  return { data, width: info.width, height: info.height };
+}
+
+/** The window resampled to fill `size` with Lanczos-3 (a libvips pipeline of its own). */
+const resampled = (window: WindowPixels, size: { width: number; height: number }) =>
+  sharp(window.data, { raw: { width: window.width, height: window.height, channels: 4 }, limitInputPixels: false }).resize({ width: size.width, height: size.height, fit: 'fill', kernel: 'lanczos3' });
+
+const asRgba8 = (data: Buffer, width: number, height: number): Rgba8 => ({ width, height, data: new Uint8Array(data.buffer, data.byteOffset, data.length) });
+
+/** The placed photo at the output's pixel size. */
+export async function placeWindow(window: WindowPixels, size: { width: number; height: number }): Promise<Rgba8> {
+  const { data, info } = await resampled(window, size).raw().toBuffer({ resolveWithObject: true });
+  return asRgba8(data, info.width, info.height);
+}
+
 export async function placePhoto(bytes: Buffer, placement: Placement, area: { widthMm: number; heightMm: number }, linesPerInch: number): Promise<Rgba8> {
-  return finish(await placedWindow(bytes, placement), outputSize(area, linesPerInch));
+  return placeWindow(await windowPixels(bytes, placement), outputSize(area, linesPerInch));
 }
 
 /**
  * The same placed photo in bands of rows, for outputs too large to hold whole (an 8 × 10 in
- * master at 1000 ppi is 80 megapixels, 320 MB as RGBA): the window is decoded once, and libvips,
- * which computes only the rows asked for, resamples each band. Bands overlap by `overlap` rows
- * on each side, so neighbourhood steps (sharpening) see their neighbours.
+ * master at 1000 ppi is 80 megapixels, 320 MB as RGBA): libvips, which computes only the rows
+ * asked for, resamples each band from the window. Bands overlap by `overlap` rows on each side,
+ * so neighbourhood steps (sharpening) see their neighbours.
  */
-export async function* placePhotoInBands(bytes: Buffer, placement: Placement, size: { width: number; height: number }, bandRows: number, overlap: number): AsyncGenerator<{ top: number; from: number; pixels: Rgba8 }> {
-  const { data, info } = await (await placedWindow(bytes, placement)).raw().toBuffer({ resolveWithObject: true });
+export async function* placeWindowInBands(window: WindowPixels, size: { width: number; height: number }, bandRows: number, overlap: number): AsyncGenerator<{ top: number; from: number; pixels: Rgba8 }> {
   const band = (top: number) => {
     const from = Math.max(0, top - overlap);
-    const to = Math.min(size.height, top + bandRows + overlap);
-    const rows = sharp(data, { raw: { width: info.width, height: info.height, channels: 4 }, limitInputPixels: false })
-      .resize({ width: size.width, height: size.height, fit: 'fill', kernel: 'lanczos3' })
-      .extract({ left: 0, top: from, width: size.width, height: to - from })
-      .raw()
-      .toBuffer();
-    return { top, from, rows };
+    const rows = Math.min(size.height, top + bandRows + overlap) - from;
+    return { from, pixels: resampled(window, size).extract({ left: 0, top: from, width: size.width, height: rows }).raw().toBuffer() };
   };
   // libvips resamples the next band on its own threads while the caller works on this one.
   let next = band(0);
-  while (next.top < size.height) {
+  for (let top = 0; top < size.height; top += bandRows) {
     const current = next;
-    if (current.top + bandRows < size.height) next = band(current.top + bandRows);
-    else next = { top: size.height, from: 0, rows: Promise.resolve(Buffer.alloc(0)) };
-    const rows = await current.rows;
-    yield { top: current.top, from: current.from, pixels: { width: size.width, height: rows.length / 4 / size.width, data: new Uint8Array(rows.buffer, rows.byteOffset, rows.length) } };
+    if (top + bandRows < size.height) next = band(top + bandRows);
+    const data = await current.pixels;
+    yield { top, from: current.from, pixels: asRgba8(data, size.width, data.length / 4 / size.width) };
   }
-}
-
-async function finish(window: Sharp, size: { width: number; height: number }): Promise<Rgba8> {
-  const { data, info } = await window.resize({ width: size.width, height: size.height, fit: 'fill', kernel: 'lanczos3' }).ensureAlpha().raw().toBuffer({ resolveWithObject: true });
-  return { width: info.width, height: info.height, data: new Uint8Array(data.buffer, data.byteOffset, data.length) };
 }

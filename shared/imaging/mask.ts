@@ -61,6 +61,19 @@ export function featherMask(mask: Mask, radius: number): Mask {
 }
 
 /**
+ * The cut-out as the pipeline applies it: a start (the photo's alpha, a plain-background fill,
+ * or everything), the brush strokes painted on it in order, then the feather. The one builder
+ * for the burn, the grayscale master and the mock-up's faded photo view.
+ */
+export function cutoutMask(start: Mask, cutout: { strokes?: Stroke[]; featherRadius?: number }): Mask {
+  const painted = cutout.strokes?.length ? paintStrokes(start, cutout.strokes) : start;
+  return cutout.featherRadius ? featherMask(painted, cutout.featherRadius) : painted;
+}
+
+/** Whether a cut-out changes anything beyond the photo's own alpha: a start of its own or strokes. */
+export const hasCutout = (cutout: { strokes?: Stroke[]; startMask?: Mask } | undefined): boolean => Boolean(cutout?.startMask || cutout?.strokes?.length);
+
+/**
  * A starting mask for a photo on a plain background: flood fill from every border pixel through
  * neighbours whose colour is within `tolerance` (Euclidean RGB distance) of the border pixel the
  * fill started from. Filled pixels are background (0); the rest is the subject (1).

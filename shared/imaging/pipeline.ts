@@ -2,7 +2,7 @@ import type { Bitmap, GrayF, Rgba8 } from './image.ts';
 import { rgbaToGray, type LumaMode } from './luma.ts';
 import { adjustTone, applyLevels, invert, levelsFor, type Levels, type ToneOptions } from './tone.ts';
 import { unsharpMask, type UnsharpOptions } from './unsharp.ts';
-import { applyMask, featherMask, maskFromAlpha, paintStrokes, type Mask, type Stroke } from './mask.ts';
+import { applyMask, cutoutMask, hasCutout, maskFromAlpha, type Mask, type Stroke } from './mask.ts';
 import { halftone, type HalftoneOptions } from './halftone/halftone.ts';
 import { shapeMask, type BlankShape } from './shape.ts';
 
@@ -27,7 +27,7 @@ export type PrepSettings = {
   halftone: HalftoneOptions;
 };
 
-export type PrepOnly = Omit<PrepSettings, 'halftone'> & {
+type PrepOnly = Omit<PrepSettings, 'halftone'> & {
   /** Levels computed over the whole photo, when it is prepared in bands. */
   levels?: Levels;
   /** When `photo` is a band of rows of a larger image: where it starts and how tall the whole is. */
@@ -44,15 +44,13 @@ export type Prepared = { gray: GrayF; mask: Mask | undefined; levels: Levels | u
 export function prepareGray(photo: Rgba8, settings: PrepOnly): Prepared {
   let gray = rgbaToGray(photo, settings.luma ?? 'bt709');
   const shape = settings.shape ?? 'rectangle';
-  const needsMask = Boolean(settings.cutout?.startMask || settings.cutout?.strokes?.length) || shape !== 'rectangle' || !isOpaque(photo);
+  const needsMask = hasCutout(settings.cutout) || shape !== 'rectangle' || !isOpaque(photo);
   if (!needsMask) {
     const levels = settings.levels ?? (settings.autoLevelsClip ? levelsFor(gray, settings.autoLevelsClip) : undefined);
     if (levels) gray = applyLevels(gray, levels);
     return { gray: finishGray(gray, settings), mask: undefined, levels };
   }
-  let mask = settings.cutout?.startMask ?? maskFromAlpha(photo);
-  if (settings.cutout?.strokes?.length) mask = paintStrokes(mask, settings.cutout.strokes);
-  if (settings.cutout?.featherRadius) mask = featherMask(mask, settings.cutout.featherRadius);
+  let mask = cutoutMask(settings.cutout?.startMask ?? maskFromAlpha(photo), settings.cutout ?? {});
   // The shape's edge is hard and comes after the feather: the cut-out may soften inside the
   // piece, but nothing may fade out past its edge.
   const band = settings.band ?? { top: 0, fullHeight: photo.height };
@@ -92,7 +90,7 @@ export function renderBurn(photo: Rgba8, settings: PrepSettings): { bitmap: Bitm
   return { bitmap: halftone(image, { ...settings.halftone, mask: inside }), mask, levels };
 }
 
-export function toOnOff(mask: Mask): Uint8Array {
+function toOnOff(mask: Mask): Uint8Array {
   const out = new Uint8Array(mask.data.length);
   for (let i = 0; i < out.length; i++) out[i] = mask.data[i]! > 0.5 ? 1 : 0;
   return out;

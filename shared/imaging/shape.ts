@@ -1,5 +1,3 @@
-import type { Bitmap } from './image.ts';
-
 /**
  * The blank's shape, and what it means for a piece. The burn is clipped to the shape fitted to
  * the engraving area (a circle of the area's shorter side, an oval touching its four sides, a
@@ -68,14 +66,6 @@ export function shapeMask(shape: BlankShape, width: number, height: number, top 
     out.fill(1, y * width + x0, y * width + x1 + 1);
   }
   return out;
-}
-
-/** Stops every dot outside the shape from firing (1 is unburned in a bitmap). */
-export function clipBitmapToShape(bitmap: Bitmap, shape: BlankShape): Bitmap {
-  const inside = shapeMask(shape, bitmap.width, bitmap.height);
-  if (!inside) return bitmap;
-  for (let i = 0; i < inside.length; i++) if (!inside[i]) bitmap.data[i] = 1;
-  return bitmap;
 }
 
 /**

@@ -102,7 +102,7 @@ export async function runImagingBench(photoDir: string): Promise<void> {
     const prep = recipePrep({ tone: 'positive', halftoneMethod: 'floyd-steinberg', linesPerInch: 360 });
     const burned = await burnPiece(bytes, piece, prep);
     const t = performance.now();
-    const master = await writePieceMaster(bytes, piece, prep, burned, 1000);
+    const master = await writePieceMaster(piece, prep, burned, 1000);
     console.log(JSON.stringify({ ms: performance.now() - t, width: master.width, height: master.height, maxRssKb: process.resourceUsage().maxRSS }));`;
   writeFileSync(join(process.cwd(), '.data', 'bench-master.ts'), child);
   const master = JSON.parse(execFileSync(process.execPath, ['--import', 'tsx', join(process.cwd(), '.data', 'bench-master.ts')], { encoding: 'utf8' }).trim().split('\n').pop()!);

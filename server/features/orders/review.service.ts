@@ -137,7 +137,10 @@ export async function submitReplacement(em: EntityManager, studio: Studio, token
   const photo = await findBuyerPhoto(em, studio, input.photoId);
   const look = lookOf(item);
   const area = { widthMm: look.areaWidthMm, heightMm: look.areaHeightMm };
-  if (!cropMatchesArea(input.placement.crop, area)) throw new AppError('VALIDATION_FAILED', stretchedMessage(input.placement.crop, area), { issues: [{ path: ['placement'], message: stretchedMessage(input.placement.crop, area) }] });
+  if (!cropMatchesArea(input.placement.crop, area)) {
+    const message = stretchedMessage(input.placement.crop, area);
+    throw new AppError('VALIDATION_FAILED', message, { issues: [{ path: ['placement'], message }] });
+  }
   const ppi = effectivePpi(input.placement.crop, area);
   Object.assign(item, { photo, placement: input.placement, effectivePpi: Math.floor(ppi), replacementTokenHash: null, replacements: item.replacements + 1 });
   moveItem(em, item, 'receiveNewPhoto', 'buyer', `The buyer sent a new photo (${Math.floor(ppi)} pixels per inch at the size): ${ITEM_STAGE_LABELS.photo_review.toLowerCase()}.`, 'new_photo_received');

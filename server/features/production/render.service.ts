@@ -78,7 +78,7 @@ export async function runRender({ orm, storage, env, logger }: RenderDeps, rende
     await storage.put(keys.engrave, engrave, 'image/png');
     const ppi = masterPpi(studio.masterResolution, prep.linesPerInch);
     await report(55, `Making the grayscale master at ${ppi} ppi`);
-    const master = await writePieceMaster(photo, piece, prep, burned, ppi);
+    const master = await writePieceMaster(piece, prep, burned, ppi);
     await storage.put(keys.master, master.png, 'image/png');
     await report(80, 'Writing the job sheet');
     const preview = await sharp(engrave).resize({ width: 340, height: 440, fit: 'inside', kernel: 'lanczos3' }).png().toBuffer();

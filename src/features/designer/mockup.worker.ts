@@ -2,7 +2,7 @@
 import { renderBitmap } from '../../../shared/imaging/pipeline.ts';
 import { renderMockup } from '../../../shared/imaging/mockup.ts';
 import { insideShape } from '../../../shared/imaging/shape.ts';
-import { featherMask, maskFromAlpha, paintStrokes } from '../../../shared/imaging/mask.ts';
+import { cutoutMask, hasCutout, maskFromAlpha } from '../../../shared/imaging/mask.ts';
 import { pipelineSettings, prepAtWidth, recipePrep } from '../../../shared/orders/prep-pipeline.ts';
 import type { MockupJob, MockupReply, MockupRequest } from './mockup-protocol.ts';
 
@@ -74,8 +74,7 @@ function render(job: MockupJob): ImageBitmap {
   if (job.view === 'photo') {
     // With a cut-out, what is cut away stays faintly visible, so the brush can bring it back.
     const { cutout } = settings;
-    const cut = Boolean(cutout?.startMask || cutout?.strokes?.length);
-    const mask = cut && cutout ? featherMask(paintStrokes(cutout.startMask ?? maskFromAlpha(placed), cutout.strokes ?? []), cutout.featherRadius ?? 0) : undefined;
+    const mask = cutout && hasCutout(cutout) ? cutoutMask(cutout.startMask ?? maskFromAlpha(placed), cutout) : undefined;
     for (let y = 0; y < height; y++) {
       for (let x = 0; x < width; x++) {
         const i = y * width + x;

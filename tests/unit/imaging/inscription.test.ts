@@ -29,7 +29,7 @@ describe('inscriptions in the engrave file', () => {
   it('centres one line of capitals with its baseline at 93 % of the height, as tall as the font’s cap height', async () => {
     const [width, height] = [1200, 1000];
     // 0.1 of the height: letters set at 100 px.
-    const coverage = (await inscriptionCoverage({ lines: ['HELLO'], font: 'rounded', size: 0.1 }, width, height))!;
+    const coverage = (await inscriptionCoverage({ lines: ['HELLO'], font: 'rounded', size: 0.1 }, width, height, 'rectangle'))!;
     const font = fontkit.create(readFileSync(require.resolve('@fontsource/nunito/files/nunito-latin-600-normal.woff'))) as fontkit.Font;
     const capHeight = (font.capHeight / font.unitsPerEm) * 100;
     const b = box(coverage, width, height);
@@ -43,17 +43,17 @@ describe('inscriptions in the engrave file', () => {
 
   it('puts a second line 1.2 letter sizes above the last, and burns every covered pixel', async () => {
     const [width, height] = [800, 600];
-    const one = box((await inscriptionCoverage({ lines: ['EVER'], font: 'rounded-bold', size: 0.08 }, width, height))!, width, height);
-    const two = box((await inscriptionCoverage({ lines: ['EVER', 'EVER'], font: 'rounded-bold', size: 0.08 }, width, height))!, width, height);
+    const one = box((await inscriptionCoverage({ lines: ['EVER'], font: 'rounded-bold', size: 0.08 }, width, height, 'rectangle'))!, width, height);
+    const two = box((await inscriptionCoverage({ lines: ['EVER', 'EVER'], font: 'rounded-bold', size: 0.08 }, width, height, 'rectangle'))!, width, height);
     // 0.08 × 600 = 48 px letters; the line above starts 1.2 × 48 = 57.6 px higher.
     expect(one.top - two.top).toBeGreaterThanOrEqual(57);
     expect(one.top - two.top).toBeLessThanOrEqual(58);
-    const coverage = (await inscriptionCoverage({ lines: ['EVER'], font: 'rounded-bold', size: 0.08 }, width, height))!;
+    const coverage = (await inscriptionCoverage({ lines: ['EVER'], font: 'rounded-bold', size: 0.08 }, width, height, 'rectangle'))!;
     const burned = burnInscription({ width, height, data: new Uint8Array(width * height).fill(1) }, coverage);
     const fired = burned.data.reduce((n, v) => n + (v === 0 ? 1 : 0), 0);
     expect(fired).toBe(coverage.reduce((n, c) => n + (c >= 128 ? 1 : 0), 0));
     expect(fired).toBeGreaterThan(1000);
-    expect(await inscriptionCoverage(null, width, height)).toBeNull();
-    expect(await inscriptionCoverage({ lines: ['  '], font: 'rounded', size: 0.1 }, width, height)).toBeNull();
+    expect(await inscriptionCoverage(null, width, height, 'rectangle')).toBeNull();
+    expect(await inscriptionCoverage({ lines: ['  '], font: 'rounded', size: 0.1 }, width, height, 'rectangle')).toBeNull();
   });
 });

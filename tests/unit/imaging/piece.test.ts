@@ -113,7 +113,7 @@ describe('the grayscale master', () => {
   it('is written at 1000 ppi with pHYs 39370 px/m (PNG specification, pHYs chunk), transparent outside the shape, and read back by Pillow', async () => {
     const piece: Piece = { placement: square, area: { widthMm: 25.4, heightMm: 25.4 }, shape: 'circle', inscription: null };
     const burned = await burnPiece(photo(), piece, slate);
-    const master = await writePieceMaster(photo(), piece, slate, burned, 1000);
+    const master = await writePieceMaster(piece, slate, burned, 1000);
     expect([master.width, master.height]).toEqual([1000, 1000]);
     expect(readPngFacts(master.png)).toMatchObject({ width: 1000, height: 1000, bitDepth: 8, colourType: 4, pixelsPerMetre: 39370 });
     const read = pillowOpen(master.png);
@@ -135,7 +135,7 @@ describe('the grayscale master', () => {
     // 60 × 40 mm at 400 ppi: 945 × 630 pixels, three bands of 256 rows.
     const piece: Piece = { placement: wide, area: { widthMm: 60, heightMm: 40 }, shape: 'oval', inscription: null };
     const burned = await burnPiece(photo(), piece, slate);
-    const master = await writePieceMaster(photo(), piece, slate, burned, 400);
+    const master = await writePieceMaster(piece, slate, burned, 400);
     // sharp opens gray + alpha as four channels (gray repeated, then alpha).
     const { data, info } = await sharp(master.png).raw().toBuffer({ resolveWithObject: true });
     const c = info.channels;
@@ -186,7 +186,7 @@ describe('one look from the storefront to the laser', () => {
     const mockup = await grayAt(300);
     const proof = boxReduce(await grayAt(900), 900, 900, 3);
     const burned = await burnPiece(photo(), piece, slate);
-    const master = await writePieceMaster(photo(), piece, slate, burned, 1000);
+    const master = await writePieceMaster(piece, slate, burned, 1000);
     const { data, info } = await sharp(master.png).raw().toBuffer({ resolveWithObject: true });
     const masterReduced = boxReduce(data, 3000, 3000, 10, info.channels);
     // Measured: 3.1, 2.9 and 4.9 grey levels.

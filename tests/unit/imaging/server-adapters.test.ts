@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import sharp, { type Sharp } from 'sharp';
 import { AppError } from '../../../shared/errors.ts';
 import { encodeBitmapPng, readPngFacts } from '../../../server/imaging/png-1bit.ts';
-import { encodeGrayscaleMaster } from '../../../server/imaging/grayscale-master.ts';
+import { GrayAlphaPngWriter } from '../../../server/imaging/grayscale-master.ts';
 import { decodePhoto, inspectPhoto } from '../../../server/imaging/photo-decode.ts';
 import { placePhoto } from '../../../server/imaging/placement.ts';
 import { prepareGray, renderBitmap } from '../../../shared/imaging/pipeline.ts';
@@ -36,7 +36,11 @@ describe('engrave file and grayscale master (PNG bytes)', () => {
   it('writes the grayscale master as 8-bit gray with alpha (transparent outside the subject) at 1000 dpi', async () => {
     const alpha = new Uint8Array(200).fill(255);
     alpha.fill(0, 0, 20); // first row outside the subject
-    const png = await encodeGrayscaleMaster({ width: 20, height: 10, gray: new Uint8Array(200).fill(100), alpha }, 1000);
+    // Written in two bands of rows, as the render writes a large master.
+    const writer = new GrayAlphaPngWriter(20, 10, 1000);
+    await writer.writeRows(new Uint8Array(60).fill(100), alpha.subarray(0, 60));
+    await writer.writeRows(new Uint8Array(140).fill(100), alpha.subarray(60));
+    const png = await writer.finish();
     expect(readPngFacts(png)).toMatchObject({ bitDepth: 8, colourType: 4, pixelsPerMetre: 39370 });
     const read = pillowOpen(png);
     expect(read.mode).toBe('LA');
