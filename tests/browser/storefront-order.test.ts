@@ -4,7 +4,7 @@ import type { Page } from 'playwright-core';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { seedDemo } from '../../server/db/seed.ts';
 import { referencePhotoDir as referencePhotosDir } from '../support/pillow.ts';
-import { freePort, screenshotDir, seriousA11yViolations, useBrowser } from '../support/browser.ts';
+import { freePort, screenshotDir, seriousA11yViolations, sidewaysOverflow, useBrowser } from '../support/browser.ts';
 import { useMailFake } from '../support/mail.ts';
 import { usePaymentsFake } from '../support/payments.ts';
 
@@ -120,6 +120,10 @@ describe('a buyer orders a glass portrait and pays', () => {
     await page.waitForURL(/\/s\/fernhill-stone\/blanks\//);
     await expect.poll(() => page.getByText('2. Photo').count()).toBe(1);
     expect(await page.getByRole('group', { name: 'Orientation' }).count()).toBe(0);
+    // On a 390-pixel phone the stage shrinks to fit: nothing scrolls sideways.
+    await page.setViewportSize({ width: 390, height: 844 });
+    await expect.poll(() => sidewaysOverflow(page)).toBe(0);
+    await page.screenshot({ path: join(screenshotDir, 'storefront-designer-phone.png'), fullPage: true });
     expect(problems).toEqual([]);
   });
 

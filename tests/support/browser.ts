@@ -62,6 +62,11 @@ export function useBrowser(prepare?: () => Promise<Record<string, string>>, opti
   return context;
 }
 
+/** How many CSS pixels the page reaches past the viewport's width (0: no sideways scrolling). */
+export async function sidewaysOverflow(page: Page): Promise<number> {
+  return page.evaluate(() => Math.max(0, document.documentElement.scrollWidth - window.innerWidth));
+}
+
 /** A port free on loopback now, for an app whose own address must be known before it starts. */
 export async function freePort(): Promise<number> {
   const probe = createServer();

@@ -33,7 +33,7 @@ function WorkspaceFrame({ children }: { children: (workspace: Workspace) => Reac
   return (
     <div className="min-h-screen">
       <header className="border-b border-graphite-100 bg-white">
-        <div className="mx-auto flex h-16 max-w-6xl items-center justify-between gap-4 px-6">
+        <div className="mx-auto flex min-h-16 max-w-6xl flex-wrap items-center justify-between gap-x-4 gap-y-1 px-6 py-2">
           <div className="flex items-center gap-3">
             <img src="/favicon.svg" alt="" className="size-7" />
             <span className="text-lg font-extrabold">{workspace.data?.studio.name ?? 'Workspace'}</span>
@@ -41,7 +41,8 @@ function WorkspaceFrame({ children }: { children: (workspace: Workspace) => Reac
           </div>
           <UserMenu />
         </div>
-        <nav aria-label="Workspace" className="mx-auto flex max-w-6xl gap-1 px-6">
+        {/* On a phone the sections scroll sideways inside the bar, not the page. */}
+        <nav aria-label="Workspace" className="mx-auto flex max-w-6xl gap-1 overflow-x-auto px-6">
           {nav
             .filter((item) => item.show)
             .map((item) => (
@@ -49,7 +50,7 @@ function WorkspaceFrame({ children }: { children: (workspace: Workspace) => Reac
                 key={item.to}
                 to={item.to}
                 end={item.end}
-                className={({ isActive }) => cx('border-b-2 px-3 py-2.5 text-sm font-semibold', isActive ? 'border-ember-500 text-graphite-950' : 'border-transparent text-graphite-500 hover:text-graphite-800')}
+                className={({ isActive }) => cx('shrink-0 whitespace-nowrap border-b-2 px-3 py-2.5 text-sm font-semibold', isActive ? 'border-ember-500 text-graphite-950' : 'border-transparent text-graphite-500 hover:text-graphite-800')}
               >
                 {item.label}
               </NavLink>

@@ -33,7 +33,7 @@ export function UserMenu() {
     }
   }
   return (
-    <nav aria-label="Account" className="flex items-center gap-1 text-sm">
+    <nav aria-label="Account" className="flex flex-wrap items-center gap-1 text-sm">
       {me.data!.memberships.map((m) => (
         <Link key={m.studioSlug} to={`/studio/${m.studioSlug}`} className="rounded-lg px-3 py-2 font-semibold text-graphite-700 hover:bg-graphite-100">
           {m.studioName}

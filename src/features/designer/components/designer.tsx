@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useRef, useState, type KeyboardEvent, type PointerEvent } from 'react';
+import { useEffect, useMemo, useRef, useState, type KeyboardEvent, type PointerEvent, type RefObject } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { effectivePpi, largestFairOffered, verdictFor } from '../../../../shared/imaging/photo-checks.ts';
 import { orientedArea } from '../../../../shared/imaging/sizing.ts';
@@ -25,6 +25,23 @@ type Orientation = 'portrait' | 'landscape';
 const naturalOrientation = (size: Size): Orientation => (size.orientation === 'landscape' ? 'landscape' : size.orientation === 'portrait' ? 'portrait' : size.areaWidthMm > size.areaHeightMm ? 'landscape' : 'portrait');
 const shapeRadius = { rectangle: '4px', 'rounded-rectangle': '7%', oval: '50%', circle: '50%' } as const;
 const STAGE = { width: 460, height: 520 };
+/** The stage's padding (p-6 on both sides) and the blank's 18-pixel rim around the canvas, both sides. */
+const STAGE_PADDING = 2 * 24 + 36;
+
+/** The width left inside an element once `padding` is taken off, at most `max`; follows resizes. */
+function useAvailableWidth(element: RefObject<HTMLElement | null>, max: number, padding: number): number {
+  const [width, setWidth] = useState(max);
+  useEffect(() => {
+    const node = element.current;
+    if (!node) return;
+    const measure = () => setWidth(Math.max(120, Math.min(max, node.clientWidth - padding)));
+    measure();
+    const observer = new ResizeObserver(measure);
+    observer.observe(node);
+    return () => observer.disconnect();
+  }, [element, max, padding]);
+  return width;
+}
 
 /** Fine straightening on top of quarter turns, within ±15°. */
 const MAX_STRAIGHTEN = 15;
@@ -55,7 +72,11 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
   const aspect = area.widthMm / area.heightMm;
   // Screen size of the area: the whole blank's proportions would need its outer size, which the
   // storefront does not list; the area is what matters to the buyer.
-  const pxPerMm = Math.min(STAGE.width / area.widthMm, STAGE.height / area.heightMm);
+  // The stage is at most 460 × 520 screen pixels, narrower on a phone: the canvas is drawn at
+  // the size it is shown, so dragging moves the photo with the finger.
+  const stage = useRef<HTMLDivElement>(null);
+  const stageWidth = useAvailableWidth(stage, STAGE.width, STAGE_PADDING);
+  const pxPerMm = Math.min(stageWidth / area.widthMm, STAGE.height / area.heightMm);
   const canvasSize = { width: Math.round(area.widthMm * pxPerMm), height: Math.round(area.heightMm * pxPerMm) };
   const placement = photo && framing ? toPlacement(photo, aspect, framing) : undefined;
 
@@ -155,12 +176,12 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
   }
 
   return (
-    <section aria-labelledby="designer-title" className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_minmax(0,26rem)]">
+    <section aria-labelledby="designer-title" className="grid grid-cols-[minmax(0,1fr)] gap-8 lg:grid-cols-[minmax(0,1fr)_minmax(0,26rem)]">
       <div className="flex flex-col items-center gap-3">
         <h2 id="designer-title" className="sr-only">
           Design your {blank.name}
         </h2>
-        <div className="flex min-h-[560px] w-full items-center justify-center rounded-card bg-graphite-100 p-6">
+        <div ref={stage} className="flex w-full items-center justify-center rounded-card bg-graphite-100 p-6 sm:min-h-[560px]">
           <div
             className="relative flex items-center justify-center shadow-lg"
             style={{ width: canvasSize.width + 36, height: canvasSize.height + 36, background: blank.material.surfaceColour, borderRadius: shapeRadius[blank.shape] }}
