@@ -24,7 +24,12 @@ export default defineConfig({
     projects: [
       {
         extends: true,
-        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node', setupFiles: ['tests/support/fail-on-console-error.ts'] },
+        test: {
+          name: 'unit',
+          include: ['tests/unit/**/*.test.ts'],
+          environment: 'node',
+          setupFiles: ['tests/support/fail-on-console-error.ts'],
+        },
       },
       {
         extends: true,

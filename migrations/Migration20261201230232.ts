@@ -1,7 +1,6 @@
 import { Migration } from '@mikro-orm/migrations';
 
 export class Migration20261201230232 extends Migration {
-
   override async up(): Promise<void> {
     this.addSql(`alter table "order" add column "refunded_minor" int not null default 0;`);
   }
@@ -9,5 +8,4 @@ export class Migration20261201230232 extends Migration {
   override async down(): Promise<void> {
     this.addSql(`alter table "order" drop column "refunded_minor";`);
   }
-
 }

@@ -15,8 +15,11 @@ import type { Storage } from './adapters/storage.ts';
 import type { Payments } from './adapters/payments.ts';
 import type { Jobs } from './adapters/jobs.ts';
 import type { RateLimits } from './lib/rate-limits.ts';
-import { paymentsWebhookRouter } from './features/orders/payments-webhook.router.ts';
+import { paymentsWebhookRouter } from './features/checkout/payments-webhook.router.ts';
 import { storefrontOrdersRouter } from './features/orders/storefront-orders.router.ts';
+import { storefrontCheckoutRouter } from './features/checkout/storefront-checkout.router.ts';
+import { storefrontReplacementsRouter } from './features/review/storefront-replacements.router.ts';
+import { storefrontProofsRouter } from './features/prep/storefront-proofs.router.ts';
 import { myOrdersRouter } from './features/orders/my-orders.router.ts';
 import { workspaceRouter, type WorkspaceRoute } from './middleware/workspace-routes.ts';
 import { healthRouter } from './features/health/health.router.ts';
@@ -28,7 +31,10 @@ import { invitesRouter } from './features/team/invites.router.ts';
 import { platformRouter } from './features/platform/platform.router.ts';
 import { catalogRoutes } from './features/catalog/catalog.routes.ts';
 import { shippingRoutes } from './features/shipping/shipping.routes.ts';
-import { workspaceOrderRoutes } from './features/orders/workspace-orders.routes.ts';
+import { workspaceOrderRoutes } from './features/orders/orders.routes.ts';
+import { reviewRoutes } from './features/review/review.routes.ts';
+import { prepRoutes } from './features/prep/prep.routes.ts';
+import { refundRoutes } from './features/checkout/refunds.routes.ts';
 import { productionRoutes } from './features/production/production.routes.ts';
 import { auditRoutes } from './features/audit/audit.routes.ts';
 import { storefrontCatalogRouter } from './features/catalog/storefront-catalog.router.ts';
@@ -48,7 +54,18 @@ export type AppDeps = {
 
 /** Every route under /api/studios/:studioSlug, from every feature. The isolation tests walk this list. */
 export function workspaceRoutes(deps: AppDeps): WorkspaceRoute[] {
-  return [...studioRoutes(deps), ...teamRoutes(deps), ...catalogRoutes(deps), ...shippingRoutes(deps), ...workspaceOrderRoutes(deps), ...productionRoutes(deps), ...auditRoutes(deps)];
+  return [
+    ...studioRoutes(deps),
+    ...teamRoutes(deps),
+    ...catalogRoutes(deps),
+    ...shippingRoutes(),
+    ...workspaceOrderRoutes(deps),
+    ...reviewRoutes(deps),
+    ...prepRoutes(deps),
+    ...refundRoutes(deps),
+    ...productionRoutes(deps),
+    ...auditRoutes(),
+  ];
 }
 
 /** Where presigned upload URLs point: the endpoint itself, or the bucket's own host. */
@@ -107,7 +124,10 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/storefront', storefrontRouter(deps));
   app.use('/api/storefront', storefrontCatalogRouter(deps));
   app.use('/api/storefront', storefrontPhotosRouter(deps));
+  app.use('/api/storefront', storefrontCheckoutRouter(deps));
   app.use('/api/storefront', storefrontOrdersRouter(deps));
+  app.use('/api/storefront', storefrontReplacementsRouter(deps));
+  app.use('/api/storefront', storefrontProofsRouter(deps));
   app.use('/api', accountsRouter(deps));
   app.use('/api', myOrdersRouter(deps));
   app.use('/api/invites', invitesRouter(deps));

@@ -12,7 +12,15 @@ import { runRender } from './features/production/render.service.ts';
  * The background side of the app: renders from the job queue and e-mails from the outbox. Runs
  * in the web process on one machine (PROCESS_ROLE=all) or in processes of its own (=worker).
  */
-export async function startWorker(deps: { env: Env; orm: Orm; logger: Logger; storage: Storage; jobs: Jobs; mailer: Mailer; outboxIntervalMs?: number }): Promise<{ stop(): Promise<void> }> {
+export async function startWorker(deps: {
+  env: Env;
+  orm: Orm;
+  logger: Logger;
+  storage: Storage;
+  jobs: Jobs;
+  mailer: Mailer;
+  outboxIntervalMs?: number;
+}): Promise<{ stop(): Promise<void> }> {
   const { jobs, logger } = deps;
   const outbox = startOutboxSender(deps.orm, deps.mailer, logger, deps.outboxIntervalMs, deps.env.OUTBOX_RETRY_SECONDS);
   await jobs.work<{ renderId: string }>(QUEUES.render, async ({ renderId }, job) => {

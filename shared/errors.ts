@@ -20,9 +20,7 @@ export const APP_ERROR_STATUS = {
 
 export type AppErrorCode = keyof typeof APP_ERROR_STATUS;
 
-export const appErrorCodeSchema = z.enum(
-  Object.keys(APP_ERROR_STATUS) as [AppErrorCode, ...AppErrorCode[]],
-);
+export const appErrorCodeSchema = z.enum(Object.keys(APP_ERROR_STATUS) as [AppErrorCode, ...AppErrorCode[]]);
 
 /** One problem with one input field, as zod reports it. */
 export const fieldIssueSchema = z.object({

@@ -33,7 +33,9 @@ export const studioSettingsInputSchema = z.object({
   accentColour: z.string().regex(/^#[0-9a-f]{6}$/i, 'Use a colour like #1f6f8b.'),
   currency: z.string().trim().toUpperCase().refine(knownCurrency, 'Use a three-letter currency code, such as USD, EUR or GBP.'),
   units: z.enum(['in', 'mm']),
-  contactEmail: z.union([z.literal(''), z.string().trim().toLowerCase().pipe(z.email('Enter a valid e-mail address.'))]).transform((v) => v || null),
+  contactEmail: z
+    .union([z.literal(''), z.string().trim().toLowerCase().pipe(z.email('Enter a valid e-mail address.'))])
+    .transform((v) => v || null),
 });
 export type StudioSettingsInput = z.infer<typeof studioSettingsInputSchema>;
 
@@ -54,7 +56,10 @@ export const orderSettingsInputSchema = z
     pickupEnabled: z.boolean(),
     /** Whether every item gets a proof for the buyer to approve before it is engraved. */
     proofsRequired: z.boolean(),
-    masterResolution: z.enum(Object.keys(MASTER_RESOLUTIONS) as [MasterResolution, ...MasterResolution[]], 'Choose the master’s resolution.'),
+    masterResolution: z.enum(
+      Object.keys(MASTER_RESOLUTIONS) as [MasterResolution, ...MasterResolution[]],
+      'Choose the master’s resolution.',
+    ),
     pickupNote: z.string().trim().max(300, 'Use at most 300 characters.'),
   })
   .refine((s) => !s.pickupEnabled || s.pickupNote.length > 0, { path: ['pickupNote'], message: 'Say where and when buyers collect.' });
@@ -63,7 +68,11 @@ export type OrderSettingsInput = z.infer<typeof orderSettingsInputSchema>;
 /** A flat shipping rate; the price is in the studio's currency's minor unit. */
 export const shippingRateInputSchema = z.object({
   name: z.string().trim().min(1, 'Name the method, such as “Tracked post, 3–5 days”.').max(80, 'Use at most 80 characters.'),
-  priceMinor: z.number({ error: 'Enter a price.' }).int('Prices are whole minor units (cents).').min(0, 'A price cannot be negative.').max(10_000_000, 'That price is too high.'),
+  priceMinor: z
+    .number({ error: 'Enter a price.' })
+    .int('Prices are whole minor units (cents).')
+    .min(0, 'A price cannot be negative.')
+    .max(10_000_000, 'That price is too high.'),
   sortOrder: z.number({ error: 'Enter a position.' }).int().min(0).max(1000).default(0),
 });
 export type ShippingRateInput = z.infer<typeof shippingRateInputSchema>;

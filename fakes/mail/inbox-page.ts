@@ -19,14 +19,21 @@ const frame = (title: string, body: string) =>
 <body><header><strong><a href="/">Local mail inbox</a></strong><form method="post" action="/clear"><button type="submit">Empty the inbox</button></form></header><main>${body}</main></body></html>`;
 
 export function inboxPage(messages: StoredMessage[], to?: string): string {
-  if (!messages.length) return frame('Inbox', `<div class="empty">${to ? `No messages for ${escapeHtml(to)}.` : 'No messages yet. Mail sent to this server over SMTP shows up here.'}</div>`);
+  if (!messages.length)
+    return frame(
+      'Inbox',
+      `<div class="empty">${to ? `No messages for ${escapeHtml(to)}.` : 'No messages yet. Mail sent to this server over SMTP shows up here.'}</div>`,
+    );
   const rows = messages
     .map(
       (m) =>
         `<tr><td>${new Date(m.receivedAt).toLocaleString('en-GB')}</td><td>${escapeHtml(m.to.join(', '))}</td><td><a href="/messages/${m.id}">${escapeHtml(m.subject || '(no subject)')}</a></td><td>${escapeHtml(m.from)}</td></tr>`,
     )
     .join('');
-  return frame('Inbox', `<table><thead><tr><th>Received</th><th>To</th><th>Subject</th><th>From</th></tr></thead><tbody>${rows}</tbody></table>`);
+  return frame(
+    'Inbox',
+    `<table><thead><tr><th>Received</th><th>To</th><th>Subject</th><th>From</th></tr></thead><tbody>${rows}</tbody></table>`,
+  );
 }
 
 /** Links in the message open in the whole window, not inside the frame. */

@@ -81,7 +81,9 @@ export async function startMailFake(options: MailFakeOptions): Promise<MailFake>
   });
   app.delete('/api/messages', (_req, res) => res.json({ deleted: mailbox.clear() }));
   // Pages for people
-  app.get('/', (req, res) => res.type('html').send(inboxPage(mailbox.list(req.query.to as string | undefined), req.query.to as string | undefined)));
+  app.get('/', (req, res) =>
+    res.type('html').send(inboxPage(mailbox.list(req.query.to as string | undefined), req.query.to as string | undefined)),
+  );
   app.get('/messages/:id', (req, res) => {
     const message = mailbox.get(req.params.id);
     if (!message) return void res.status(404).type('text/plain').send('No such message.');

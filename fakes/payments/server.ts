@@ -53,7 +53,8 @@ class ApiError extends Error {
   }
 }
 
-const missing = (kind: string, id: string) => new ApiError(404, 'invalid_request_error', `No such ${kind}: '${id}'`, { code: 'resource_missing', param: 'id' });
+const missing = (kind: string, id: string) =>
+  new ApiError(404, 'invalid_request_error', `No such ${kind}: '${id}'`, { code: 'resource_missing', param: 'id' });
 
 /** Test cards from the processor's testing guide. */
 const TEST_CARDS: Record<string, { outcome: 'succeeded' } | { outcome: 'declined'; decline_code: string; message: string }> = {
@@ -125,10 +126,25 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
   const api = express.Router();
   api.use((req, _res, next) => {
     const header = req.headers.authorization ?? '';
-    const key = header.startsWith('Bearer ') ? header.slice(7) : header.startsWith('Basic ') ? Buffer.from(header.slice(6), 'base64').toString().split(':')[0]! : '';
+    const key = header.startsWith('Bearer ')
+      ? header.slice(7)
+      : header.startsWith('Basic ')
+        ? Buffer.from(header.slice(6), 'base64').toString().split(':')[0]!
+        : '';
     const known = options.secretKeys.some((k) => k.length === key.length && timingSafeEqual(Buffer.from(k), Buffer.from(key)));
-    if (!key) throw new ApiError(401, 'invalid_request_error', 'You did not provide an API key. You need to provide your API key in the Authorization header, using Bearer auth (e.g. \'Authorization: Bearer YOUR_SECRET_KEY\').');
-    if (!known) throw new ApiError(401, 'invalid_request_error', `Invalid API Key provided: ${key.slice(0, 8)}${'*'.repeat(Math.max(0, key.length - 12))}${key.slice(-4)}`, { code: 'api_key_invalid' });
+    if (!key)
+      throw new ApiError(
+        401,
+        'invalid_request_error',
+        "You did not provide an API key. You need to provide your API key in the Authorization header, using Bearer auth (e.g. 'Authorization: Bearer YOUR_SECRET_KEY').",
+      );
+    if (!known)
+      throw new ApiError(
+        401,
+        'invalid_request_error',
+        `Invalid API Key provided: ${key.slice(0, 8)}${'*'.repeat(Math.max(0, key.length - 12))}${key.slice(-4)}`,
+        { code: 'api_key_invalid' },
+      );
     next();
   });
 
@@ -137,11 +153,17 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
   api.use((req, res, next) => {
     const key = req.headers['idempotency-key'];
     if (req.method !== 'POST' || typeof key !== 'string') return next();
-    const fingerprint = createHash('sha256').update(`${req.method} ${req.path} ${JSON.stringify(req.body ?? {})}`).digest('hex');
+    const fingerprint = createHash('sha256')
+      .update(`${req.method} ${req.path} ${JSON.stringify(req.body ?? {})}`)
+      .digest('hex');
     const saved = state.data.idempotency[key];
     if (saved) {
       if (saved.fingerprint !== fingerprint) {
-        throw new ApiError(400, 'idempotency_error', `Keys for idempotent requests can only be used with the same parameters they were first used with. Try using a key other than '${key}' if you meant to execute a different request.`);
+        throw new ApiError(
+          400,
+          'idempotency_error',
+          `Keys for idempotent requests can only be used with the same parameters they were first used with. Try using a key other than '${key}' if you meant to execute a different request.`,
+        );
       }
       res.setHeader('idempotent-replayed', 'true');
       return void res.status(saved.status).json(saved.body);
@@ -159,24 +181,35 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
 
   api.post('/checkout/sessions', (req, res) => {
     const body = req.body as Record<string, unknown>;
-    if (body.mode !== 'payment') throw new ApiError(400, 'invalid_request_error', 'Only mode=payment is supported here.', { param: 'mode' });
+    if (body.mode !== 'payment')
+      throw new ApiError(400, 'invalid_request_error', 'Only mode=payment is supported here.', { param: 'mode' });
     const rawItems = asArray(body.line_items);
-    if (!rawItems.length) throw new ApiError(400, 'invalid_request_error', 'line_items is required in payment mode.', { param: 'line_items' });
+    if (!rawItems.length)
+      throw new ApiError(400, 'invalid_request_error', 'line_items is required in payment mode.', { param: 'line_items' });
     let currency: string | undefined;
     const items: LineItem[] = rawItems.map((raw, index) => {
       const item = raw as { quantity?: string; price_data?: { currency?: string; unit_amount?: string; product_data?: { name?: string } } };
       const param = `line_items[${index}]`;
       const priceData = item.price_data;
-      if (!priceData) throw new ApiError(400, 'invalid_request_error', `Missing required param: ${param}[price_data].`, { param: `${param}[price_data]` });
+      if (!priceData)
+        throw new ApiError(400, 'invalid_request_error', `Missing required param: ${param}[price_data].`, {
+          param: `${param}[price_data]`,
+        });
       if (!priceData.currency || !/^[a-z]{3}$/.test(priceData.currency)) {
-        throw new ApiError(400, 'invalid_request_error', `Missing required param: ${param}[price_data][currency].`, { param: `${param}[price_data][currency]` });
+        throw new ApiError(400, 'invalid_request_error', `Missing required param: ${param}[price_data][currency].`, {
+          param: `${param}[price_data][currency]`,
+        });
       }
-      if (currency && priceData.currency !== currency) throw new ApiError(400, 'invalid_request_error', 'All line items must use the same currency.', { param });
+      if (currency && priceData.currency !== currency)
+        throw new ApiError(400, 'invalid_request_error', 'All line items must use the same currency.', { param });
       currency = priceData.currency;
       const unitAmount = integer(priceData.unit_amount, `${param}[price_data][unit_amount]`, 0);
       const quantity = integer(item.quantity ?? '1', `${param}[quantity]`, 1);
       const name = priceData.product_data?.name;
-      if (!name) throw new ApiError(400, 'invalid_request_error', `Missing required param: ${param}[price_data][product_data][name].`, { param: `${param}[price_data][product_data][name]` });
+      if (!name)
+        throw new ApiError(400, 'invalid_request_error', `Missing required param: ${param}[price_data][product_data][name].`, {
+          param: `${param}[price_data][product_data][name]`,
+        });
       return {
         id: newId('li'),
         object: 'item',
@@ -191,10 +224,16 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
     const created = nowSeconds();
     const expiresAt = body.expires_at === undefined ? created + 24 * 3600 : integer(body.expires_at, 'expires_at', 0);
     if (expiresAt < created + 30 * 60 - 5 || expiresAt > created + 24 * 3600) {
-      throw new ApiError(400, 'invalid_request_error', 'The `expires_at` timestamp must be between 30 minutes and 24 hours from Checkout Session creation.', { param: 'expires_at' });
+      throw new ApiError(
+        400,
+        'invalid_request_error',
+        'The `expires_at` timestamp must be between 30 minutes and 24 hours from Checkout Session creation.',
+        { param: 'expires_at' },
+      );
     }
     for (const url of ['success_url', 'cancel_url'] as const) {
-      if (body[url] !== undefined && !/^https?:\/\//.test(String(body[url]))) throw new ApiError(400, 'invalid_request_error', `Not a valid URL`, { param: url });
+      if (body[url] !== undefined && !/^https?:\/\//.test(String(body[url])))
+        throw new ApiError(400, 'invalid_request_error', `Not a valid URL`, { param: url });
     }
     const total = items.reduce((sum, i) => sum + i.amount_total, 0);
     const intentData = (body.payment_intent_data ?? {}) as { metadata?: Metadata };
@@ -256,7 +295,12 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
     const session = state.data.sessions[req.params.id];
     if (!session) throw missing('checkout.session', req.params.id);
     if (session.status !== 'open') {
-      throw new ApiError(400, 'invalid_request_error', `Only Checkout Sessions with a status in ["open"] can be expired. This Checkout Session has a status of "${session.status}".`, { code: 'checkout_session_not_open' });
+      throw new ApiError(
+        400,
+        'invalid_request_error',
+        `Only Checkout Sessions with a status in ["open"] can be expired. This Checkout Session has a status of "${session.status}".`,
+        { code: 'checkout_session_not_open' },
+      );
     }
     expireSession(session);
     state.save();
@@ -278,18 +322,34 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
   api.post('/refunds', (req, res) => {
     const body = req.body as Record<string, unknown>;
     const intentId = body.payment_intent as string | undefined;
-    const chargeId = (body.charge as string | undefined) ?? (intentId ? state.data.paymentIntents[intentId]?.latest_charge ?? undefined : undefined);
-    if (!intentId && !body.charge) throw new ApiError(400, 'invalid_request_error', 'One of the following params should be provided for this request: payment_intent or charge.');
+    const chargeId =
+      (body.charge as string | undefined) ?? (intentId ? (state.data.paymentIntents[intentId]?.latest_charge ?? undefined) : undefined);
+    if (!intentId && !body.charge)
+      throw new ApiError(
+        400,
+        'invalid_request_error',
+        'One of the following params should be provided for this request: payment_intent or charge.',
+      );
     if (intentId && !state.data.paymentIntents[intentId]) throw missing('payment_intent', intentId);
     const charge = chargeId ? state.data.charges[chargeId] : undefined;
     if (!charge) {
-      throw new ApiError(400, 'invalid_request_error', `This PaymentIntent (${intentId}) does not have a successful charge to refund.`, { code: 'charge_not_refundable' });
+      throw new ApiError(400, 'invalid_request_error', `This PaymentIntent (${intentId}) does not have a successful charge to refund.`, {
+        code: 'charge_not_refundable',
+      });
     }
     const remaining = charge.amount - charge.amount_refunded;
-    if (remaining === 0) throw new ApiError(400, 'invalid_request_error', `Charge ${charge.id} has already been refunded.`, { code: 'charge_already_refunded' });
+    if (remaining === 0)
+      throw new ApiError(400, 'invalid_request_error', `Charge ${charge.id} has already been refunded.`, {
+        code: 'charge_already_refunded',
+      });
     const amount = body.amount === undefined ? remaining : integer(body.amount, 'amount', 1);
     if (amount > remaining) {
-      throw new ApiError(400, 'invalid_request_error', `Refund amount (${amount}) is greater than unrefunded amount on charge (${remaining})`, { param: 'amount', code: 'amount_too_large' });
+      throw new ApiError(
+        400,
+        'invalid_request_error',
+        `Refund amount (${amount}) is greater than unrefunded amount on charge (${remaining})`,
+        { param: 'amount', code: 'amount_too_large' },
+      );
     }
     const refund: Refund = {
       id: newId('re'),
@@ -326,7 +386,9 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
   api.get('/events', (req, res) => {
     const type = req.query.type as string | undefined;
     const limit = Math.min(Number(req.query.limit ?? 10) || 10, 100);
-    const all = Object.values(state.data.events).filter((e) => !type || e.type === type).reverse();
+    const all = Object.values(state.data.events)
+      .filter((e) => !type || e.type === type)
+      .reverse();
     res.json({ object: 'list', data: all.slice(0, limit), has_more: all.length > limit, url: '/v1/events' });
   });
 
@@ -340,7 +402,9 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
   app.get('/pay/:id', (req, res) => {
     const session = state.data.sessions[req.params.id];
     if (!session) return void res.status(404).type('text/plain').send('No such payment page.');
-    res.type('html').send(payPage({ session, items: state.data.lineItems[session.id] ?? [], merchant: session.metadata.shop_name ?? merchant }));
+    res
+      .type('html')
+      .send(payPage({ session, items: state.data.lineItems[session.id] ?? [], merchant: session.metadata.shop_name ?? merchant }));
   });
 
   app.post('/pay/:id', (req, res) => {
@@ -349,8 +413,13 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
     const items = state.data.lineItems[session.id] ?? [];
     const shopName = session.metadata.shop_name ?? merchant;
     const form = req.body as { card?: string; email?: string; expiry?: string; cvc?: string; name?: string };
-    const again = (error: string, status = 402) => res.status(status).type('html').send(payPage({ session, items, merchant: shopName, error, email: form.email }));
-    if (session.status !== 'open') return again(session.status === 'expired' ? 'This payment page has expired.' : 'This payment is already complete.', 409);
+    const again = (error: string, status = 402) =>
+      res
+        .status(status)
+        .type('html')
+        .send(payPage({ session, items, merchant: shopName, error, email: form.email }));
+    if (session.status !== 'open')
+      return again(session.status === 'expired' ? 'This payment page has expired.' : 'This payment is already complete.', 409);
 
     const digits = String(form.card ?? '').replace(/[\s-]/g, '');
     const expiry = /^(\d{2})\s*\/\s*(\d{2})$/.exec(String(form.expiry ?? '').trim());
@@ -421,7 +490,9 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
           ? new ApiError(400, 'invalid_request_error', 'Invalid request body.')
           : new ApiError(500, 'api_error', 'An unexpected error occurred in the payments stand-in.');
     if (apiError.status >= 500) console.warn('[fake:payments]', error);
-    res.status(apiError.status).json({ error: { type: apiError.type, message: apiError.message, ...apiError.extra, request_log_url: null } });
+    res
+      .status(apiError.status)
+      .json({ error: { type: apiError.type, message: apiError.message, ...apiError.extra, request_log_url: null } });
   });
 
   const server = createServer(app);
@@ -442,7 +513,10 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
 
 function asArray(value: unknown): unknown[] {
   if (Array.isArray(value)) return value;
-  if (value && typeof value === 'object') return Object.keys(value).sort((a, b) => Number(a) - Number(b)).map((k) => (value as Record<string, unknown>)[k]);
+  if (value && typeof value === 'object')
+    return Object.keys(value)
+      .sort((a, b) => Number(a) - Number(b))
+      .map((k) => (value as Record<string, unknown>)[k]);
   return [];
 }
 

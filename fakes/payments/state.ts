@@ -110,7 +110,16 @@ export type State = {
   idempotency: Record<string, Saved>;
 };
 
-const empty = (): State => ({ sessions: {}, lineItems: {}, paymentIntents: {}, charges: {}, refunds: {}, events: {}, deliveries: [], idempotency: {} });
+const empty = (): State => ({
+  sessions: {},
+  lineItems: {},
+  paymentIntents: {},
+  charges: {},
+  refunds: {},
+  events: {},
+  deliveries: [],
+  idempotency: {},
+});
 
 /** Object ids look like the real ones: a type prefix, `_test_` where the API uses it, random. */
 export function newId(prefix: string): string {

@@ -31,7 +31,9 @@ export class WebhookDeliverer {
 
   /** Queues one delivery of the event to every endpoint. */
   enqueue(event: PaymentEvent): void {
-    this.endpoints.forEach((_, endpoint) => this.state.data.deliveries.push({ eventId: event.id, endpoint, attempts: 0, nextAt: Date.now(), done: false }));
+    this.endpoints.forEach((_, endpoint) =>
+      this.state.data.deliveries.push({ eventId: event.id, endpoint, attempts: 0, nextAt: Date.now(), done: false }),
+    );
     event.pending_webhooks = this.endpoints.length;
     this.state.save();
     void this.tick();
@@ -94,7 +96,11 @@ export class WebhookDeliverer {
     try {
       const response = await fetch(endpoint.url, {
         method: 'POST',
-        headers: { 'content-type': 'application/json; charset=utf-8', 'stripe-signature': signature, 'user-agent': 'payments-fake/1.0 (+webhooks)' },
+        headers: {
+          'content-type': 'application/json; charset=utf-8',
+          'stripe-signature': signature,
+          'user-agent': 'payments-fake/1.0 (+webhooks)',
+        },
         body: payload,
         signal: AbortSignal.timeout(10_000),
       });

@@ -51,7 +51,8 @@ export async function startStorageFake(options: StorageFakeOptions): Promise<Sto
     res.setHeader('x-amz-request-id', requestId);
     res.on('finish', () => log(logLine(req.method ?? '?', req.url ?? '/', res.statusCode, startedAt)));
     handle(req, res).catch((error: unknown) => {
-      const s3 = error instanceof S3Error ? error : new S3Error(500, 'InternalError', 'We encountered an internal error. Please try again.');
+      const s3 =
+        error instanceof S3Error ? error : new S3Error(500, 'InternalError', 'We encountered an internal error. Please try again.');
       if (!(error instanceof S3Error)) console.warn('[fake:storage]', error);
       if (res.headersSent) return void res.destroy();
       const body = req.method === 'HEAD' ? undefined : errorXml(s3.code, s3.message, req.url ?? '/', requestId);
@@ -84,7 +85,9 @@ export async function startStorageFake(options: StorageFakeOptions): Promise<Sto
 
     if (!bucket) {
       if (method !== 'GET') throw new S3Error(405, 'MethodNotAllowed', 'The specified method is not allowed against this resource.');
-      const buckets = readdirSync(options.dataDir).map((name) => store.bucket(name)).filter((b) => b !== undefined);
+      const buckets = readdirSync(options.dataDir)
+        .map((name) => store.bucket(name))
+        .filter((b) => b !== undefined);
       return sendXml(res, 200, listBucketsXml(buckets));
     }
 
@@ -96,7 +99,11 @@ export async function startStorageFake(options: StorageFakeOptions): Promise<Sto
         try {
           rules = parseCorsConfiguration(body.toString('utf8'));
         } catch {
-          throw new S3Error(400, 'MalformedXML', 'The XML you provided was not well-formed or did not validate against our published schema.');
+          throw new S3Error(
+            400,
+            'MalformedXML',
+            'The XML you provided was not well-formed or did not validate against our published schema.',
+          );
         }
         store.setCors(bucket, rules);
         return void res.writeHead(200).end();
@@ -110,7 +117,11 @@ export async function startStorageFake(options: StorageFakeOptions): Promise<Sto
         await readBody(req, 64 * 1024, auth.payloadHash);
         if (!ObjectStore.isValidBucketName(bucket)) throw new S3Error(400, 'InvalidBucketName', 'The specified bucket is not valid.');
         if (store.createBucket(bucket) === 'exists') {
-          throw new S3Error(409, 'BucketAlreadyOwnedByYou', 'Your previous request to create the named bucket succeeded and you already own it.');
+          throw new S3Error(
+            409,
+            'BucketAlreadyOwnedByYou',
+            'Your previous request to create the named bucket succeeded and you already own it.',
+          );
         }
         return void res.writeHead(200, { location: `/${bucket}` }).end();
       }
@@ -155,7 +166,12 @@ export async function startStorageFake(options: StorageFakeOptions): Promise<Sto
       .map((h) => h.trim())
       .filter(Boolean);
     const rule = findCorsRule(store.bucket(bucket)?.cors ?? [], origin, requestedMethod, requestedHeaders);
-    if (!rule) throw new S3Error(403, 'AccessForbidden', 'CORSResponse: This CORS request is not allowed. This is usually because the evalution of Origin, request method / Access-Control-Request-Method or Access-Control-Request-Headers are not whitelisted by the resource\'s CORS spec.');
+    if (!rule)
+      throw new S3Error(
+        403,
+        'AccessForbidden',
+        "CORSResponse: This CORS request is not allowed. This is usually because the evalution of Origin, request method / Access-Control-Request-Method or Access-Control-Request-Headers are not whitelisted by the resource's CORS spec.",
+      );
     res.writeHead(200, {
       'access-control-allow-origin': rule.allowedOrigins.includes('*') ? '*' : origin,
       'access-control-allow-methods': rule.allowedMethods.join(', '),
@@ -191,7 +207,7 @@ export async function startStorageFake(options: StorageFakeOptions): Promise<Sto
     }
     const body = Buffer.concat(chunks);
     if (/^[0-9a-f]{64}$/.test(payloadHash) && createHash('sha256').update(body).digest('hex') !== payloadHash) {
-      throw new S3Error(400, 'XAmzContentSHA256Mismatch', 'The provided \'x-amz-content-sha256\' header does not match what was computed.');
+      throw new S3Error(400, 'XAmzContentSHA256Mismatch', "The provided 'x-amz-content-sha256' header does not match what was computed.");
     }
     const md5 = req.headers['content-md5'];
     if (typeof md5 === 'string' && createHash('md5').update(body).digest('base64') !== md5) {
@@ -240,12 +256,17 @@ export async function startStorageFake(options: StorageFakeOptions): Promise<Sto
     const body = store.read(bucket, key);
     if (!range) return void res.writeHead(200, { ...headers, 'content-length': String(object.size) }).end(body);
     const part = body.subarray(range.start, range.end + 1);
-    res.writeHead(206, { ...headers, 'content-length': String(part.length), 'content-range': `bytes ${range.start}-${range.end}/${object.size}` });
+    res.writeHead(206, {
+      ...headers,
+      'content-length': String(part.length),
+      'content-range': `bytes ${range.start}-${range.end}/${object.size}`,
+    });
     res.end(part);
   }
 
   function listObjects(res: ServerResponse, bucket: string, query: URLSearchParams): void {
-    if (query.get('list-type') !== '2') throw new S3Error(501, 'NotImplemented', 'Only ListObjectsV2 (list-type=2) is supported by this store.');
+    if (query.get('list-type') !== '2')
+      throw new S3Error(501, 'NotImplemented', 'Only ListObjectsV2 (list-type=2) is supported by this store.');
     const prefix = query.get('prefix') ?? '';
     const delimiter = query.get('delimiter') || undefined;
     const maxKeys = Math.min(Math.max(Number(query.get('max-keys') ?? 1000) || 0, 0), 1000);
@@ -273,7 +294,22 @@ export async function startStorageFake(options: StorageFakeOptions): Promise<Sto
       lastKey = commonPrefix ?? object.key;
     }
     const nextContinuationToken = truncated && lastKey ? Buffer.from(lastKey).toString('base64url') : undefined;
-    sendXml(res, 200, listObjectsV2Xml({ bucket, prefix, delimiter, maxKeys, objects, commonPrefixes, truncated, continuationToken, nextContinuationToken, startAfter }));
+    sendXml(
+      res,
+      200,
+      listObjectsV2Xml({
+        bucket,
+        prefix,
+        delimiter,
+        maxKeys,
+        objects,
+        commonPrefixes,
+        truncated,
+        continuationToken,
+        nextContinuationToken,
+        startAfter,
+      }),
+    );
   }
 
   const port = await listen(server, options.port ?? 0, options.host ?? '127.0.0.1');

@@ -37,13 +37,16 @@ export function uriEncode(value: string): string {
 
 function parseQuery(rawQuery: string): Array<[string, string]> {
   if (!rawQuery) return [];
-  return rawQuery.split('&').filter(Boolean).map((pair) => {
-    const index = pair.indexOf('=');
-    const key = index < 0 ? pair : pair.slice(0, index);
-    const value = index < 0 ? '' : pair.slice(index + 1);
-    const decode = (s: string) => decodeURIComponent(s.replace(/\+/g, '%20'));
-    return [decode(key), decode(value)];
-  });
+  return rawQuery
+    .split('&')
+    .filter(Boolean)
+    .map((pair) => {
+      const index = pair.indexOf('=');
+      const key = index < 0 ? pair : pair.slice(0, index);
+      const value = index < 0 ? '' : pair.slice(index + 1);
+      const decode = (s: string) => decodeURIComponent(s.replace(/\+/g, '%20'));
+      return [decode(key), decode(value)];
+    });
 }
 
 function canonicalQuery(pairs: Array<[string, string]>): string {
@@ -83,7 +86,8 @@ export function verifySigV4(request: ReceivedRequest, credentials: Credentials, 
   let credential: string, signedHeaders: string, givenSignature: string, amzDate: string, payloadHash: string;
   let signedQuery = query;
   if (presigned) {
-    if (queryValue('X-Amz-Algorithm') !== ALGORITHM) return denied('AuthorizationQueryParametersError', 'X-Amz-Algorithm only supports "AWS4-HMAC-SHA256"', 400);
+    if (queryValue('X-Amz-Algorithm') !== ALGORITHM)
+      return denied('AuthorizationQueryParametersError', 'X-Amz-Algorithm only supports "AWS4-HMAC-SHA256"', 400);
     credential = queryValue('X-Amz-Credential') ?? '';
     signedHeaders = queryValue('X-Amz-SignedHeaders') ?? '';
     givenSignature = queryValue('X-Amz-Signature') ?? '';
@@ -125,12 +129,24 @@ export function verifySigV4(request: ReceivedRequest, credentials: Credentials, 
 
   const names = signedHeaders.split(';');
   if (!names.includes('host')) return denied('AccessDenied', 'Host must be a signed header.');
-  const canonicalHeaders = names.map((name) => `${name}:${(headerValue(request.headers, name) ?? '').trim().replace(/\s+/g, ' ')}\n`).join('');
-  const canonicalRequest = [request.method, request.rawPath || '/', canonicalQuery(signedQuery), canonicalHeaders, signedHeaders, payloadHash].join('\n');
+  const canonicalHeaders = names
+    .map((name) => `${name}:${(headerValue(request.headers, name) ?? '').trim().replace(/\s+/g, ' ')}\n`)
+    .join('');
+  const canonicalRequest = [
+    request.method,
+    request.rawPath || '/',
+    canonicalQuery(signedQuery),
+    canonicalHeaders,
+    signedHeaders,
+    payloadHash,
+  ].join('\n');
   const expected = signature(secret, amzDate, scope, canonicalRequest);
   const matches = expected.length === givenSignature.length && timingSafeEqual(Buffer.from(expected), Buffer.from(givenSignature));
   if (!matches) {
-    return denied('SignatureDoesNotMatch', 'The request signature we calculated does not match the signature you provided. Check your key and signing method.');
+    return denied(
+      'SignatureDoesNotMatch',
+      'The request signature we calculated does not match the signature you provided. Check your key and signing method.',
+    );
   }
   return { ok: true, accessKeyId: accessKeyId!, payloadHash, presigned };
 }

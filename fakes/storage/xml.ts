@@ -43,7 +43,9 @@ export function listObjectsV2Xml(input: {
 }
 
 export function listBucketsXml(buckets: Array<{ name: string; createdAt: string }>): string {
-  const items = buckets.map((b) => `<Bucket><Name>${escapeXml(b.name)}</Name><CreationDate>${b.createdAt}</CreationDate></Bucket>`).join('');
+  const items = buckets
+    .map((b) => `<Bucket><Name>${escapeXml(b.name)}</Name><CreationDate>${b.createdAt}</CreationDate></Bucket>`)
+    .join('');
   return `${HEAD}<ListAllMyBucketsResult xmlns="${NS}"><Owner><ID>local</ID><DisplayName>local</DisplayName></Owner><Buckets>${items}</Buckets></ListAllMyBucketsResult>`;
 }
 

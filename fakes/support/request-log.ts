@@ -10,7 +10,11 @@ export const silentLogger: RequestLogger = () => {};
 
 /** Express middleware writing one `logLine` per finished request. */
 export function requestLogMiddleware(log: RequestLogger) {
-  return (req: { method: string; originalUrl: string }, res: { statusCode: number; on(event: 'finish', listener: () => void): unknown }, next: () => void) => {
+  return (
+    req: { method: string; originalUrl: string },
+    res: { statusCode: number; on(event: 'finish', listener: () => void): unknown },
+    next: () => void,
+  ) => {
     const startedAt = Date.now();
     res.on('finish', () => log(logLine(req.method, req.originalUrl, res.statusCode, startedAt)));
     next();

@@ -29,7 +29,13 @@ export function createJobs(env: Pick<Env, 'DATABASE_URL' | 'RENDER_TIMEOUT_SECON
   let started: Promise<void> | undefined;
   const ready = () =>
     (started ??= boss.start().then(async () => {
-      await boss.createQueue(QUEUES.render, { name: QUEUES.render, retryLimit: 3, retryDelay: 2, retryBackoff: true, expireInSeconds: env.RENDER_TIMEOUT_SECONDS });
+      await boss.createQueue(QUEUES.render, {
+        name: QUEUES.render,
+        retryLimit: 3,
+        retryDelay: 2,
+        retryBackoff: true,
+        expireInSeconds: env.RENDER_TIMEOUT_SECONDS,
+      });
     }));
 
   return {
@@ -40,7 +46,10 @@ export function createJobs(env: Pick<Env, 'DATABASE_URL' | 'RENDER_TIMEOUT_SECON
       return id;
     },
     /** Runs `handler` for each job of the queue, one at a time in this process. */
-    async work<T extends object>(queue: QueueName, handler: (data: T, job: { id: string; retryCount: number; retryLimit: number }) => Promise<void>): Promise<void> {
+    async work<T extends object>(
+      queue: QueueName,
+      handler: (data: T, job: { id: string; retryCount: number; retryLimit: number }) => Promise<void>,
+    ): Promise<void> {
       await ready();
       await boss.work<T>(queue, { pollingIntervalSeconds: 1, batchSize: 1, includeMetadata: true }, async ([job]) => {
         if (job) await handler(job.data, { id: job.id, retryCount: job.retryCount, retryLimit: job.retryLimit });

@@ -11,7 +11,7 @@ import {
   S3ServiceException,
 } from '@aws-sdk/client-s3';
 import { getSignedUrl } from '@aws-sdk/s3-request-presigner';
-import { AppError } from '../../shared/errors.ts';
+import { AppError } from '#shared/errors.ts';
 import type { Env } from '../env.ts';
 
 /**
@@ -20,7 +20,16 @@ import type { Env } from '../env.ts';
  */
 export type Storage = ReturnType<typeof createStorage>;
 
-const NETWORK_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EHOSTUNREACH', 'ENETUNREACH', 'ENOTFOUND', 'EPIPE', 'EAI_AGAIN']);
+const NETWORK_CODES = new Set([
+  'ECONNREFUSED',
+  'ECONNRESET',
+  'ETIMEDOUT',
+  'EHOSTUNREACH',
+  'ENETUNREACH',
+  'ENOTFOUND',
+  'EPIPE',
+  'EAI_AGAIN',
+]);
 
 /**
  * A store that cannot be reached, or answers with a server error, is "unavailable" to the
@@ -30,14 +39,19 @@ const NETWORK_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EHOST
 function unavailable(error: unknown): never {
   const e = error as { code?: string; name?: string; $metadata?: { httpStatusCode?: number }; cause?: { code?: string } };
   const status = e.$metadata?.httpStatusCode;
-  const network = NETWORK_CODES.has(e.code ?? '') || NETWORK_CODES.has(e.cause?.code ?? '') || e.name === 'TimeoutError' || e.name === 'RequestTimeout';
+  const network =
+    NETWORK_CODES.has(e.code ?? '') || NETWORK_CODES.has(e.cause?.code ?? '') || e.name === 'TimeoutError' || e.name === 'RequestTimeout';
   if (network || (status !== undefined && status >= 500)) {
-    throw new AppError('SERVICE_UNAVAILABLE', 'File storage is not answering just now. Nothing was saved; please try again in a minute.', { cause: error });
+    throw new AppError('SERVICE_UNAVAILABLE', 'File storage is not answering just now. Nothing was saved; please try again in a minute.', {
+      cause: error,
+    });
   }
   throw error;
 }
 
-export function createStorage(env: Pick<Env, 'S3_ENDPOINT' | 'S3_REGION' | 'S3_ACCESS_KEY_ID' | 'S3_SECRET_ACCESS_KEY' | 'S3_BUCKET' | 'S3_FORCE_PATH_STYLE'>) {
+export function createStorage(
+  env: Pick<Env, 'S3_ENDPOINT' | 'S3_REGION' | 'S3_ACCESS_KEY_ID' | 'S3_SECRET_ACCESS_KEY' | 'S3_BUCKET' | 'S3_FORCE_PATH_STYLE'>,
+) {
   const client = new S3Client({
     endpoint: env.S3_ENDPOINT,
     region: env.S3_REGION,
@@ -52,7 +66,8 @@ export function createStorage(env: Pick<Env, 'S3_ENDPOINT' | 'S3_REGION' | 'S3_A
     requestHandler: { connectionTimeout: 3_000, requestTimeout: 30_000 },
   });
   const bucket = env.S3_BUCKET;
-  const send: typeof client.send = ((command: Parameters<typeof client.send>[0]) => client.send(command).catch(unavailable)) as typeof client.send;
+  const send: typeof client.send = ((command: Parameters<typeof client.send>[0]) =>
+    client.send(command).catch(unavailable)) as typeof client.send;
 
   return {
     client,
@@ -63,7 +78,12 @@ export function createStorage(env: Pick<Env, 'S3_ENDPOINT' | 'S3_REGION' | 'S3_A
      * send exactly those headers; the server still checks the object when it accepts it.
      */
     presignUpload(key: string, options: { contentType: string; contentLength: number; expiresInSeconds?: number }): Promise<string> {
-      const command = new PutObjectCommand({ Bucket: bucket, Key: key, ContentType: options.contentType, ContentLength: options.contentLength });
+      const command = new PutObjectCommand({
+        Bucket: bucket,
+        Key: key,
+        ContentType: options.contentType,
+        ContentLength: options.contentLength,
+      });
       return getSignedUrl(client, command, {
         expiresIn: options.expiresInSeconds ?? 600,
         signableHeaders: new Set(['content-type', 'content-length']),
@@ -75,13 +95,17 @@ export function createStorage(env: Pick<Env, 'S3_ENDPOINT' | 'S3_REGION' | 'S3_A
       const command = new GetObjectCommand({
         Bucket: bucket,
         Key: key,
-        ResponseContentDisposition: options.downloadName ? `attachment; filename="${options.downloadName.replace(/["\\\r\n]/g, '')}"` : undefined,
+        ResponseContentDisposition: options.downloadName
+          ? `attachment; filename="${options.downloadName.replace(/["\\\r\n]/g, '')}"`
+          : undefined,
       });
       return getSignedUrl(client, command, { expiresIn: options.expiresInSeconds ?? 300 });
     },
 
     async put(key: string, body: Uint8Array, contentType: string, metadata: Record<string, string> = {}): Promise<{ etag: string }> {
-      const result = await send(new PutObjectCommand({ Bucket: bucket, Key: key, Body: body, ContentType: contentType, Metadata: metadata }));
+      const result = await send(
+        new PutObjectCommand({ Bucket: bucket, Key: key, Body: body, ContentType: contentType, Metadata: metadata }),
+      );
       return { etag: result.ETag ?? '' };
     },
 
@@ -132,7 +156,15 @@ export function createStorage(env: Pick<Env, 'S3_ENDPOINT' | 'S3_REGION' | 'S3_A
         new PutBucketCorsCommand({
           Bucket: bucket,
           CORSConfiguration: {
-            CORSRules: [{ AllowedOrigins: allowedOrigins, AllowedMethods: ['PUT', 'GET', 'HEAD'], AllowedHeaders: ['content-type', 'content-length'], ExposeHeaders: ['ETag'], MaxAgeSeconds: 600 }],
+            CORSRules: [
+              {
+                AllowedOrigins: allowedOrigins,
+                AllowedMethods: ['PUT', 'GET', 'HEAD'],
+                AllowedHeaders: ['content-type', 'content-length'],
+                ExposeHeaders: ['ETag'],
+                MaxAgeSeconds: 600,
+              },
+            ],
           },
         }),
       );

@@ -16,7 +16,11 @@ export function mikroOrmAdapter(orm: Orm): Adapter {
   return {
     async createUser(data) {
       const fork = em();
-      const user = fork.create(User, { email: data.email.toLowerCase(), name: data.name ?? null, emailVerifiedAt: data.emailVerified ?? null });
+      const user = fork.create(User, {
+        email: data.email.toLowerCase(),
+        name: data.name ?? null,
+        emailVerifiedAt: data.emailVerified ?? null,
+      });
       await fork.flush();
       return toAdapterUser(user);
     },

@@ -3,8 +3,8 @@ import express from 'express';
 import { ExpressAuth, getSession, type ExpressAuthConfig } from '@auth/express';
 import Credentials from '@auth/express/providers/credentials';
 import Nodemailer from '@auth/express/providers/nodemailer';
-import { emailSchema } from '../../shared/schemas/accounts.ts';
-import { AppError } from '../../shared/errors.ts';
+import { emailSchema } from '#shared/schemas/accounts.ts';
+import { AppError } from '#shared/errors.ts';
 import type { Env } from '../env.ts';
 import type { Orm } from '../db/orm.ts';
 import type { Logger } from '../logger.ts';
@@ -33,7 +33,17 @@ export type Auth = {
 const SESSION_MAX_AGE = 30 * 24 * 3600;
 const LINK_MAX_AGE = 30 * 60;
 
-export function createAuth({ orm, env, logger, limits: { signIn: limits } }: { orm: Orm; env: Env; logger: Logger; limits: RateLimits }): Auth {
+export function createAuth({
+  orm,
+  env,
+  logger,
+  limits: { signIn: limits },
+}: {
+  orm: Orm;
+  env: Env;
+  logger: Logger;
+  limits: RateLimits;
+}): Auth {
   const secure = env.APP_URL.startsWith('https://');
 
   const config: ExpressAuthConfig = {
@@ -109,7 +119,10 @@ export function createAuth({ orm, env, logger, limits: { signIn: limits } }: { o
   };
   const limitLinks: RequestHandler = async (req, _res, next) => {
     const email = emailSchema.safeParse(req.body?.email);
-    if (!email.success) throw new AppError('VALIDATION_FAILED', 'Enter a valid e-mail address.', { issues: [{ path: ['email'], message: 'Enter a valid e-mail address.' }] });
+    if (!email.success)
+      throw new AppError('VALIDATION_FAILED', 'Enter a valid e-mail address.', {
+        issues: [{ path: ['email'], message: 'Enter a valid e-mail address.' }],
+      });
     await limits.checkLinkRequest(req.ip ?? 'unknown', email.data);
     next();
   };

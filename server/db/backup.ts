@@ -19,7 +19,9 @@ const tool = (name: 'pg_dump' | 'pg_restore') => {
 /** Writes a dump of the whole database to `file`. */
 export async function backupDatabase(databaseUrl: string, file: string): Promise<void> {
   mkdirSync(dirname(file), { recursive: true });
-  await run(tool('pg_dump'), ['--format=custom', '--no-owner', '--no-privileges', `--file=${file}`, databaseUrl], { maxBuffer: 16 * 1024 * 1024 });
+  await run(tool('pg_dump'), ['--format=custom', '--no-owner', '--no-privileges', `--file=${file}`, databaseUrl], {
+    maxBuffer: 16 * 1024 * 1024,
+  });
 }
 
 /**
@@ -28,5 +30,9 @@ export async function backupDatabase(databaseUrl: string, file: string): Promise
  */
 export async function restoreDatabase(databaseUrl: string, file: string): Promise<void> {
   if (!existsSync(file)) throw new Error(`no backup at ${file}`);
-  await run(tool('pg_restore'), ['--clean', '--if-exists', '--no-owner', '--no-privileges', '--single-transaction', '--exit-on-error', `--dbname=${databaseUrl}`, file], { maxBuffer: 16 * 1024 * 1024 });
+  await run(
+    tool('pg_restore'),
+    ['--clean', '--if-exists', '--no-owner', '--no-privileges', '--single-transaction', '--exit-on-error', `--dbname=${databaseUrl}`, file],
+    { maxBuffer: 16 * 1024 * 1024 },
+  );
 }

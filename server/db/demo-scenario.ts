@@ -5,8 +5,22 @@
 export const DEMO_PASSWORD = 'etch-demo-2026';
 
 export const demoStudios = [
-  { slug: 'harbour-light', name: 'Harbour Light Engraving', accentColour: '#1f6f8b', currency: 'USD', units: 'in', contactEmail: 'hello@harbour-light.test' },
-  { slug: 'fernhill-stone', name: 'Fernhill Stoneworks', accentColour: '#7a5c3e', currency: 'GBP', units: 'mm', contactEmail: 'studio@fernhill-stone.test' },
+  {
+    slug: 'harbour-light',
+    name: 'Harbour Light Engraving',
+    accentColour: '#1f6f8b',
+    currency: 'USD',
+    units: 'in',
+    contactEmail: 'hello@harbour-light.test',
+  },
+  {
+    slug: 'fernhill-stone',
+    name: 'Fernhill Stoneworks',
+    accentColour: '#7a5c3e',
+    currency: 'GBP',
+    units: 'mm',
+    contactEmail: 'studio@fernhill-stone.test',
+  },
 ] as const;
 
 type DemoPerson = {
@@ -35,17 +49,46 @@ export const demoCatalog = {
       { name: 'Express courier, next working day', priceMinor: 1950 },
     ],
     pickup: 'Collect from 14 Quay Lane, Port Alder, Tuesday to Saturday, 10:00–17:00.',
-    machine: { name: 'Workshop CO2, 100 W', laserKind: 'co2', powerWatts: 100, bedWidthMm: 900, bedHeightMm: 600, speedUnit: 'in/s', notes: 'Lens 2.0 in; air assist on for glass.' },
+    machine: {
+      name: 'Workshop CO2, 100 W',
+      laserKind: 'co2',
+      powerWatts: 100,
+      bedWidthMm: 900,
+      bedHeightMm: 600,
+      speedUnit: 'in/s',
+      notes: 'Lens 2.0 in; air assist on for glass.',
+    },
     recipeMaterial: 'Black-backed (painted) glass',
     blanks: [
       {
         name: 'Black-backed glass portrait',
-        description: 'A pane of clear glass painted black on the back: your photo is engraved into the paint and glows pale against the black.',
+        description:
+          'A pane of clear glass painted black on the back: your photo is engraved into the paint and glows pale against the black.',
         material: 'Black-backed (painted) glass',
         shape: 'rounded-rectangle',
         sizes: [
-          { label: '5 × 7 in', outerWidthMm: 127, outerHeightMm: 177.8, areaWidthMm: 114.3, areaHeightMm: 165.1, orientation: 'either', priceMinor: 4900, stock: 24, sku: 'HL-GLS-57' },
-          { label: '8 × 10 in', outerWidthMm: 203.2, outerHeightMm: 254, areaWidthMm: 190.5, areaHeightMm: 241.3, orientation: 'either', priceMinor: 6900, stock: 12, sku: 'HL-GLS-810' },
+          {
+            label: '5 × 7 in',
+            outerWidthMm: 127,
+            outerHeightMm: 177.8,
+            areaWidthMm: 114.3,
+            areaHeightMm: 165.1,
+            orientation: 'either',
+            priceMinor: 4900,
+            stock: 24,
+            sku: 'HL-GLS-57',
+          },
+          {
+            label: '8 × 10 in',
+            outerWidthMm: 203.2,
+            outerHeightMm: 254,
+            areaWidthMm: 190.5,
+            areaHeightMm: 241.3,
+            orientation: 'either',
+            priceMinor: 6900,
+            stock: 12,
+            sku: 'HL-GLS-810',
+          },
         ],
       },
       {
@@ -53,14 +96,34 @@ export const demoCatalog = {
         description: 'Hard maple with a soft oiled finish; the photo burns warm brown.',
         material: 'Maple',
         shape: 'rectangle',
-        sizes: [{ label: '6 × 8 in', outerWidthMm: 152.4, outerHeightMm: 203.2, areaWidthMm: 139.7, areaHeightMm: 190.5, orientation: 'portrait', priceMinor: 3900, stock: null, sku: 'HL-MPL-68' }],
+        sizes: [
+          {
+            label: '6 × 8 in',
+            outerWidthMm: 152.4,
+            outerHeightMm: 203.2,
+            areaWidthMm: 139.7,
+            areaHeightMm: 190.5,
+            orientation: 'portrait',
+            priceMinor: 3900,
+            stock: null,
+            sku: 'HL-MPL-68',
+          },
+        ],
       },
     ],
   },
   'fernhill-stone': {
     shipping: [{ name: 'Tracked parcel, 2–4 days', priceMinor: 695 }],
     pickup: '',
-    machine: { name: 'Stone room CO2, 80 W', laserKind: 'co2', powerWatts: 80, bedWidthMm: 700, bedHeightMm: 500, speedUnit: 'mm/s', notes: '' },
+    machine: {
+      name: 'Stone room CO2, 80 W',
+      laserKind: 'co2',
+      powerWatts: 80,
+      bedWidthMm: 700,
+      bedHeightMm: 500,
+      speedUnit: 'mm/s',
+      notes: '',
+    },
     recipeMaterial: 'Black granite',
     blanks: [
       {
@@ -69,8 +132,28 @@ export const demoCatalog = {
         material: 'Black granite',
         shape: 'rectangle',
         sizes: [
-          { label: '150 × 150 mm', outerWidthMm: 150, outerHeightMm: 150, areaWidthMm: 130, areaHeightMm: 130, orientation: 'either', priceMinor: 3500, stock: 8, sku: 'FS-GRN-150' },
-          { label: '200 × 300 mm', outerWidthMm: 200, outerHeightMm: 300, areaWidthMm: 180, areaHeightMm: 280, orientation: 'portrait', priceMinor: 5900, stock: 4, sku: 'FS-GRN-200' },
+          {
+            label: '150 × 150 mm',
+            outerWidthMm: 150,
+            outerHeightMm: 150,
+            areaWidthMm: 130,
+            areaHeightMm: 130,
+            orientation: 'either',
+            priceMinor: 3500,
+            stock: 8,
+            sku: 'FS-GRN-150',
+          },
+          {
+            label: '200 × 300 mm',
+            outerWidthMm: 200,
+            outerHeightMm: 300,
+            areaWidthMm: 180,
+            areaHeightMm: 280,
+            orientation: 'portrait',
+            priceMinor: 5900,
+            stock: 4,
+            sku: 'FS-GRN-200',
+          },
         ],
       },
       {
@@ -78,7 +161,19 @@ export const demoCatalog = {
         description: 'Natural slate with rough-cut edges.',
         material: 'Slate',
         shape: 'circle',
-        sizes: [{ label: '100 mm round', outerWidthMm: 100, outerHeightMm: 100, areaWidthMm: 70, areaHeightMm: 70, orientation: 'either', priceMinor: 1200, stock: null, sku: 'FS-SLT-100' }],
+        sizes: [
+          {
+            label: '100 mm round',
+            outerWidthMm: 100,
+            outerHeightMm: 100,
+            areaWidthMm: 70,
+            areaHeightMm: 70,
+            orientation: 'either',
+            priceMinor: 1200,
+            stock: null,
+            sku: 'FS-SLT-100',
+          },
+        ],
       },
     ],
   },

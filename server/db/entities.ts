@@ -15,4 +15,27 @@ import { ProductionBatch, Render } from '../features/production/production.entit
 import { AuditEntry } from '../features/audit/audit-entry.entity.ts';
 
 /** Every entity the ORM knows, listed by hand: discovery by folder scan needs compiled files. */
-export const entities = [Studio, User, Membership, Invite, VerificationToken, OutboxEmail, RateLimit, Material, Machine, Recipe, Blank, BlankSize, BlankPhoto, BuyerPhoto, ShippingRate, Order, OrderItem, OrderEvent, PaymentEvent, ProductionBatch, Render, AuditEntry];
+export const entities = [
+  Studio,
+  User,
+  Membership,
+  Invite,
+  VerificationToken,
+  OutboxEmail,
+  RateLimit,
+  Material,
+  Machine,
+  Recipe,
+  Blank,
+  BlankSize,
+  BlankPhoto,
+  BuyerPhoto,
+  ShippingRate,
+  Order,
+  OrderItem,
+  OrderEvent,
+  PaymentEvent,
+  ProductionBatch,
+  Render,
+  AuditEntry,
+];

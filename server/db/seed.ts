@@ -68,11 +68,28 @@ async function seedDemoCatalog(em: EntityManager, studio: Studio): Promise<numbe
   const recipe =
     plan.recipeMaterial === 'Black-backed (painted) glass'
       ? { ...EXAMPLE_GLASS_RECIPE, notes: 'The example recipe from trade practice.' }
-      : { linesPerInch: suggestion.suggestedLinesPerInch, halftoneMethod: suggestion.suggestedHalftone, tone: suggestion.defaultTone, speed: 300, powerMinPercent: 20, powerMaxPercent: 35, passes: 1, notes: '' };
+      : {
+          linesPerInch: suggestion.suggestedLinesPerInch,
+          halftoneMethod: suggestion.suggestedHalftone,
+          tone: suggestion.defaultTone,
+          speed: 300,
+          powerMinPercent: 20,
+          powerMaxPercent: 35,
+          passes: 1,
+          notes: '',
+        };
   em.create(Recipe, { ...recipe, material: recipeMaterial, machine, studio });
   added += 2;
   plan.blanks.forEach((b, index) => {
-    const blank = em.create(Blank, { name: b.name, description: b.description, material: byName(b.material), shape: b.shape, status: 'active', sortOrder: index, studio });
+    const blank = em.create(Blank, {
+      name: b.name,
+      description: b.description,
+      material: byName(b.material),
+      shape: b.shape,
+      status: 'active',
+      sortOrder: index,
+      studio,
+    });
     for (const size of b.sizes) em.create(BlankSize, { ...size, stock: size.stock, blank, studio });
     added += 1 + b.sizes.length;
   });

@@ -72,6 +72,12 @@ export class GrayAlphaPngWriter {
     const chunks: Buffer[] = [];
     for (let o = 0; o < idat.length; o += 8 << 20) chunks.push(pngChunk('IDAT', idat.subarray(o, o + (8 << 20))));
     if (!chunks.length) chunks.push(pngChunk('IDAT', idat));
-    return Buffer.concat([PNG_SIGNATURE, ihdrChunk(this.width, this.height, 8, 4), pHYsChunk(this.dpi), ...chunks, pngChunk('IEND', Buffer.alloc(0))]);
+    return Buffer.concat([
+      PNG_SIGNATURE,
+      ihdrChunk(this.width, this.height, 8, 4),
+      pHYsChunk(this.dpi),
+      ...chunks,
+      pngChunk('IEND', Buffer.alloc(0)),
+    ]);
   }
 }

@@ -1,9 +1,9 @@
 import { readFileSync } from 'node:fs';
 import * as fontkit from 'fontkit';
 import sharp from 'sharp';
-import type { Bitmap } from '../../shared/imaging/image.ts';
-import { shapeMask, type BlankShape } from '../../shared/imaging/shape.ts';
-import type { Inscription } from '../../shared/schemas/checkout.ts';
+import type { Bitmap } from '#shared/imaging/image.ts';
+import { shapeMask, type BlankShape } from '#shared/imaging/shape.ts';
+import type { Inscription } from '#shared/schemas/checkout.ts';
 import { nunitoWoff } from '../lib/fonts.ts';
 
 /**
@@ -40,7 +40,10 @@ export function inscriptionPath(inscription: Inscription | null, width: number, 
         .map((glyph, g) => {
           const position = run.positions[g]!;
           // Font units have y upwards; the image's y goes down from the top.
-          const d = glyph.path.scale(scale, -scale).translate(x + position.xOffset * scale, baseline - position.yOffset * scale).toSVG();
+          const d = glyph.path
+            .scale(scale, -scale)
+            .translate(x + position.xOffset * scale, baseline - position.yOffset * scale)
+            .toSVG();
           x += position.xAdvance * scale;
           return d;
         })
@@ -55,11 +58,21 @@ export function inscriptionPath(inscription: Inscription | null, width: number, 
  * by band, with the same layout). The letters are laid out on the area's rectangle; on a round or
  * oval piece their ends may reach past the blank's shape, so coverage there is cut away.
  */
-export async function inscriptionCoverage(inscription: Inscription | null, width: number, height: number, shape: BlankShape, band = { top: 0, rows: height }): Promise<Uint8Array | null> {
+export async function inscriptionCoverage(
+  inscription: Inscription | null,
+  width: number,
+  height: number,
+  shape: BlankShape,
+  band = { top: 0, rows: height },
+): Promise<Uint8Array | null> {
   const path = inscriptionPath(inscription, width, height);
   if (!path) return null;
   const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="${width}" height="${band.rows}" viewBox="0 ${band.top} ${width} ${band.rows}"><path d="${path}" fill="#000"/></svg>`;
-  const { data } = await sharp(Buffer.from(svg), { density: 72, limitInputPixels: false }).ensureAlpha().extractChannel(3).raw().toBuffer({ resolveWithObject: true });
+  const { data } = await sharp(Buffer.from(svg), { density: 72, limitInputPixels: false })
+    .ensureAlpha()
+    .extractChannel(3)
+    .raw()
+    .toBuffer({ resolveWithObject: true });
   const coverage = new Uint8Array(data.buffer, data.byteOffset, data.length);
   const inShape = shapeMask(shape, width, height, band.top, band.rows);
   if (inShape) for (let i = 0; i < coverage.length; i++) if (!inShape[i]) coverage[i] = 0;

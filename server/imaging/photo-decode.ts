@@ -1,6 +1,6 @@
 import sharp, { type Metadata } from 'sharp';
-import { AppError } from '../../shared/errors.ts';
-import type { Rgba8 } from '../../shared/imaging/image.ts';
+import { AppError } from '#shared/errors.ts';
+import type { Rgba8 } from '#shared/imaging/image.ts';
 
 /**
  * Reading buyers' photos with sharp (libvips): type by magic bytes, a pixel limit against
@@ -17,8 +17,19 @@ export function sniffFormat(bytes: Uint8Array): PhotoFormat | undefined {
   const b = bytes;
   if (b[0] === 0xff && b[1] === 0xd8 && b[2] === 0xff) return 'jpeg';
   if (b[0] === 0x89 && b[1] === 0x50 && b[2] === 0x4e && b[3] === 0x47) return 'png';
-  if (b[0] === 0x52 && b[1] === 0x49 && b[2] === 0x46 && b[3] === 0x46 && b[8] === 0x57 && b[9] === 0x45 && b[10] === 0x42 && b[11] === 0x50) return 'webp';
-  if ((b[0] === 0x49 && b[1] === 0x49 && b[2] === 0x2a && b[3] === 0) || (b[0] === 0x4d && b[1] === 0x4d && b[2] === 0 && b[3] === 0x2a)) return 'tiff';
+  if (
+    b[0] === 0x52 &&
+    b[1] === 0x49 &&
+    b[2] === 0x46 &&
+    b[3] === 0x46 &&
+    b[8] === 0x57 &&
+    b[9] === 0x45 &&
+    b[10] === 0x42 &&
+    b[11] === 0x50
+  )
+    return 'webp';
+  if ((b[0] === 0x49 && b[1] === 0x49 && b[2] === 0x2a && b[3] === 0) || (b[0] === 0x4d && b[1] === 0x4d && b[2] === 0 && b[3] === 0x2a))
+    return 'tiff';
   // ISO base media file: 'ftyp' at 4, then the major brand (ISO/IEC 14496-12; HEIF brands in 23008-12).
   if (b[4] === 0x66 && b[5] === 0x74 && b[6] === 0x79 && b[7] === 0x70) {
     const brands = new TextDecoder('latin1').decode(b.subarray(8, Math.min(b.length, 64)));
@@ -29,11 +40,16 @@ export function sniffFormat(bytes: Uint8Array): PhotoFormat | undefined {
 }
 
 const UNSUPPORTED = 'This file is not a photo we can use. Please send a JPEG, PNG, WebP, TIFF or AVIF image.';
-const HEIC = 'This photo is in HEIC format, which we cannot read here. Choose "Most Compatible" (JPEG) in your phone’s camera settings, or upload it from our page, which converts it for you.';
+const HEIC =
+  'This photo is in HEIC format, which we cannot read here. Choose "Most Compatible" (JPEG) in your phone’s camera settings, or upload it from our page, which converts it for you.';
 
 export function toPhotoError(error: unknown): AppError {
   const message = (error as Error).message ?? '';
-  if (/pixel limit/i.test(message)) return new AppError('PAYLOAD_TOO_LARGE', `This photo has more pixels than we accept (${MAX_INPUT_PIXELS / 1_000_000} megapixels). Please send a smaller version.`);
+  if (/pixel limit/i.test(message))
+    return new AppError(
+      'PAYLOAD_TOO_LARGE',
+      `This photo has more pixels than we accept (${MAX_INPUT_PIXELS / 1_000_000} megapixels). Please send a smaller version.`,
+    );
   if (/unsupported image format/i.test(message)) return new AppError('UNSUPPORTED_MEDIA_TYPE', UNSUPPORTED);
   return new AppError('BAD_REQUEST', 'This photo seems damaged and could not be read. Please try another copy of it.', { cause: error });
 }
@@ -43,7 +59,10 @@ export type PhotoFacts = { format: PhotoFormat; width: number; height: number; h
 /** Checks a photo without decoding its pixels: type, damage, pixel limit, smallest size. */
 export async function inspectPhoto(
   bytes: Buffer,
-  { minSide = MIN_SIDE, tooSmall = (w: number, h: number) => `This image is only ${w} × ${h} pixels: too small to engrave. Please send the original photo.` } = {},
+  {
+    minSide = MIN_SIDE,
+    tooSmall = (w: number, h: number) => `This image is only ${w} × ${h} pixels: too small to engrave. Please send the original photo.`,
+  } = {},
 ): Promise<PhotoFacts> {
   const format = sniffFormat(bytes);
   if (format === 'heic') throw new AppError('UNSUPPORTED_MEDIA_TYPE', HEIC);
@@ -68,7 +87,8 @@ export async function decodePhoto(bytes: Buffer, { maxSide }: { maxSide?: number
   await inspectPhoto(bytes);
   try {
     let pipeline = sharp(bytes, { limitInputPixels: MAX_INPUT_PIXELS, failOn: 'error' }).rotate().toColourspace('srgb').ensureAlpha();
-    if (maxSide) pipeline = pipeline.resize({ width: maxSide, height: maxSide, fit: 'inside', withoutEnlargement: true, kernel: 'lanczos3' });
+    if (maxSide)
+      pipeline = pipeline.resize({ width: maxSide, height: maxSide, fit: 'inside', withoutEnlargement: true, kernel: 'lanczos3' });
     const { data, info } = await pipeline.raw().toBuffer({ resolveWithObject: true });
     return { width: info.width, height: info.height, data: new Uint8Array(data.buffer, data.byteOffset, data.length) };
   } catch (error) {

@@ -1,7 +1,7 @@
 import { availableParallelism } from 'node:os';
 import pLimit from 'p-limit';
 import sharp from 'sharp';
-import { LAPLACIAN_SIDE, photoQuality, type PhotoQuality } from '../../shared/imaging/photo-checks.ts';
+import { LAPLACIAN_SIDE, photoQuality, type PhotoQuality } from '#shared/imaging/photo-checks.ts';
 import { inspectPhoto, MAX_INPUT_PIXELS, toPhotoError, type PhotoFacts } from './photo-decode.ts';
 
 /** Long side of the designer's preview: enough for a sharp mock-up on a large screen. */
@@ -47,6 +47,10 @@ async function derive(bytes: Buffer): Promise<PhotoDerivatives> {
     facts,
     preview: { data: preview.data, width: preview.info.width, height: preview.info.height },
     thumb,
-    quality: photoQuality({ width: gray.info.width, height: gray.info.height, data: new Uint8Array(gray.data.buffer, gray.data.byteOffset, gray.data.length) }),
+    quality: photoQuality({
+      width: gray.info.width,
+      height: gray.info.height,
+      data: new Uint8Array(gray.data.buffer, gray.data.byteOffset, gray.data.length),
+    }),
   };
 }

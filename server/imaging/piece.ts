@@ -1,12 +1,12 @@
-import type { Bitmap, Rgba8 } from '../../shared/imaging/image.ts';
-import { cutoutMask, fullMask, hasCutout, type Mask } from '../../shared/imaging/mask.ts';
-import { prepareGray, renderBurn, type PrepSettings as PipelineSettings } from '../../shared/imaging/pipeline.ts';
-import type { BlankShape } from '../../shared/imaging/shape.ts';
-import { outputSize } from '../../shared/imaging/sizing.ts';
-import type { Levels } from '../../shared/imaging/tone.ts';
-import { gradeSettings, pipelineSettings, prepAtWidth } from '../../shared/orders/prep-pipeline.ts';
-import type { Inscription } from '../../shared/schemas/checkout.ts';
-import type { PrepSettings } from '../../shared/schemas/prep.ts';
+import type { Bitmap, Rgba8 } from '#shared/imaging/image.ts';
+import { cutoutMask, fullMask, hasCutout, type Mask } from '#shared/imaging/mask.ts';
+import { prepareGray, renderBurn, type PrepSettings as PipelineSettings } from '#shared/imaging/pipeline.ts';
+import type { BlankShape } from '#shared/imaging/shape.ts';
+import { outputSize } from '#shared/imaging/sizing.ts';
+import type { Levels } from '#shared/imaging/tone.ts';
+import { gradeSettings, pipelineSettings, prepAtWidth } from '#shared/orders/prep-pipeline.ts';
+import type { Inscription } from '#shared/schemas/checkout.ts';
+import type { PrepSettings } from '#shared/schemas/prep.ts';
 import { GrayAlphaPngWriter } from './grayscale-master.ts';
 import { burnInscription, inscribeMaster, inscriptionCoverage } from './inscription.ts';
 import { placeWindow, placeWindowInBands, windowPixels, type Placement, type WindowPixels } from './placement.ts';
@@ -49,7 +49,12 @@ const MASTER_BAND_ROWS = 512;
  * resolution and sampled up (a flood fill cannot run band by band), and the shape, the photo's
  * own edges and the lettering drawn exactly at the master's resolution.
  */
-export async function writePieceMaster(piece: Piece, prep: PrepSettings, burned: Burned, ppi: number): Promise<{ png: Buffer; width: number; height: number }> {
+export async function writePieceMaster(
+  piece: Piece,
+  prep: PrepSettings,
+  burned: Burned,
+  ppi: number,
+): Promise<{ png: Buffer; width: number; height: number }> {
   const size = outputSize(piece.area, ppi);
   const scaled = prepAtWidth(prep, piece.area.widthMm, size.width);
   const grade = gradeSettings(scaled, piece.shape);
@@ -58,7 +63,13 @@ export async function writePieceMaster(piece: Piece, prep: PrepSettings, burned:
   const writer = new GrayAlphaPngWriter(size.width, size.height, ppi);
   for await (const { top, from, pixels } of placeWindowInBands(burned.window, size, MASTER_BAND_ROWS, overlap)) {
     const startMask = cutout && sampleCutout(cutout, pixels, from, size);
-    const prepared = prepareGray(pixels, { ...grade, autoLevelsClip: undefined, levels: burned.levels, cutout: startMask && { startMask }, band: { top: from, fullHeight: size.height } });
+    const prepared = prepareGray(pixels, {
+      ...grade,
+      autoLevelsClip: undefined,
+      levels: burned.levels,
+      cutout: startMask && { startMask },
+      band: { top: from, fullHeight: size.height },
+    });
     const rows = Math.min(MASTER_BAND_ROWS, size.height - top);
     const keepFrom = (top - from) * size.width;
     const gray = new Uint8Array(rows * size.width);

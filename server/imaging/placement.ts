@@ -1,7 +1,7 @@
 import { availableParallelism } from 'node:os';
 import sharp, { type Sharp } from 'sharp';
-import type { Rgba8 } from '../../shared/imaging/image.ts';
-import { outputSize } from '../../shared/imaging/sizing.ts';
+import type { Rgba8 } from '#shared/imaging/image.ts';
+import { outputSize } from '#shared/imaging/sizing.ts';
 import { MAX_INPUT_PIXELS } from './photo-decode.ts';
 
 /**
@@ -32,8 +32,19 @@ async function rawStage(pipeline: Sharp): Promise<Sharp> {
  * A region of the upright photo, padded with transparency where it reaches past the edges, as
  * raw RGBA pixels.
  */
-async function region(upright: { data: Buffer; width: number; height: number }, left: number, top: number, width: number, height: number): Promise<Sharp> {
-  const pad = { left: Math.max(0, -left), top: Math.max(0, -top), right: Math.max(0, left + width - upright.width), bottom: Math.max(0, top + height - upright.height) };
+async function region(
+  upright: { data: Buffer; width: number; height: number },
+  left: number,
+  top: number,
+  width: number,
+  height: number,
+): Promise<Sharp> {
+  const pad = {
+    left: Math.max(0, -left),
+    top: Math.max(0, -top),
+    right: Math.max(0, left + width - upright.width),
+    bottom: Math.max(0, top + height - upright.height),
+  };
   let pipeline = sharp(upright.data, { raw: { width: upright.width, height: upright.height, channels: 4 }, limitInputPixels: false });
   if (pad.left || pad.top || pad.right || pad.bottom) pipeline = await rawStage(pipeline.extend({ ...pad, background: CLEAR }));
   return rawStage(pipeline.extract({ left: left + pad.left, top: top + pad.top, width, height }));
@@ -49,7 +60,7 @@ async function placedWindow(bytes: Buffer, placement: Placement): Promise<Sharp>
   const [cx, cy] = [crop.left + crop.width / 2, crop.top + crop.height / 2];
   const decoded = () => sharp(bytes, { limitInputPixels: MAX_INPUT_PIXELS }).rotate().toColourspace('srgb').ensureAlpha();
   const [left, top] = [Math.round(cx - w / 2), Math.round(cy - h / 2)];
-  const turn = ((((placement.rotation ?? 0) % 360) + 360) % 360);
+  const turn = (((placement.rotation ?? 0) % 360) + 360) % 360;
   // Stages hand over raw pixels: encoding them in between would be work for nothing.
   if (!turn && left >= 0 && top >= 0) {
     // The common case, a window inside the photo: cut it while decoding (sharp applies one
@@ -100,9 +111,18 @@ export async function windowPixels(bytes: Buffer, placement: Placement): Promise
 
 /** The window resampled to fill `size` with Lanczos-3 (a libvips pipeline of its own). */
 const resampled = (window: WindowPixels, size: { width: number; height: number }) =>
-  sharp(window.data, { raw: { width: window.width, height: window.height, channels: 4 }, limitInputPixels: false }).resize({ width: size.width, height: size.height, fit: 'fill', kernel: 'lanczos3' });
+  sharp(window.data, { raw: { width: window.width, height: window.height, channels: 4 }, limitInputPixels: false }).resize({
+    width: size.width,
+    height: size.height,
+    fit: 'fill',
+    kernel: 'lanczos3',
+  });
 
-const asRgba8 = (data: Buffer, width: number, height: number): Rgba8 => ({ width, height, data: new Uint8Array(data.buffer, data.byteOffset, data.length) });
+const asRgba8 = (data: Buffer, width: number, height: number): Rgba8 => ({
+  width,
+  height,
+  data: new Uint8Array(data.buffer, data.byteOffset, data.length),
+});
 
 /** The placed photo at the output's pixel size. */
 export async function placeWindow(window: WindowPixels, size: { width: number; height: number }): Promise<Rgba8> {
@@ -110,7 +130,12 @@ export async function placeWindow(window: WindowPixels, size: { width: number; h
   return asRgba8(data, info.width, info.height);
 }
 
-export async function placePhoto(bytes: Buffer, placement: Placement, area: { widthMm: number; heightMm: number }, linesPerInch: number): Promise<Rgba8> {
+export async function placePhoto(
+  bytes: Buffer,
+  placement: Placement,
+  area: { widthMm: number; heightMm: number },
+  linesPerInch: number,
+): Promise<Rgba8> {
   return placeWindow(await windowPixels(bytes, placement), outputSize(area, linesPerInch));
 }
 
@@ -120,7 +145,12 @@ export async function placePhoto(bytes: Buffer, placement: Placement, area: { wi
  * asked for, resamples each band from the window. Bands overlap by `overlap` rows on each side,
  * so neighbourhood steps (sharpening) see their neighbours.
  */
-export async function* placeWindowInBands(window: WindowPixels, size: { width: number; height: number }, bandRows: number, overlap: number): AsyncGenerator<{ top: number; from: number; pixels: Rgba8 }> {
+export async function* placeWindowInBands(
+  window: WindowPixels,
+  size: { width: number; height: number },
+  bandRows: number,
+  overlap: number,
+): AsyncGenerator<{ top: number; from: number; pixels: Rgba8 }> {
   const band = (top: number) => {
     const from = Math.max(0, top - overlap);
     const rows = Math.min(size.height, top + bandRows + overlap) - from;

@@ -1,5 +1,5 @@
 import { crc32, deflateSync } from 'node:zlib';
-import type { Bitmap } from '../../shared/imaging/image.ts';
+import type { Bitmap } from '#shared/imaging/image.ts';
 
 /**
  * The engrave file: a true 1-bit grayscale PNG (IHDR bit depth 1, colour type 0) with its
@@ -57,16 +57,30 @@ export function encodeBitmapPng(bitmap: Bitmap, dpi: number): Buffer {
 }
 
 /** Reads the header facts a test or an upload check needs: size, bit depth, colour type, dpi. */
-export function readPngFacts(png: Buffer): { width: number; height: number; bitDepth: number; colourType: number; pixelsPerMetre?: number; chunks: string[] } {
+export function readPngFacts(png: Buffer): {
+  width: number;
+  height: number;
+  bitDepth: number;
+  colourType: number;
+  pixelsPerMetre?: number;
+  chunks: string[];
+} {
   if (png.readUInt32BE(0) !== 0x89504e47) throw new Error('not a PNG');
   const chunks: string[] = [];
   let ppm: number | undefined;
-  for (let o = 8; o < png.length; ) {
+  for (let o = 8; o < png.length;) {
     const length = png.readUInt32BE(o);
     const type = png.toString('latin1', o + 4, o + 8);
     chunks.push(type);
     if (type === 'pHYs' && png[o + 16] === 1) ppm = png.readUInt32BE(o + 8);
     o += 12 + length;
   }
-  return { width: png.readUInt32BE(16), height: png.readUInt32BE(20), bitDepth: png[24]!, colourType: png[25]!, pixelsPerMetre: ppm, chunks };
+  return {
+    width: png.readUInt32BE(16),
+    height: png.readUInt32BE(20),
+    bitDepth: png[24]!,
+    colourType: png[25]!,
+    pixelsPerMetre: ppm,
+    chunks,
+  };
 }

@@ -1,6 +1,6 @@
 import pg from 'pg';
 import { RateLimiterPostgres, RateLimiterRes } from 'rate-limiter-flexible';
-import { AppError } from '../../shared/errors.ts';
+import { AppError } from '#shared/errors.ts';
 
 /**
  * Every rate limit of the app, kept in PostgreSQL (table `rate_limit`, created by a migration in
@@ -38,12 +38,23 @@ function waitWords(ms: number): string {
 
 /** The 429 for a spent limit: what happened, how long to wait in words and in Retry-After. */
 const tooMany = (message: string, msBeforeNext: number) =>
-  new AppError('RATE_LIMITED', `${message} Try again in ${waitWords(msBeforeNext)}.`, { retryAfterSeconds: Math.ceil(msBeforeNext / 1000) });
+  new AppError('RATE_LIMITED', `${message} Try again in ${waitWords(msBeforeNext)}.`, {
+    retryAfterSeconds: Math.ceil(msBeforeNext / 1000),
+  });
 
 export function createRateLimits(databaseUrl: string) {
   const pool = new pg.Pool({ connectionString: databaseUrl, max: 3 });
   const limiter = (keyPrefix: string, points: number, duration: number, blockDuration = 0) =>
-    new RateLimiterPostgres({ storeClient: pool, tableName: 'rate_limit', tableCreated: true, clearExpiredByTimeout: false, keyPrefix, points, duration, blockDuration });
+    new RateLimiterPostgres({
+      storeClient: pool,
+      tableName: 'rate_limit',
+      tableCreated: true,
+      clearExpiredByTimeout: false,
+      keyPrefix,
+      points,
+      duration,
+      blockDuration,
+    });
 
   /** Throws RATE_LIMITED with `message` when the limiter is spent for this key; consumes one point otherwise. */
   async function take(limit: RateLimiterPostgres, key: string, message: string): Promise<void> {
@@ -55,7 +66,9 @@ export function createRateLimits(databaseUrl: string) {
     }
   }
 
-  const rules = Object.fromEntries(Object.entries(RULES).map(([name, rule]) => [name, limiter(name, rule.points, rule.duration)])) as Record<RateRule, RateLimiterPostgres>;
+  const rules = Object.fromEntries(
+    Object.entries(RULES).map(([name, rule]) => [name, limiter(name, rule.points, rule.duration)]),
+  ) as Record<RateRule, RateLimiterPostgres>;
 
   const signInMessage = 'Too many sign-in attempts.';
   /** Wrong passwords per account: 5 in 15 minutes, then 15 minutes' wait. */

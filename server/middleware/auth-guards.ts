@@ -1,7 +1,7 @@
 import type { RequestHandler } from 'express';
-import { AppError } from '../../shared/errors.ts';
-import { can, type Permission } from '../../shared/permissions.ts';
-import { studioSlugSchema } from '../../shared/studio.ts';
+import { AppError } from '#shared/errors.ts';
+import { can, type Permission } from '#shared/permissions.ts';
+import { studioSlugSchema } from '#shared/studio.ts';
 import type { Auth } from '../auth/auth.ts';
 import type { Orm } from '../db/orm.ts';
 import { TENANT_FILTER } from '../db/tenant.ts';

@@ -1,7 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
 import { NotFoundError } from '@mikro-orm/core';
-import { AppError } from '../../shared/errors.ts';
+import { AppError } from '#shared/errors.ts';
 
 /** body-parser marks its own failures with a `type`; map the ones a client can cause. */
 function fromBodyParser(error: { type?: string; limit?: number }): AppError | undefined {
@@ -9,7 +9,10 @@ function fromBodyParser(error: { type?: string; limit?: number }): AppError | un
     case 'entity.parse.failed':
       return new AppError('BAD_REQUEST', 'The request body is not valid JSON.');
     case 'entity.too.large':
-      return new AppError('PAYLOAD_TOO_LARGE', `The request body is larger than the ${error.limit ?? ''} bytes allowed.`.replace('  ', ' '));
+      return new AppError(
+        'PAYLOAD_TOO_LARGE',
+        `The request body is larger than the ${error.limit ?? ''} bytes allowed.`.replace('  ', ' '),
+      );
     case 'encoding.unsupported':
     case 'charset.unsupported':
       return new AppError('UNSUPPORTED_MEDIA_TYPE', 'The request body uses an encoding the server does not accept.');
@@ -23,7 +26,10 @@ export function toAppError(error: unknown): AppError {
   if (error instanceof AppError) return error;
   if (error instanceof ZodError) {
     return new AppError('VALIDATION_FAILED', 'Some fields are not valid.', {
-      issues: error.issues.map((issue) => ({ path: issue.path.map((p) => (typeof p === 'symbol' ? String(p) : p)), message: issue.message })),
+      issues: error.issues.map((issue) => ({
+        path: issue.path.map((p) => (typeof p === 'symbol' ? String(p) : p)),
+        message: issue.message,
+      })),
     });
   }
   if (error instanceof NotFoundError) return new AppError('NOT_FOUND', 'Not found.');

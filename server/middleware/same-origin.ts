@@ -1,5 +1,5 @@
 import type { NextFunction, Request, Response } from 'express';
-import { AppError } from '../../shared/errors.ts';
+import { AppError } from '#shared/errors.ts';
 
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
@@ -17,7 +17,8 @@ export function sameOriginMutations(appUrl: string) {
     const origin = req.headers.origin;
     // Sec-Fetch-Site when the browser sends it; otherwise Origin ("null" is never ours).
     const crossSite = site ? site !== 'same-origin' && site !== 'none' : origin !== undefined && origin !== ownOrigin;
-    if (crossSite) return next(new AppError('FORBIDDEN', 'This request came from another site and was refused. Open Etchwell itself and try again.'));
+    if (crossSite)
+      return next(new AppError('FORBIDDEN', 'This request came from another site and was refused. Open Etchwell itself and try again.'));
     next();
   };
 }

@@ -10,7 +10,7 @@ import { log } from './stack/run.ts';
 import { onShutdown } from './stack/signals.ts';
 import { projectDir, startStack } from './stack/stack.ts';
 import { startAppProcess } from './stack/app-process.ts';
-import { formatLoadTable, prepareStorefrontLoad, runLoad, startBareExpress, type LoadResult } from '../../tests/bench/load-bench.ts';
+import { formatLoadTable, prepareStorefrontLoad, runLoad, startBareExpress, type LoadResult } from '#tests/bench/load-bench.ts';
 
 /**
  * `npm run bench:load [-- --duration 60 --connections 200]`: `npm start`'s stack (PostgreSQL,
@@ -51,7 +51,7 @@ async function settled(databaseUrl: string): Promise<void> {
   }
 }
 
-let failed = false;
+let failed: boolean;
 try {
   // The app as `npm start` runs it, with request lines off: writing 10,000 lines a second to this
   // terminal would measure the terminal.
@@ -72,10 +72,13 @@ try {
   }
   // Accepts still queued when the last run stopped are finished before the app is stopped.
   await settled(stack.env.DATABASE_URL!);
-  console.log(`\nLoad run on ${cpus().length} × ${cpus()[0]?.model ?? 'CPU'}, ${(totalmem() / 2 ** 30).toFixed(0)} GiB, Node ${process.version}`);
+  console.log(
+    `\nLoad run on ${cpus().length} × ${cpus()[0]?.model ?? 'CPU'}, ${(totalmem() / 2 ** 30).toFixed(0)} GiB, Node ${process.version}`,
+  );
   console.log(formatLoadTable(results, options));
   if (load.uploadsLeft() < 0) console.log(`\nThe uploaded photos ran out (${-load.uploadsLeft()} accepts reused one): raise the pool.`);
-  for (const r of results.filter((r) => r.failures > 0)) console.log(`\n${r.name}: ${r.non2xx} answers outside 2xx, ${r.timeouts} timeouts, ${r.errors} connection errors`);
+  for (const r of results.filter((r) => r.failures > 0))
+    console.log(`\n${r.name}: ${r.non2xx} answers outside 2xx, ${r.timeouts} timeouts, ${r.errors} connection errors`);
   failed = results.some((r) => r.failures > 0);
 } catch (error) {
   log(`load run failed: ${(error as Error).message}`);

@@ -1,8 +1,8 @@
 import { join } from 'node:path';
 import { ensureReferenceTools } from './stack/reference-tools.ts';
 import { projectDir } from './stack/stack.ts';
-import { runImagingBench } from '../../tests/bench/imaging-bench.ts';
-import { measureStorefrontFirstLoad } from '../../tests/bench/bundle-bench.ts';
+import { runImagingBench } from '#tests/bench/imaging-bench.ts';
+import { measureStorefrontFirstLoad } from '#tests/bench/bundle-bench.ts';
 
 /** `npm run bench`: installs the reference programs when missing, then prints the tables. */
 await ensureReferenceTools({ imagemagick: true, chromium: true });

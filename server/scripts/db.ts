@@ -14,7 +14,9 @@ import { backupDatabase, restoreDatabase } from '../db/backup.ts';
 const [command, fileArgument] = process.argv.slice(2);
 const env = loadEnv();
 if (command === 'backup' || command === 'restore') {
-  const file = resolve(fileArgument ?? (command === 'backup' ? `.data/backups/etchwell-${new Date().toISOString().replace(/[:.]/g, '-')}.dump` : ''));
+  const file = resolve(
+    fileArgument ?? (command === 'backup' ? `.data/backups/etchwell-${new Date().toISOString().replace(/[:.]/g, '-')}.dump` : ''),
+  );
   if (command === 'restore' && !fileArgument) {
     console.error('name the backup to restore: npm run db:restore -- .data/backups/<file>.dump');
     process.exit(2);

@@ -48,7 +48,10 @@ try {
       `  Demo sign-ins (${url}/sign-in), password ${DEMO_PASSWORD}:`,
       ...demoPeople
         .filter((p) => p.password)
-        .map((p) => `    ${p.email.padEnd(28)} ${p.platformAdmin ? 'platform admin' : p.memberships.map((m) => `${m.role} of ${m.studio}`).join(', ')}`),
+        .map(
+          (p) =>
+            `    ${p.email.padEnd(28)} ${p.platformAdmin ? 'platform admin' : p.memberships.map((m) => `${m.role} of ${m.studio}`).join(', ')}`,
+        ),
       ...demoPeople
         .filter((p) => !p.password)
         .map((p) => `    ${p.email.padEnd(28)} buyer: sign in by e-mailed link, read it in the mail inbox`),

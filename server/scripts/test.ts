@@ -4,13 +4,27 @@ import { projectDir, startStack } from './stack/stack.ts';
 import { ensureReferenceTools } from './stack/reference-tools.ts';
 
 /**
- * `npm test`: typecheck, then the test stack (its own PostgreSQL cluster and ports, beside any
+ * `npm test`: the house checks (formatter, linter with the import boundaries, the locked
+ * packages' install-script decisions), the typecheck, then the test stack (its own PostgreSQL cluster and ports, beside any
  * running `npm start`), the client build the browser tests load, Debian's Chromium when missing,
  * and vitest over the unit, integration and browser projects. Everything started is stopped,
  * also after a failure; the exit code is the first failure's.
  */
 const node = process.execPath;
 const bin = (name: string) => `node_modules/${name}`;
+
+const checks: Array<[string, string[]]> = [
+  ['formatting (prettier --check)', [bin('prettier/bin/prettier.cjs'), '--check', '--log-level', 'warn', '.']],
+  ['lint and import boundaries (eslint)', [bin('eslint/bin/eslint.js'), '--max-warnings', '0', '.']],
+];
+for (const [what, args] of checks) {
+  log(what);
+  const code = await runAttached(node, args, { cwd: projectDir });
+  if (code !== 0) {
+    log(`${what} failed: \`npx prettier --write .\` fixes formatting; the linter names each rule it applied`);
+    process.exit(code);
+  }
+}
 
 log('typecheck: server, shared, client, browser tests');
 for (const project of ['tsconfig.json', 'shared', 'src', 'tests/browser']) {

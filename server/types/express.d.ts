@@ -1,6 +1,6 @@
 import type { User } from '../features/accounts/user.entity.ts';
 import type { Studio } from '../features/studios/studio.entity.ts';
-import type { Role } from '../../shared/permissions.ts';
+import type { Role } from '#shared/permissions.ts';
 
 declare global {
   namespace Express {

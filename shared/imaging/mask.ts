@@ -71,7 +71,8 @@ export function cutoutMask(start: Mask, cutout: { strokes?: Stroke[]; featherRad
 }
 
 /** Whether a cut-out changes anything beyond the photo's own alpha: a start of its own or strokes. */
-export const hasCutout = (cutout: { strokes?: Stroke[]; startMask?: Mask } | undefined): boolean => Boolean(cutout?.startMask || cutout?.strokes?.length);
+export const hasCutout = (cutout: { strokes?: Stroke[]; startMask?: Mask } | undefined): boolean =>
+  Boolean(cutout?.startMask || cutout?.strokes?.length);
 
 /**
  * A starting mask for a photo on a plain background: flood fill from every border pixel through

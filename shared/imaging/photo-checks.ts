@@ -25,7 +25,10 @@ export function verdictFor(ppi: number): Verdict {
 }
 
 /** The largest size of the same proportions at which the crop still reaches `FAIR_PPI`, in mm. */
-export function largestFairSize(crop: { width: number; height: number }, area: { widthMm: number; heightMm: number }): { widthMm: number; heightMm: number } {
+export function largestFairSize(
+  crop: { width: number; height: number },
+  area: { widthMm: number; heightMm: number },
+): { widthMm: number; heightMm: number } {
   const scale = Math.min(1, effectivePpi(crop, area) / FAIR_PPI);
   return { widthMm: area.widthMm * scale, heightMm: area.heightMm * scale };
 }
@@ -34,7 +37,10 @@ export function largestFairSize(crop: { width: number; height: number }, area: {
  * Of the sizes offered, the largest whose verdict is at least fair for this crop; undefined when
  * none is. Sizes are compared by area.
  */
-export function largestFairOffered<T extends { widthMm: number; heightMm: number }>(crop: { width: number; height: number }, sizes: T[]): T | undefined {
+export function largestFairOffered<T extends { widthMm: number; heightMm: number }>(
+  crop: { width: number; height: number },
+  sizes: T[],
+): T | undefined {
   return sizes
     .filter((s) => verdictFor(effectivePpi(crop, s)) !== 'too-low')
     .sort((a, b) => b.widthMm * b.heightMm - a.widthMm * a.heightMm)[0];

@@ -72,7 +72,11 @@ export function shapeMask(shape: BlankShape, width: number, height: number, top 
  * Whether a w × h engraving area, centred on the blank, lies inside its outline (outer width ×
  * height): all four corners must be inside, which for these convex shapes means the whole area.
  */
-export function areaFitsShape(shape: BlankShape, outer: { widthMm: number; heightMm: number }, area: { widthMm: number; heightMm: number }): boolean {
+export function areaFitsShape(
+  shape: BlankShape,
+  outer: { widthMm: number; heightMm: number },
+  area: { widthMm: number; heightMm: number },
+): boolean {
   const { widthMm: W, heightMm: H } = outer;
   const left = (W - area.widthMm) / 2;
   const top = (H - area.heightMm) / 2;
@@ -94,7 +98,11 @@ const clampNear = (v: number, centre: number, slack: number) => (v < centre ? v 
  * of a millimetre (what a person types). Found by bisection on the scale, since `areaFitsShape`
  * is monotone in it.
  */
-export function largestFittingArea(shape: BlankShape, outer: { widthMm: number; heightMm: number }, aspect: { widthMm: number; heightMm: number }): { widthMm: number; heightMm: number } {
+export function largestFittingArea(
+  shape: BlankShape,
+  outer: { widthMm: number; heightMm: number },
+  aspect: { widthMm: number; heightMm: number },
+): { widthMm: number; heightMm: number } {
   const unit = Math.max(aspect.widthMm, aspect.heightMm);
   const [aw, ah] = [aspect.widthMm / unit, aspect.heightMm / unit];
   let lo = 0;
@@ -111,7 +119,10 @@ export function largestFittingArea(shape: BlankShape, outer: { widthMm: number; 
 const SHAPE_WORDS: Record<BlankShape, string> = { rectangle: 'rectangular', 'rounded-rectangle': 'rounded', oval: 'oval', circle: 'round' };
 
 /** A size's area against its blank's outline: whether it fits, and the largest that would. */
-export function sizeFit(shape: BlankShape, size: { outerWidthMm: number; outerHeightMm: number; areaWidthMm: number; areaHeightMm: number }): { fits: boolean; largest: { widthMm: number; heightMm: number } } {
+export function sizeFit(
+  shape: BlankShape,
+  size: { outerWidthMm: number; outerHeightMm: number; areaWidthMm: number; areaHeightMm: number },
+): { fits: boolean; largest: { widthMm: number; heightMm: number } } {
   const outer = { widthMm: size.outerWidthMm, heightMm: size.outerHeightMm };
   const area = { widthMm: size.areaWidthMm, heightMm: size.areaHeightMm };
   return { fits: areaFitsShape(shape, outer, area), largest: largestFittingArea(shape, outer, area) };
@@ -121,6 +132,12 @@ export function sizeFit(shape: BlankShape, size: { outerWidthMm: number; outerHe
  * Why an area does not fit, in words, with the largest that does; `format` writes a width ×
  * height as typed, `formatDown` rounded down (so the size offered really fits).
  */
-export function sizeFitMessage(shape: BlankShape, size: { areaWidthMm: number; areaHeightMm: number }, largest: { widthMm: number; heightMm: number }, format: (widthMm: number, heightMm: number) => string, formatDown = format): string {
+export function sizeFitMessage(
+  shape: BlankShape,
+  size: { areaWidthMm: number; areaHeightMm: number },
+  largest: { widthMm: number; heightMm: number },
+  format: (widthMm: number, heightMm: number) => string,
+  formatDown = format,
+): string {
   return `A ${format(size.areaWidthMm, size.areaHeightMm)} engraving area reaches past the edge of this ${SHAPE_WORDS[shape]} blank. The largest area of these proportions that fits is ${formatDown(largest.widthMm, largest.heightMm)}.`;
 }

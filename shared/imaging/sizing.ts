@@ -20,7 +20,10 @@ export function outputSize(area: { widthMm: number; heightMm: number }, linesPer
  * The engraving area turned as the buyer chose: a size's area is stored as entered, either way
  * round, and an order item is portrait or landscape.
  */
-export function orientedArea(size: { areaWidthMm: number; areaHeightMm: number }, orientation: 'portrait' | 'landscape'): { widthMm: number; heightMm: number } {
+export function orientedArea(
+  size: { areaWidthMm: number; areaHeightMm: number },
+  orientation: 'portrait' | 'landscape',
+): { widthMm: number; heightMm: number } {
   const [short, long] = [Math.min(size.areaWidthMm, size.areaHeightMm), Math.max(size.areaWidthMm, size.areaHeightMm)];
   return orientation === 'portrait' ? { widthMm: short, heightMm: long } : { widthMm: long, heightMm: short };
 }

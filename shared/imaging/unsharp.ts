@@ -16,7 +16,13 @@ export type UnsharpOptions = {
 };
 
 /** The formula on its own, given the blurred image: results are clamped to 0–255. Writes into `into` (a new image by default). */
-export function applyUnsharp(original: GrayF, blurred: GrayF, amount: number, threshold: number, into: Float32Array = new Float32Array(original.data.length)): GrayF {
+export function applyUnsharp(
+  original: GrayF,
+  blurred: GrayF,
+  amount: number,
+  threshold: number,
+  into: Float32Array = new Float32Array(original.data.length),
+): GrayF {
   const k = amount / 100;
   const out = into;
   for (let i = 0; i < out.length; i++) {

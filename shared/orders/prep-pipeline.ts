@@ -16,7 +16,20 @@ export const AUTO_LEVELS_CLIP = 0.005;
  * (common practice, no source).
  */
 export function recipePrep(look: { tone: 'positive' | 'negative'; halftoneMethod: HalftoneMethod; linesPerInch: number }): PrepSettings {
-  return { brightness: 0, contrast: 10, gamma: 1, autoLevels: true, sharpenAmount: 150, sharpenRadius: 2, sharpenThreshold: 2, halftoneMethod: look.halftoneMethod, linesPerInch: look.linesPerInch, negative: look.tone === 'negative', featherRadius: 4, cutout: NO_CUTOUT };
+  return {
+    brightness: 0,
+    contrast: 10,
+    gamma: 1,
+    autoLevels: true,
+    sharpenAmount: 150,
+    sharpenRadius: 2,
+    sharpenThreshold: 2,
+    halftoneMethod: look.halftoneMethod,
+    linesPerInch: look.linesPerInch,
+    negative: look.tone === 'negative',
+    featherRadius: 4,
+    cutout: NO_CUTOUT,
+  };
 }
 
 /**
@@ -33,7 +46,11 @@ export function prepAtWidth(prep: PrepSettings, areaWidthMm: number, widthPx: nu
 
 /** Brush strokes from the area's 0–1 coordinates to an image's pixels. */
 export function strokesInPixels(cutout: Cutout, width: number, height: number): Stroke[] {
-  return cutout.strokes.map((s) => ({ mode: s.mode, width: s.size * width, points: s.points.map(([x, y]) => [x * width, y * height] as [number, number]) }));
+  return cutout.strokes.map((s) => ({
+    mode: s.mode,
+    width: s.size * width,
+    points: s.points.map(([x, y]) => [x * width, y * height] as [number, number]),
+  }));
 }
 
 /**
@@ -70,7 +87,11 @@ export function gradeSettings(prep: PrepSettings, shape: BlankShape): Omit<Pipel
 export function pipelineSettings(prep: PrepSettings, photo: Rgba8, shape: BlankShape): PipelineSettings {
   return {
     ...gradeSettings(prep, shape),
-    cutout: { strokes: strokesInPixels(prep.cutout, photo.width, photo.height), featherRadius: prep.featherRadius, startMask: startMask(photo, prep.cutout) },
+    cutout: {
+      strokes: strokesInPixels(prep.cutout, photo.width, photo.height),
+      featherRadius: prep.featherRadius,
+      startMask: startMask(photo, prep.cutout),
+    },
     halftone: { method: prep.halftoneMethod, pixelsPerInch: prep.linesPerInch },
   };
 }

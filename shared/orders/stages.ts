@@ -112,5 +112,8 @@ export const canMove = <S extends string>(transitions: Record<S, readonly S[]>, 
 export function assertMove<S extends string>(what: string, transitions: Record<S, readonly S[]>, from: S, to: S): void {
   if (canMove(transitions, from, to)) return;
   const allowed = transitions[from];
-  throw new AppError('CONFLICT', `This ${what} is ${from.replaceAll('_', ' ')} and cannot become ${to.replaceAll('_', ' ')}. ${allowed.length ? `It can become: ${allowed.map((s) => s.replaceAll('_', ' ')).join(', ')}.` : 'It cannot change any more.'}`);
+  throw new AppError(
+    'CONFLICT',
+    `This ${what} is ${from.replaceAll('_', ' ')} and cannot become ${to.replaceAll('_', ' ')}. ${allowed.length ? `It can become: ${allowed.map((s) => s.replaceAll('_', ' ')).join(', ')}.` : 'It cannot change any more.'}`,
+  );
 }

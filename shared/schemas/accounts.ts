@@ -9,10 +9,7 @@ export const emailSchema = z
   .pipe(z.email('Enter a valid e-mail address.'))
   .transform((email) => email.toLowerCase());
 
-export const passwordSchema = z
-  .string()
-  .min(10, 'Use at least 10 characters.')
-  .max(200, 'Use at most 200 characters.');
+export const passwordSchema = z.string().min(10, 'Use at least 10 characters.').max(200, 'Use at most 200 characters.');
 
 export const personNameSchema = z.string().trim().min(1, 'Enter a name.').max(120, 'Use at most 120 characters.');
 

@@ -34,7 +34,10 @@ const auditGroupSchema = z.enum(Object.keys(AUDIT_GROUPS) as [AuditGroup, ...Aud
 export const auditListQuerySchema = z.object({
   group: auditGroupSchema.optional(),
   /** The `next` of the previous page: entries older than it. */
-  before: z.string().regex(/^\d{4}-\d{2}-\d{2}T[\d:.]+Z_[0-9a-f-]{36}$/, 'Not a page marker from this list.').optional(),
+  before: z
+    .string()
+    .regex(/^\d{4}-\d{2}-\d{2}T[\d:.]+Z_[0-9a-f-]{36}$/, 'Not a page marker from this list.')
+    .optional(),
   limit: z.coerce.number().int().min(1).max(100).default(50),
 });
 export type AuditListQuery = z.input<typeof auditListQuerySchema>;

@@ -12,7 +12,18 @@ export const laserKindSchema = z.enum(LASER_KINDS);
 export type LaserKind = z.infer<typeof laserKindSchema>;
 export const LASER_KIND_LABELS: Record<LaserKind, string> = { co2: 'CO2', fibre: 'Fibre', diode: 'Diode' };
 
-export const MATERIAL_FAMILIES = ['glass', 'stone', 'wood', 'metal', 'acrylic', 'leather', 'cork', 'plastic', 'composite', 'other'] as const;
+export const MATERIAL_FAMILIES = [
+  'glass',
+  'stone',
+  'wood',
+  'metal',
+  'acrylic',
+  'leather',
+  'cork',
+  'plastic',
+  'composite',
+  'other',
+] as const;
 export const TONES = ['positive', 'negative'] as const;
 export const toneSchema = z.enum(TONES);
 export type Tone = z.infer<typeof toneSchema>;
@@ -36,8 +47,14 @@ const materialFields = z.object({
   forbiddenReason: text(300).default(''),
 });
 export const materialInputSchema = materialFields
-  .refine((m) => m.linesPerInchMin <= m.linesPerInchMax, { path: ['linesPerInchMax'], message: 'The highest density must not be below the lowest.' })
-  .refine((m) => m.forbiddenOn.length === 0 || m.forbiddenReason.length > 0, { path: ['forbiddenReason'], message: 'Say why it must not be engraved.' });
+  .refine((m) => m.linesPerInchMin <= m.linesPerInchMax, {
+    path: ['linesPerInchMax'],
+    message: 'The highest density must not be below the lowest.',
+  })
+  .refine((m) => m.forbiddenOn.length === 0 || m.forbiddenReason.length > 0, {
+    path: ['forbiddenReason'],
+    message: 'Say why it must not be engraved.',
+  });
 export type MaterialInput = z.infer<typeof materialInputSchema>;
 export const materialSchema = materialFields.extend({ id, blankCount: z.number().int() });
 export type MaterialView = z.infer<typeof materialSchema>;
@@ -65,7 +82,10 @@ export const halftoneMethodSchema = z.enum(Object.keys(HALFTONE_METHODS) as [Hal
 const recipeFields = z.object({
   materialId: z.uuid('Choose a material.'),
   machineId: z.uuid('Choose a machine.'),
-  linesPerInch: num('Enter the line density.').int('Use a whole number.').min(100, 'At least 100 lines per inch.').max(1200, 'At most 1200 lines per inch.'),
+  linesPerInch: num('Enter the line density.')
+    .int('Use a whole number.')
+    .min(100, 'At least 100 lines per inch.')
+    .max(1200, 'At most 1200 lines per inch.'),
   halftoneMethod: halftoneMethodSchema,
   tone: toneSchema,
   speed: num('Enter the speed.').positive('Enter the speed.'),
@@ -74,7 +94,10 @@ const recipeFields = z.object({
   passes: num('Enter the number of passes.').int('Use a whole number.').min(1, 'At least one pass.').max(20, 'At most 20 passes.'),
   notes: text(1000).default(''),
 });
-export const recipeInputSchema = recipeFields.refine((r) => r.powerMinPercent <= r.powerMaxPercent, { path: ['powerMaxPercent'], message: 'The maximum power must not be below the minimum.' });
+export const recipeInputSchema = recipeFields.refine((r) => r.powerMinPercent <= r.powerMaxPercent, {
+  path: ['powerMaxPercent'],
+  message: 'The maximum power must not be below the minimum.',
+});
 export type RecipeInput = z.infer<typeof recipeInputSchema>;
 export const recipeSchema = recipeFields.extend({
   id,
@@ -108,7 +131,10 @@ const sizeFields = z.object({
   areaWidthMm: length('Enter the engraving width.'),
   areaHeightMm: length('Enter the engraving height.'),
   orientation: z.enum(ORIENTATIONS),
-  priceMinor: num('Enter a price.').int('Prices are whole minor units (cents).').min(0, 'A price cannot be negative.').max(100_000_000, 'That price is too high.'),
+  priceMinor: num('Enter a price.')
+    .int('Prices are whole minor units (cents).')
+    .min(0, 'A price cannot be negative.')
+    .max(100_000_000, 'That price is too high.'),
   stock: num('Enter the stock, or choose unlimited.').int('Use a whole number.').min(0, 'Stock cannot be negative.').nullable(),
   sku: text(60).default(''),
 });

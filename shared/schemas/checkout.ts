@@ -68,7 +68,10 @@ export const checkoutInputSchema = z.object({
     email: z.string().trim().toLowerCase().pipe(z.email('Enter a valid e-mail address.')),
     name: text(120).min(1, 'Enter your name.'),
   }),
-  delivery: z.discriminatedUnion('method', [z.object({ method: z.literal('ship'), rateId: z.uuid('Choose a shipping method.'), address: addressSchema }), z.object({ method: z.literal('pickup') })]),
+  delivery: z.discriminatedUnion('method', [
+    z.object({ method: z.literal('ship'), rateId: z.uuid('Choose a shipping method.'), address: addressSchema }),
+    z.object({ method: z.literal('pickup') }),
+  ]),
 });
 export type CheckoutInput = z.input<typeof checkoutInputSchema>;
 
@@ -88,7 +91,13 @@ export const burnLookSchema = z.object({
 export type BurnLook = z.infer<typeof burnLookSchema>;
 
 /** How an item left the studio: by carrier with a tracking number, or collected. */
-export const handoverSchema = z.object({ method: z.enum(['ship', 'pickup']), carrier: z.string().nullable(), trackingNumber: z.string().nullable(), at: z.string(), by: z.string() });
+export const handoverSchema = z.object({
+  method: z.enum(['ship', 'pickup']),
+  carrier: z.string().nullable(),
+  trackingNumber: z.string().nullable(),
+  at: z.string(),
+  by: z.string(),
+});
 export type Handover = z.infer<typeof handoverSchema>;
 
 export const orderViewSchema = z.object({
@@ -115,7 +124,14 @@ export const orderViewSchema = z.object({
       materialName: z.string(),
       quantity: z.number().int(),
       unitPrice: z.string(),
-      photo: z.object({ id: z.uuid(), previewUrl: z.string(), previewWidth: z.number(), previewHeight: z.number(), width: z.number(), height: z.number() }),
+      photo: z.object({
+        id: z.uuid(),
+        previewUrl: z.string(),
+        previewWidth: z.number(),
+        previewHeight: z.number(),
+        width: z.number(),
+        height: z.number(),
+      }),
       placement: placementSchema,
       orientation: z.enum(['portrait', 'landscape']),
       inscription: inscriptionSchema.nullable(),

@@ -14,7 +14,10 @@ import { halftoneMethodSchema } from './catalog.ts';
 export const cutoutStrokeSchema = z.object({
   mode: z.enum(['keep', 'remove']),
   size: z.number().min(0.002, 'The brush is too small.').max(0.5, 'The brush is too large.'),
-  points: z.array(z.tuple([z.number().min(-0.5).max(1.5), z.number().min(-0.5).max(1.5)])).min(1).max(4000, 'A stroke holds at most 4000 points.'),
+  points: z
+    .array(z.tuple([z.number().min(-0.5).max(1.5), z.number().min(-0.5).max(1.5)]))
+    .min(1)
+    .max(4000, 'A stroke holds at most 4000 points.'),
 });
 export type CutoutStroke = z.infer<typeof cutoutStrokeSchema>;
 
@@ -45,12 +48,20 @@ export const prepSettingsSchema = z.object({
 export type PrepSettings = z.infer<typeof prepSettingsSchema>;
 export type PrepSettingsInput = z.input<typeof prepSettingsSchema>;
 
-export const prepVersionSchema = z.object({ version: z.number().int(), settings: prepSettingsSchema, savedBy: z.string(), savedAt: z.string() });
+export const prepVersionSchema = z.object({
+  version: z.number().int(),
+  settings: prepSettingsSchema,
+  savedBy: z.string(),
+  savedAt: z.string(),
+});
 export type PrepVersion = z.infer<typeof prepVersionSchema>;
 
 export const proofDecisionSchema = z.discriminatedUnion('decision', [
   z.object({ decision: z.literal('approve') }),
-  z.object({ decision: z.literal('changes'), message: z.string().trim().min(1, 'Say what you would like changed.').max(1000, 'Use at most 1000 characters.') }),
+  z.object({
+    decision: z.literal('changes'),
+    message: z.string().trim().min(1, 'Say what you would like changed.').max(1000, 'Use at most 1000 characters.'),
+  }),
 ]);
 export type ProofDecision = z.infer<typeof proofDecisionSchema>;
 

@@ -7,10 +7,22 @@ export type RenderStatus = (typeof RENDER_STATUSES)[number];
 
 export const RENDER_FILE_KINDS = ['engrave', 'master', 'sheet'] as const;
 export type RenderFileKind = (typeof RENDER_FILE_KINDS)[number];
-export const RENDER_FILE_LABELS: Record<RenderFileKind, string> = { engrave: 'Engrave file', master: 'Grayscale master', sheet: 'Job sheet' };
+export const RENDER_FILE_LABELS: Record<RenderFileKind, string> = {
+  engrave: 'Engrave file',
+  master: 'Grayscale master',
+  sheet: 'Job sheet',
+};
 
-const fileSchema = z.object({ key: z.string(), bytes: z.number().int(), contentType: z.string(), width: z.number().int().optional(), height: z.number().int().optional() });
-export type RenderFiles = Record<RenderFileKind, z.infer<typeof fileSchema>>;
+/** One stored file of a render. */
+export const renderFileSchema = z.object({
+  key: z.string(),
+  bytes: z.number().int(),
+  contentType: z.string(),
+  width: z.number().int().optional(),
+  height: z.number().int().optional(),
+});
+export type RenderFile = z.infer<typeof renderFileSchema>;
+export type RenderFiles = Record<RenderFileKind, RenderFile>;
 
 /** A batch's machine and settings, copied when it starts so later catalog edits do not change it. */
 export type BatchMachine = {
@@ -25,7 +37,10 @@ export type BatchMachine = {
 };
 
 export const createBatchInputSchema = z.object({
-  itemIds: z.array(z.uuid('Choose items from the list.'), { error: 'Choose the items to burn together.' }).min(1, 'Choose at least one item.').max(50, 'A batch holds at most 50 items.'),
+  itemIds: z
+    .array(z.uuid('Choose items from the list.'), { error: 'Choose the items to burn together.' })
+    .min(1, 'Choose at least one item.')
+    .max(50, 'A batch holds at most 50 items.'),
 });
 export type CreateBatchInput = z.infer<typeof createBatchInputSchema>;
 
@@ -39,7 +54,15 @@ export const renderViewSchema = z.object({
   /** Running, but no word from the worker for longer than a render may take: it can be retried. */
   stalled: z.boolean(),
   prepVersion: z.number().int(),
-  files: z.array(z.object({ kind: z.enum(RENDER_FILE_KINDS), label: z.string(), bytes: z.number().int(), width: z.number().int().optional(), height: z.number().int().optional() })),
+  files: z.array(
+    z.object({
+      kind: z.enum(RENDER_FILE_KINDS),
+      label: z.string(),
+      bytes: z.number().int(),
+      width: z.number().int().optional(),
+      height: z.number().int().optional(),
+    }),
+  ),
   finishedAt: z.string().nullable(),
 });
 export type RenderView = z.infer<typeof renderViewSchema>;
@@ -95,15 +118,24 @@ export type BatchView = z.infer<typeof batchViewSchema>;
 export const downloadLinkSchema = z.object({ url: z.string(), expiresInSeconds: z.number().int(), fileName: z.string() });
 
 /** Handing items over: by carrier with a tracking number, or at the studio. */
-export const shipInputSchema = z.discriminatedUnion('method', [
-  z.object({
-    method: z.literal('ship'),
-    itemIds: z.array(z.uuid()).min(1, 'Choose the items in the parcel.').max(100),
-    carrier: z.string().trim().min(1, 'Name the carrier.').max(60, 'Use at most 60 characters.'),
-    trackingNumber: z.string().trim().min(3, 'Enter the tracking number.').max(60, 'Use at most 60 characters.').regex(/^[A-Za-z0-9 -]+$/, 'Use letters, digits, spaces and dashes only.'),
-  }),
-  z.object({ method: z.literal('pickup'), itemIds: z.array(z.uuid()).min(1, 'Choose the items handed over.').max(100) }),
-], { error: 'Choose shipped or picked up.' });
+export const shipInputSchema = z.discriminatedUnion(
+  'method',
+  [
+    z.object({
+      method: z.literal('ship'),
+      itemIds: z.array(z.uuid()).min(1, 'Choose the items in the parcel.').max(100),
+      carrier: z.string().trim().min(1, 'Name the carrier.').max(60, 'Use at most 60 characters.'),
+      trackingNumber: z
+        .string()
+        .trim()
+        .min(3, 'Enter the tracking number.')
+        .max(60, 'Use at most 60 characters.')
+        .regex(/^[A-Za-z0-9 -]+$/, 'Use letters, digits, spaces and dashes only.'),
+    }),
+    z.object({ method: z.literal('pickup'), itemIds: z.array(z.uuid()).min(1, 'Choose the items handed over.').max(100) }),
+  ],
+  { error: 'Choose shipped or picked up.' },
+);
 export type ShipInput = z.infer<typeof shipInputSchema>;
 
 export const createdBatchSchema = z.object({ id: z.uuid(), number: z.number().int() });

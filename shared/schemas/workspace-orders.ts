@@ -37,7 +37,12 @@ export const orderListSchema = z.object({
 });
 export type OrderList = z.infer<typeof orderListSchema>;
 
-export const REVIEW_REASONS = { low_resolution: 'Resolution too low for the size', blurry: 'Blurred or out of focus', cut_off: 'The subject is cut off', other: 'Something else' } as const;
+export const REVIEW_REASONS = {
+  low_resolution: 'Resolution too low for the size',
+  blurry: 'Blurred or out of focus',
+  cut_off: 'The subject is cut off',
+  other: 'Something else',
+} as const;
 export type ReviewReason = keyof typeof REVIEW_REASONS;
 
 export const askNewPhotoInputSchema = z.object({
@@ -80,20 +85,39 @@ export const replacementViewSchema = z.object({
   note: z.string(),
   item: orderViewSchema.shape.items.element,
 });
-export const replacementInputSchema = z.object({ photoId: z.uuid('Upload a photo first.'), placement: placementSchema, rightsConfirmed: z.literal(true, { error: 'Confirm that you may use this photo.' }) });
+export const replacementInputSchema = z.object({
+  photoId: z.uuid('Upload a photo first.'),
+  placement: placementSchema,
+  rightsConfirmed: z.literal(true, { error: 'Confirm that you may use this photo.' }),
+});
 
 /** A refund, whole (no amount) or part (an amount in minor units); owners only. */
 export const refundInputSchema = z.object({
-  amountMinor: z.number({ error: 'Enter the amount.' }).int('Use whole minor units (cents).').positive('Refund more than nothing.').optional(),
+  amountMinor: z
+    .number({ error: 'Enter the amount.' })
+    .int('Use whole minor units (cents).')
+    .positive('Refund more than nothing.')
+    .optional(),
   reason: z.string().trim().min(1, 'Say why, for the buyer and the record.').max(300, 'Use at most 300 characters.'),
 });
 export type RefundInput = z.input<typeof refundInputSchema>;
-export const cancelInputSchema = z.object({ reason: z.string().trim().min(1, 'Say why, for the buyer and the record.').max(300, 'Use at most 300 characters.') });
+export const cancelInputSchema = z.object({
+  reason: z.string().trim().min(1, 'Say why, for the buyer and the record.').max(300, 'Use at most 300 characters.'),
+});
 
 /** The workspace's first page: work waiting by stage, the oldest waiting items, the last weeks. */
 export const todaySchema = z.object({
   byStage: z.array(z.object({ stage: z.enum(ITEM_STAGES), count: z.number().int() })),
-  oldest: z.array(z.object({ itemId: z.uuid(), orderId: z.uuid(), orderNumber: z.number().int(), label: z.string(), stage: z.enum(ITEM_STAGES), since: z.string() })),
+  oldest: z.array(
+    z.object({
+      itemId: z.uuid(),
+      orderId: z.uuid(),
+      orderNumber: z.number().int(),
+      label: z.string(),
+      stage: z.enum(ITEM_STAGES),
+      since: z.string(),
+    }),
+  ),
   weeks: z.array(z.object({ weekStart: z.string(), orders: z.number().int(), revenueMinor: z.number().int() })),
   currency: z.string(),
 });
@@ -112,4 +136,9 @@ export const staffItemSchema = z.object({
 export type StaffItem = z.infer<typeof staffItemSchema>;
 
 /** The buyer's proof: the item, its prep, and the proof image the server rendered. */
-export const proofViewSchema = z.object({ orderNumber: z.number().int(), item: orderViewSchema.shape.items.element, prep: prepSettingsSchema, imageUrl: z.string() });
+export const proofViewSchema = z.object({
+  orderNumber: z.number().int(),
+  item: orderViewSchema.shape.items.element,
+  prep: prepSettingsSchema,
+  imageUrl: z.string(),
+});

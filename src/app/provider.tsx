@@ -1,6 +1,6 @@
 import { useState, type ReactNode } from 'react';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { AppError } from '../../shared/errors.ts';
+import { AppError } from '#shared/errors.ts';
 import { ToastProvider } from '../components/ui/toast.tsx';
 
 /** Retrying is for passing faults: a 4xx answer will not change on the second try. */

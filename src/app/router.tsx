@@ -7,7 +7,9 @@ import { NotFoundPage } from './routes/not-found.tsx';
  * home is in the first bundle; every other page loads its own code when first opened, so a
  * buyer never downloads the workspace.
  */
-const page = <K extends string>(load: () => Promise<Record<K, React.ComponentType>>, name: K) => async () => ({ Component: (await load())[name] });
+const page =
+  <K extends string>(load: () => Promise<Record<K, React.ComponentType>>, name: K) =>
+  async () => ({ Component: (await load())[name] });
 
 export const router = createBrowserRouter([
   { path: '/', lazy: page(() => import('./routes/home.tsx'), 'HomePage') },
@@ -31,7 +33,10 @@ export const router = createBrowserRouter([
   { path: '/s/:studioSlug/proofs/:token', lazy: page(() => import('./routes/storefront/proof.tsx'), 'ProofPage') },
   { path: '/studio/:studioSlug/review', lazy: page(() => import('./routes/workspace/orders/review.tsx'), 'ReviewPage') },
   { path: '/studio/:studioSlug/production', lazy: page(() => import('./routes/workspace/production/production.tsx'), 'ProductionPage') },
-  { path: '/studio/:studioSlug/production/batches/:batchId', lazy: page(() => import('./routes/workspace/production/batch.tsx'), 'BatchPage') },
+  {
+    path: '/studio/:studioSlug/production/batches/:batchId',
+    lazy: page(() => import('./routes/workspace/production/batch.tsx'), 'BatchPage'),
+  },
   { path: '/s/:studioSlug/replace/:token', lazy: page(() => import('./routes/storefront/replace-photo.tsx'), 'ReplacePhotoPage') },
   { path: '/studio/:studioSlug/catalog', element: <Navigate to="blanks" replace /> },
   { path: '/studio/:studioSlug/catalog/blanks', lazy: page(() => import('./routes/workspace/catalog/blanks.tsx'), 'BlanksPage') },

@@ -1,4 +1,4 @@
-import { AppError, errorBodySchema } from '../../shared/errors.ts';
+import { AppError, errorBodySchema } from '#shared/errors.ts';
 import type { z } from 'zod';
 
 type RequestOptions<S extends z.ZodType> = {
@@ -18,7 +18,8 @@ export async function apiFetch<S extends z.ZodType>(path: string, options: Reque
   try {
     response = await fetch(path, {
       method: options.method ?? 'GET',
-      headers: options.body === undefined ? { accept: 'application/json' } : { accept: 'application/json', 'content-type': 'application/json' },
+      headers:
+        options.body === undefined ? { accept: 'application/json' } : { accept: 'application/json', 'content-type': 'application/json' },
       body: options.body === undefined ? undefined : JSON.stringify(options.body),
       credentials: 'same-origin',
       signal: options.signal,
@@ -32,7 +33,10 @@ export async function apiFetch<S extends z.ZodType>(path: string, options: Reque
   if (!response.ok) {
     const body = errorBodySchema.safeParse(json);
     if (body.success) throw new AppError(body.data.code, body.data.message, { issues: body.data.issues });
-    throw new AppError(response.status >= 500 ? 'INTERNAL' : 'BAD_REQUEST', `The server answered ${response.status} ${response.statusText}.`);
+    throw new AppError(
+      response.status >= 500 ? 'INTERNAL' : 'BAD_REQUEST',
+      `The server answered ${response.status} ${response.statusText}.`,
+    );
   }
   return options.schema ? options.schema.parse(json) : (json as z.infer<S>);
 }

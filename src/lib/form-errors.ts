@@ -1,5 +1,5 @@
 import type { FieldValues, Path, UseFormReturn } from 'react-hook-form';
-import { AppError } from '../../shared/errors.ts';
+import { AppError } from '#shared/errors.ts';
 
 /**
  * Shows a failed save on a react-hook-form form: the server's field issues beside their fields
@@ -13,4 +13,5 @@ export function showServerError<T extends FieldValues>(form: Pick<UseFormReturn<
 }
 
 /** The message `showServerError` put above the form, if any. */
-export const serverErrorOf = (form: { formState: { errors: { root?: Record<string, { message?: string } | undefined> } } }) => form.formState.errors.root?.server?.message;
+export const serverErrorOf = (form: { formState: { errors: { root?: Record<string, { message?: string } | undefined> } } }) =>
+  form.formState.errors.root?.server?.message;

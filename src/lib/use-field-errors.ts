@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import type { z } from 'zod';
-import { AppError, type FieldIssue } from '../../shared/errors.ts';
+import { AppError, type FieldIssue } from '#shared/errors.ts';
 
 type Errors = Record<string, string | undefined>;
 

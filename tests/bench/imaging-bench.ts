@@ -3,11 +3,11 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { cpus, totalmem, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import sharp from 'sharp';
-import { errorDiffuse } from '../../shared/imaging/halftone/error-diffusion.ts';
-import type { GrayF } from '../../shared/imaging/image.ts';
-import { recipePrep } from '../../shared/orders/prep-pipeline.ts';
-import { burnPiece } from '../../server/imaging/piece.ts';
-import { encodeBitmapPng } from '../../server/imaging/png-1bit.ts';
+import { errorDiffuse } from '#shared/imaging/halftone/error-diffusion.ts';
+import type { GrayF } from '#shared/imaging/image.ts';
+import { recipePrep } from '#shared/orders/prep-pipeline.ts';
+import { burnPiece } from '#server/imaging/piece.ts';
+import { encodeBitmapPng } from '#server/imaging/png-1bit.ts';
 import { measureMockupInChromium } from './mockup-bench.ts';
 
 /**
@@ -52,7 +52,9 @@ print(sorted(ts)[1] * 1000)`;
 
 export async function runImagingBench(photoDir: string): Promise<void> {
   const photo = join(photoDir, 'astronaut.png');
-  console.log(`\nImaging benchmarks on ${cpus().length} × ${cpus()[0]?.model ?? 'CPU'}, ${(totalmem() / 2 ** 30).toFixed(0)} GiB, Node ${process.version}`);
+  console.log(
+    `\nImaging benchmarks on ${cpus().length} × ${cpus()[0]?.model ?? 'CPU'}, ${(totalmem() / 2 ** 30).toFixed(0)} GiB, Node ${process.version}`,
+  );
   console.log(`  ${'measure'.padEnd(58)} ${'Etchwell'.padEnd(20)} reference\n`);
 
   // Warm-up so the optimising compiler has seen the loops.
@@ -60,7 +62,10 @@ export async function runImagingBench(photoDir: string): Promise<void> {
   errorDiffuse(warm, { kernel: 'floyd-steinberg' });
   errorDiffuse(warm, { kernel: 'jarvis-judice-ninke' });
 
-  for (const [label, w, h] of [['8 × 10 in at 360 (10.4 MP)', 2880, 3600], ['8 × 10 in at 1000 (80 MP)', 8000, 10000]] as const) {
+  for (const [label, w, h] of [
+    ['8 × 10 in at 360 (10.4 MP)', 2880, 3600],
+    ['8 × 10 in at 1000 (80 MP)', 8000, 10000],
+  ] as const) {
     const gray = await grayOf(photo, w, h);
     const mp = (w * h) / 1e6;
     const fs = await time(() => errorDiffuse(gray, { kernel: 'floyd-steinberg' }));
@@ -76,20 +81,54 @@ export async function runImagingBench(photoDir: string): Promise<void> {
   const bytes = readFileSync(jpeg);
   // The product's own render call (`burnPiece`, as the render job makes it), with the recipe's
   // prep for a positive Floyd–Steinberg burn at 360 lines per inch.
-  const piece = { placement: { crop: { left: 800, top: 0, width: 2400, height: 3000 } }, area: { widthMm: 203.2, heightMm: 254 }, shape: 'rectangle' as const, inscription: null };
+  const piece = {
+    placement: { crop: { left: 800, top: 0, width: 2400, height: 3000 } },
+    area: { widthMm: 203.2, heightMm: 254 },
+    shape: 'rectangle' as const,
+    inscription: null,
+  };
   const prep = recipePrep({ tone: 'positive', halftoneMethod: 'floyd-steinberg', linesPerInch: 360 });
   const ours = await time(async () => {
     const { bitmap } = await burnPiece(bytes, piece, prep);
     writeFileSync(join(work, 'ours.png'), encodeBitmapPng(bitmap, 360));
   });
   const palette = join(work, 'bw.png');
-  await sharp({ create: { width: 2, height: 1, channels: 3, background: '#000000' } }).composite([{ input: { create: { width: 1, height: 1, channels: 3, background: '#ffffff' } }, left: 1, top: 0 }]).png().toFile(palette);
+  await sharp({ create: { width: 2, height: 1, channels: 3, background: '#000000' } })
+    .composite([{ input: { create: { width: 1, height: 1, channels: 3, background: '#ffffff' } }, left: 1, top: 0 }])
+    .png()
+    .toFile(palette);
   const magick = await time(() =>
-    execFileSync('/usr/bin/convert', [jpeg, '-crop', '2400x3000+800+0', '+repage', '-resize', '2880x3600!', '-colorspace', 'Gray', '-unsharp', '0x2+1.5+0.004', '-dither', 'FloydSteinberg', '-remap', palette, '-type', 'Bilevel', join(work, 'magick.png')], {
-      env: { ...process.env, MAGICK_CONFIGURE_PATH: work },
-    }),
+    execFileSync(
+      '/usr/bin/convert',
+      [
+        jpeg,
+        '-crop',
+        '2400x3000+800+0',
+        '+repage',
+        '-resize',
+        '2880x3600!',
+        '-colorspace',
+        'Gray',
+        '-unsharp',
+        '0x2+1.5+0.004',
+        '-dither',
+        'FloydSteinberg',
+        '-remap',
+        palette,
+        '-type',
+        'Bilevel',
+        join(work, 'magick.png'),
+      ],
+      {
+        env: { ...process.env, MAGICK_CONFIGURE_PATH: work },
+      },
+    ),
   );
-  row('Engrave file: 12 MP JPEG → 8 × 10 in at 360, seconds', (ours / 1000).toFixed(2), `ImageMagick convert: ${(magick / 1000).toFixed(2)} (${(magick / ours).toFixed(1)}× ours)`);
+  row(
+    'Engrave file: 12 MP JPEG → 8 × 10 in at 360, seconds',
+    (ours / 1000).toFixed(2),
+    `ImageMagick convert: ${(magick / 1000).toFixed(2)} (${(magick / ours).toFixed(1)}× ours)`,
+  );
 
   // The grayscale master at 1000 ppi as the render job writes it (`writePieceMaster`, after the
   // burn whose levels and cut-out it reuses), in a child process so its peak memory is its own.
@@ -105,9 +144,22 @@ export async function runImagingBench(photoDir: string): Promise<void> {
     const master = await writePieceMaster(piece, prep, burned, 1000);
     console.log(JSON.stringify({ ms: performance.now() - t, width: master.width, height: master.height, maxRssKb: process.resourceUsage().maxRSS }));`;
   writeFileSync(join(process.cwd(), '.data', 'bench-master.ts'), child);
-  const master = JSON.parse(execFileSync(process.execPath, ['--import', 'tsx', join(process.cwd(), '.data', 'bench-master.ts')], { encoding: 'utf8' }).trim().split('\n').pop()!);
-  row(`Grayscale master, 8 × 10 in at 1000 ppi (${master.width} × ${master.height}): seconds / peak RSS of the render process`, `${(master.ms / 1000).toFixed(2)} s / ${(master.maxRssKb / 1024).toFixed(0)} MB`, 'target ≤ 5 s / ≤ 700 MB');
+  const master = JSON.parse(
+    execFileSync(process.execPath, ['--import', 'tsx', join(process.cwd(), '.data', 'bench-master.ts')], { encoding: 'utf8' })
+      .trim()
+      .split('\n')
+      .pop()!,
+  );
+  row(
+    `Grayscale master, 8 × 10 in at 1000 ppi (${master.width} × ${master.height}): seconds / peak RSS of the render process`,
+    `${(master.ms / 1000).toFixed(2)} s / ${(master.maxRssKb / 1024).toFixed(0)} MB`,
+    'target ≤ 5 s / ≤ 700 MB',
+  );
   const mockup = await measureMockupInChromium(process.cwd(), photo);
-  row('Mock-up re-render in Chromium at 800 × 1000, median ms per change', mockup.medianMs.toFixed(0), `target ≤ 50 (median of ${mockup.runs})`);
+  row(
+    'Mock-up re-render in Chromium at 800 × 1000, median ms per change',
+    mockup.medianMs.toFixed(0),
+    `target ≤ 50 (median of ${mockup.runs})`,
+  );
   rmSync(work, { recursive: true, force: true });
 }

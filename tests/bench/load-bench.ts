@@ -4,7 +4,7 @@ import autocannon from 'autocannon';
 import pLimit from 'p-limit';
 import sharp from 'sharp';
 import type Stripe from 'stripe';
-import { orientedArea } from '../../shared/imaging/sizing.ts';
+import { orientedArea } from '#shared/imaging/sizing.ts';
 import { fillCrop } from '../support/orders.ts';
 
 /**
@@ -43,7 +43,10 @@ const STUDIO = 'harbour-light';
  * a process of its own, as the app runs in its own.
  */
 export async function startBareExpress(): Promise<{ url: string; target: LoadTarget; stop(): Promise<void> }> {
-  const child = fork(join(import.meta.dirname, 'bare-express.ts'), [], { execArgv: ['--import', 'tsx'], stdio: ['ignore', 'inherit', 'inherit', 'ipc'] });
+  const child = fork(join(import.meta.dirname, 'bare-express.ts'), [], {
+    execArgv: ['--import', 'tsx'],
+    stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
+  });
   const port = await new Promise<number>((resolve, reject) => {
     child.once('message', (message) => resolve((message as { port: number }).port));
     child.once('exit', (code) => reject(new Error(`the bare Express process exited (${code})`)));
@@ -98,7 +101,11 @@ async function json<T>(response: Response, what: string): Promise<T> {
 /** A buyer's photo as the storefront sends it: a ticket, then a PUT straight to storage. */
 async function uploadPhoto(baseUrl: string, jpeg: Buffer): Promise<string> {
   const ticket = await json<{ url: string; key: string; headers: Record<string, string> }>(
-    await fetch(`${baseUrl}/api/storefront/${STUDIO}/photo-uploads`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ contentType: 'image/jpeg', contentLength: jpeg.length }) }),
+    await fetch(`${baseUrl}/api/storefront/${STUDIO}/photo-uploads`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json' },
+      body: JSON.stringify({ contentType: 'image/jpeg', contentLength: jpeg.length }),
+    }),
     'upload ticket',
   );
   const put = await fetch(ticket.url, { method: 'PUT', headers: ticket.headers, body: new Uint8Array(jpeg) });
@@ -111,11 +118,28 @@ async function uploadPhoto(baseUrl: string, jpeg: Buffer): Promise<string> {
  * photos waiting to be accepted (each accept uses one up). The photo is 1200 × 900 px, about
  * the size of a phone picture scaled for messaging.
  */
-export async function prepareStorefrontLoad(baseUrl: string, stripe: Stripe, { uploads }: { uploads: number }): Promise<{ targets: LoadTarget[]; uploadsLeft(): number }> {
-  const jpeg = await sharp({ create: { width: 1200, height: 900, channels: 3, background: '#6a7b8c' } }).jpeg({ quality: 85 }).toBuffer();
-  const accept = async (key: string) => json<{ id: string; width: number; height: number }>(await fetch(`${baseUrl}/api/storefront/${STUDIO}/buyer-photos`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ key }) }), 'accept');
+export async function prepareStorefrontLoad(
+  baseUrl: string,
+  stripe: Stripe,
+  { uploads }: { uploads: number },
+): Promise<{ targets: LoadTarget[]; uploadsLeft(): number }> {
+  const jpeg = await sharp({ create: { width: 1200, height: 900, channels: 3, background: '#6a7b8c' } })
+    .jpeg({ quality: 85 })
+    .toBuffer();
+  const accept = async (key: string) =>
+    json<{ id: string; width: number; height: number }>(
+      await fetch(`${baseUrl}/api/storefront/${STUDIO}/buyer-photos`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({ key }),
+      }),
+      'accept',
+    );
 
-  const { blanks } = await json<{ blanks: Array<{ id: string; sizes: Array<{ id: string; areaWidthMm: number; areaHeightMm: number }> }> }>(await fetch(`${baseUrl}/api/storefront/${STUDIO}/blanks`), 'catalog');
+  const { blanks } = await json<{ blanks: Array<{ id: string; sizes: Array<{ id: string; areaWidthMm: number; areaHeightMm: number }> }> }>(
+    await fetch(`${baseUrl}/api/storefront/${STUDIO}/blanks`),
+    'catalog',
+  );
   const blank = blanks.find((b) => b.sizes.length > 0)!;
   const photo = await accept(await uploadPhoto(baseUrl, jpeg));
   const placed = await json<{ orderId: string; paymentUrl: string }>(
@@ -123,7 +147,17 @@ export async function prepareStorefrontLoad(baseUrl: string, stripe: Stripe, { u
       method: 'POST',
       headers: { 'content-type': 'application/json' },
       body: JSON.stringify({
-        items: [{ blankId: blank.id, sizeId: blank.sizes[0]!.id, orientation: 'landscape', quantity: 1, photoId: photo.id, placement: { crop: fillCrop(photo, orientedArea(blank.sizes[0]!, 'landscape')) }, rightsConfirmed: true }],
+        items: [
+          {
+            blankId: blank.id,
+            sizeId: blank.sizes[0]!.id,
+            orientation: 'landscape',
+            quantity: 1,
+            photoId: photo.id,
+            placement: { crop: fillCrop(photo, orientedArea(blank.sizes[0]!, 'landscape')) },
+            rightsConfirmed: true,
+          },
+        ],
         buyer: { email: 'load.run@buyers.test', name: 'Lena Oakes' },
         delivery: { method: 'pickup' },
       }),
@@ -151,7 +185,10 @@ export async function prepareStorefrontLoad(baseUrl: string, stripe: Stripe, { u
         // they would in a shop: the per-address limit is for one caller, not for the crowd.
         next: () => {
           const i = used++;
-          return { body: JSON.stringify({ key: keys[i % keys.length] }), headers: { 'x-forwarded-for': `10.${(i >> 16) & 255}.${(i >> 8) & 255}.${i & 255}` } };
+          return {
+            body: JSON.stringify({ key: keys[i % keys.length] }),
+            headers: { 'x-forwarded-for': `10.${(i >> 16) & 255}.${(i >> 8) & 255}.${i & 255}` },
+          };
         },
       },
     ],
@@ -160,6 +197,9 @@ export async function prepareStorefrontLoad(baseUrl: string, stripe: Stripe, { u
 
 export function formatLoadTable(results: LoadResult[], { connections, durationSeconds }: LoadOptions): string {
   const head = `${'call'.padEnd(24)} ${'req/s'.padStart(8)} ${'p50 ms'.padStart(8)} ${'p99 ms'.padStart(8)} ${'max ms'.padStart(8)} ${'requests'.padStart(9)} ${'failed'.padStart(7)}`;
-  const rows = results.map((r) => `${r.name.padEnd(24)} ${r.perSecond.toFixed(0).padStart(8)} ${String(r.p50Ms).padStart(8)} ${String(r.p99Ms).padStart(8)} ${String(r.maxMs).padStart(8)} ${String(r.requests).padStart(9)} ${String(r.failures).padStart(7)}`);
+  const rows = results.map(
+    (r) =>
+      `${r.name.padEnd(24)} ${r.perSecond.toFixed(0).padStart(8)} ${String(r.p50Ms).padStart(8)} ${String(r.p99Ms).padStart(8)} ${String(r.maxMs).padStart(8)} ${String(r.requests).padStart(9)} ${String(r.failures).padStart(7)}`,
+  );
   return [`${connections} connections, ${durationSeconds} s per call (autocannon)`, head, ...rows].join('\n');
 }

@@ -14,12 +14,30 @@ export async function measureMockupInChromium(projectDir: string, photo: string)
   await build({
     configFile: false,
     logLevel: 'warn',
-    build: { outDir, emptyOutDir: true, lib: { entry: join(projectDir, 'tests/bench/browser-entry.ts'), formats: ['iife'], name: 'etchwellBench', fileName: () => 'imaging.js' } },
+    build: {
+      outDir,
+      emptyOutDir: true,
+      lib: {
+        entry: join(projectDir, 'tests/bench/browser-entry.ts'),
+        formats: ['iife'],
+        name: 'etchwellBench',
+        fileName: () => 'imaging.js',
+      },
+    },
   });
   const { data } = await sharp(photo).resize(800, 1000, { fit: 'cover' }).ensureAlpha().raw().toBuffer({ resolveWithObject: true });
   const browser = await chromium.launch({
     executablePath: '/usr/bin/chromium',
-    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    args: [
+      '--headless',
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
   });
   try {
     const page = await browser.newPage();

@@ -2,8 +2,8 @@ import { join } from 'node:path';
 import sharp from 'sharp';
 import type { Page } from 'playwright-core';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { seedDemo } from '../../server/db/seed.ts';
-import { DEMO_PASSWORD } from '../../server/db/demo-scenario.ts';
+import { seedDemo } from '#server/db/seed.ts';
+import { DEMO_PASSWORD } from '#server/db/demo-scenario.ts';
 import { screenshotDir, useBrowser } from '../support/browser.ts';
 
 describe('an owner builds the catalog; staff can only look', () => {
@@ -73,9 +73,16 @@ describe('an owner builds the catalog; staff can only look', () => {
     // Shown in inches, stored in mm: 7.5 in is 190.5 mm exactly.
     expect(await page.getByText('7.5 × 9.5 in').count()).toBe(1);
 
-    const photo = await sharp({ create: { width: 900, height: 700, channels: 3, background: '#c9a77c' } }).jpeg().toBuffer();
+    const photo = await sharp({ create: { width: 900, height: 700, channels: 3, background: '#c9a77c' } })
+      .jpeg()
+      .toBuffer();
     await page.getByLabel('Add product photos').setInputFiles({ name: 'plaque.jpg', mimeType: 'image/jpeg', buffer: photo });
-    await expect.poll(() => page.getByRole('img', { name: 'Product photo 1' }).evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth), { timeout: 15_000 }).toBe(900);
+    await expect
+      .poll(
+        () => page.getByRole('img', { name: 'Product photo 1' }).evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth),
+        { timeout: 15_000 },
+      )
+      .toBe(900);
 
     await page.getByRole('button', { name: 'Put on sale' }).click();
     await expect.poll(() => page.getByText('Walnut memory block is on sale.').count()).toBe(1);
@@ -90,8 +97,23 @@ describe('an owner builds the catalog; staff can only look', () => {
     await page.goto(`${b.baseUrl}/studio/harbour-light`);
     await page.getByRole('navigation', { name: 'Workspace' }).getByRole('link', { name: 'Audit log' }).click();
     await page.getByLabel('Show').selectOption({ label: 'Prices' });
-    await expect.poll(() => page.getByRole('row').filter({ hasText: 'Walnut memory block, 8 × 10 in' }).filter({ hasText: 'New size offered at $64.50.' }).filter({ hasText: 'Maren Quist' }).count()).toBe(1);
-    expect(await page.getByRole('row').filter({ hasText: 'Walnut memory block, 5 × 7 in' }).filter({ hasText: 'New size offered at $39.00.' }).count()).toBe(1);
+    await expect
+      .poll(() =>
+        page
+          .getByRole('row')
+          .filter({ hasText: 'Walnut memory block, 8 × 10 in' })
+          .filter({ hasText: 'New size offered at $64.50.' })
+          .filter({ hasText: 'Maren Quist' })
+          .count(),
+      )
+      .toBe(1);
+    expect(
+      await page
+        .getByRole('row')
+        .filter({ hasText: 'Walnut memory block, 5 × 7 in' })
+        .filter({ hasText: 'New size offered at $39.00.' })
+        .count(),
+    ).toBe(1);
     await shot(page, 'audit-log-prices');
     expect(problems).toEqual([]);
   });
@@ -110,7 +132,8 @@ describe('an owner builds the catalog; staff can only look', () => {
     await expect.poll(() => page.getByText('Class 4 laser product').count()).toBe(1);
     await page.getByRole('button', { name: 'New recipe' }).click();
     const dialog = page.getByRole('dialog');
-    const optionText = async (field: string, text: string) => (await dialog.getByLabel(field).locator('option', { hasText: text }).first().textContent())!;
+    const optionText = async (field: string, text: string) =>
+      (await dialog.getByLabel(field).locator('option', { hasText: text }).first().textContent())!;
     await dialog.getByLabel('Material').selectOption({ label: await optionText('Material', 'PVC and vinyl') });
     await dialog.getByLabel('Machine').selectOption({ label: await optionText('Machine', 'CO2') });
     await expect.poll(() => dialog.getByText(/must never go on a CO2 laser/).count()).toBe(1);
@@ -127,10 +150,13 @@ describe('an owner builds the catalog; staff can only look', () => {
   it('staff sees the catalog but no controls to change it', async () => {
     const { page, problems } = await signIn('tobias@harbour-light.test');
     await page.getByRole('navigation', { name: 'Workspace' }).getByRole('link', { name: 'Catalog' }).click();
-    await expect.poll(() => page.getByRole('link', { name: 'Walnut memory block' }).count()).toBe(1).catch(async (error) => {
-      await shot(page, 'catalog-staff-failed');
-      throw error;
-    });
+    await expect
+      .poll(() => page.getByRole('link', { name: 'Walnut memory block' }).count())
+      .toBe(1)
+      .catch(async (error) => {
+        await shot(page, 'catalog-staff-failed');
+        throw error;
+      });
     expect(await page.getByText('Only the studio’s owners can change it.').count()).toBe(1);
     expect(await page.getByRole('navigation', { name: 'Workspace' }).getByRole('link', { name: 'Audit log' }).count()).toBe(0);
     expect(await page.getByRole('button', { name: 'New blank' }).count()).toBe(0);

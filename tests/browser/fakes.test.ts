@@ -1,10 +1,10 @@
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startPaymentsFake, type PaymentsFake } from '../../fakes/payments/server.ts';
-import { startMailFake, type MailFake } from '../../fakes/mail/server.ts';
-import { createPayments } from '../../server/adapters/payments.ts';
-import { createMailer } from '../../server/adapters/mailer.ts';
-import { loadEnv } from '../../server/env.ts';
+import { startPaymentsFake, type PaymentsFake } from '#fakes/payments/server.ts';
+import { startMailFake, type MailFake } from '#fakes/mail/server.ts';
+import { createPayments } from '#server/adapters/payments.ts';
+import { createMailer } from '#server/adapters/mailer.ts';
+import { loadEnv } from '#server/env.ts';
 import { screenshotDir, useBrowser } from '../support/browser.ts';
 import { temporaryDataDir } from '../support/fakes.ts';
 
@@ -16,7 +16,11 @@ describe('pay page and inbox page of the local stand-ins, in Chromium', () => {
   let mail: MailFake;
 
   beforeAll(async () => {
-    payments = await startPaymentsFake({ dataDir: paymentsData.dir, secretKeys: ['sk_test_browser'], merchantName: 'Harbour Light Engraving' });
+    payments = await startPaymentsFake({
+      dataDir: paymentsData.dir,
+      secretKeys: ['sk_test_browser'],
+      merchantName: 'Harbour Light Engraving',
+    });
     mail = await startMailFake({ dataDir: mailData.dir });
   });
   afterAll(async () => {
@@ -30,7 +34,12 @@ describe('pay page and inbox page of the local stand-ins, in Chromium', () => {
     const { stripe } = createPayments(loadEnv({ STRIPE_API_URL: payments.url, STRIPE_SECRET_KEY: 'sk_test_browser' }));
     const session = await stripe.checkout.sessions.create({
       mode: 'payment',
-      line_items: [{ quantity: 1, price_data: { currency: 'gbp', unit_amount: 5900, product_data: { name: 'Black-backed glass portrait, 8 × 10 in' } } }],
+      line_items: [
+        {
+          quantity: 1,
+          price_data: { currency: 'gbp', unit_amount: 5900, product_data: { name: 'Black-backed glass portrait, 8 × 10 in' } },
+        },
+      ],
       customer_email: 'ada@example.com',
       success_url: `${b.baseUrl}/?session={CHECKOUT_SESSION_ID}`,
       cancel_url: `${b.baseUrl}/`,

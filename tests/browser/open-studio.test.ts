@@ -1,5 +1,5 @@
 import { join } from 'node:path';
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { screenshotDir, useBrowser } from '../support/browser.ts';
 import { useMailFake } from '../support/mail.ts';
 

@@ -4,12 +4,12 @@ import sharp from 'sharp';
 import request from 'supertest';
 import type { Page } from 'playwright-core';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { seedDemo } from '../../server/db/seed.ts';
-import { DEMO_PASSWORD } from '../../server/db/demo-scenario.ts';
-import { TENANT_FILTER } from '../../server/db/tenant.ts';
-import { Blank } from '../../server/features/catalog/catalog.entity.ts';
-import { Studio } from '../../server/features/studios/studio.entity.ts';
-import { ShippingRate } from '../../server/features/shipping/shipping-rate.entity.ts';
+import { seedDemo } from '#server/db/seed.ts';
+import { DEMO_PASSWORD } from '#server/db/demo-scenario.ts';
+import { TENANT_FILTER } from '#server/db/tenant.ts';
+import { Blank } from '#server/features/catalog/catalog.entity.ts';
+import { Studio } from '#server/features/studios/studio.entity.ts';
+import { ShippingRate } from '#server/features/shipping/shipping-rate.entity.ts';
 import { freePort, screenshotDir, signInOnPage, useBrowser } from '../support/browser.ts';
 import { useMailFake } from '../support/mail.ts';
 import { payWithTestCard, postSignedEvent } from '../support/payments.ts';
@@ -24,10 +24,13 @@ import { eventually } from '../support/fakes.ts';
  */
 describe('photo review: asking the buyer for a better photo', () => {
   const mail = useMailFake();
-  const b = useBrowser(async () => {
-    await mail.start();
-    return { SMTP_URL: mail.smtpUrl, APP_URL: `http://127.0.0.1:${await freePort()}` };
-  }, { worker: true });
+  const b = useBrowser(
+    async () => {
+      await mail.start();
+      return { SMTP_URL: mail.smtpUrl, APP_URL: `http://127.0.0.1:${await freePort()}` };
+    },
+    { worker: true },
+  );
   const shot = (page: Page, name: string) => page.screenshot({ path: join(screenshotDir, `${name}.png`), fullPage: true });
   let orderNumber: number;
 
@@ -35,28 +38,62 @@ describe('photo review: asking the buyer for a better photo', () => {
     await seedDemo(b.orm.em.fork());
     const em = b.orm.em.fork();
     const studio = await em.findOneOrFail(Studio, { slug: 'harbour-light' });
-    const glass = await em.findOneOrFail(Blank, { name: 'Black-backed glass portrait' }, { populate: ['sizes'], filters: { [TENANT_FILTER]: { studioId: studio.id } } });
+    const glass = await em.findOneOrFail(
+      Blank,
+      { name: 'Black-backed glass portrait' },
+      { populate: ['sizes'], filters: { [TENANT_FILTER]: { studioId: studio.id } } },
+    );
     const size = glass.sizes.getItems().find((s) => s.label === '5 × 7 in')!;
-    const rate = await em.findOneOrFail(ShippingRate, { studio, priceMinor: 895 }, { filters: { [TENANT_FILTER]: { studioId: studio.id } } });
+    const rate = await em.findOneOrFail(
+      ShippingRate,
+      { studio, priceMinor: 895 },
+      { filters: { [TENANT_FILTER]: { studioId: studio.id } } },
+    );
     // The buyer's order, placed and paid as the storefront and the payment webhook do it.
     const bytes = await sharp(join(referencePhotoDir, 'chelsea.png')).jpeg().toBuffer();
     const store = '/api/storefront/harbour-light';
-    const ticket = (await request(b.app).post(`${store}/photo-uploads`).send({ contentType: 'image/jpeg', contentLength: bytes.length }).expect(201)).body;
+    const ticket = (
+      await request(b.app).post(`${store}/photo-uploads`).send({ contentType: 'image/jpeg', contentLength: bytes.length }).expect(201)
+    ).body;
     await fetch(ticket.url, { method: 'PUT', headers: ticket.headers, body: new Uint8Array(bytes) });
     const photo = (await request(b.app).post(`${store}/buyer-photos`).send({ key: ticket.key }).expect(201)).body;
     const placed = await request(b.app)
       .post(`${store}/orders`)
       .send({
-        items: [{ blankId: glass.id, sizeId: size.id, orientation: 'landscape', quantity: 1, photoId: photo.id, placement: { crop: { left: 0, top: 12, width: (276 * 6.5) / 4.5, height: 276 } }, rightsConfirmed: true, lowResolutionConfirmed: true }],
+        items: [
+          {
+            blankId: glass.id,
+            sizeId: size.id,
+            orientation: 'landscape',
+            quantity: 1,
+            photoId: photo.id,
+            placement: { crop: { left: 0, top: 12, width: (276 * 6.5) / 4.5, height: 276 } },
+            rightsConfirmed: true,
+            lowResolutionConfirmed: true,
+          },
+        ],
         buyer: { email: 'june@buyers.test', name: 'June Aldous' },
-        delivery: { method: 'ship', rateId: rate.id, address: { line1: '7 Gull Row', city: 'Port Alder', postalCode: '04412', country: 'US' } },
+        delivery: {
+          method: 'ship',
+          rateId: rate.id,
+          address: { line1: '7 Gull Row', city: 'Port Alder', postalCode: '04412', country: 'US' },
+        },
       })
       .expect(201);
     await payWithTestCard(placed.body.paymentUrl);
     const session = await b.payments.stripe.checkout.sessions.retrieve(new URL(placed.body.paymentUrl).pathname.split('/').pop()!);
-    const paid = await postSignedEvent(b, { id: `evt_review_${session.id}`, object: 'event', type: 'checkout.session.completed', data: { object: session } }).expect(200);
+    const paid = await postSignedEvent(b, {
+      id: `evt_review_${session.id}`,
+      object: 'event',
+      type: 'checkout.session.completed',
+      data: { object: session },
+    }).expect(200);
     expect(paid.body.outcome).toBe('handled');
-    orderNumber = (await request(b.app).get(new URL(session.success_url!).pathname.replace('/s/', '/api/storefront/') + new URL(session.success_url!).search).expect(200)).body.number;
+    orderNumber = (
+      await request(b.app)
+        .get(new URL(session.success_url!).pathname.replace('/s/', '/api/storefront/') + new URL(session.success_url!).search)
+        .expect(200)
+    ).body.number;
   });
 
   it('staff flag the photo, the buyer sends a larger one by the e-mailed link, and it is back in review', async () => {
@@ -82,13 +119,18 @@ describe('photo review: asking the buyer for a better photo', () => {
       return newest.subject.includes('needs a new photo') ? newest : undefined;
     });
     expect(request_.subject).toBe(`Order ${orderNumber}: Harbour Light Engraving needs a new photo`);
-    expect(request_.text).toMatch(/Why: Resolution too low for the size\.\nFrom the studio: The original from your phone would be sharper\./);
+    expect(request_.text).toMatch(
+      /Why: Resolution too low for the size\.\nFrom the studio: The original from your phone would be sharper\./,
+    );
     const link = request_.links.find((l) => l.includes('/replace/'))!;
 
     const buyer = await b.newPage();
     await buyer.page.goto(link);
     await expect.poll(() => buyer.page.getByText('Why: Resolution too low for the size').count()).toBe(1);
-    const better = await sharp(join(referencePhotoDir, 'astronaut.png')).resize(2048, 2048, { kernel: 'lanczos3' }).jpeg({ quality: 90 }).toBuffer();
+    const better = await sharp(join(referencePhotoDir, 'astronaut.png'))
+      .resize(2048, 2048, { kernel: 'lanczos3' })
+      .jpeg({ quality: 90 })
+      .toBuffer();
     await buyer.page.getByLabel('Choose your photo').setInputFiles({ name: 'astronaut.jpg', mimeType: 'image/jpeg', buffer: better });
     // The square photo fills the 6.5 × 4.5 in area by its width: 2048 / 6.5 = 315 pixels per inch.
     await expect.poll(() => buyer.page.getByRole('status').textContent(), { timeout: 15_000 }).toMatch(/Good: 315 pixels per inch/);
@@ -159,7 +201,9 @@ describe('photo review: asking the buyer for a better photo', () => {
     // One region at the machine's resolution, one dot per screen pixel.
     await staff.page.getByRole('radio', { name: 'After' }).click();
     await staff.page.getByRole('button', { name: 'Show 1:1 region' }).click();
-    await expect.poll(() => staff.page.getByRole('img', { name: 'A region of the burn, one dot per screen pixel' }).count(), { timeout: 30_000 }).toBe(1);
+    await expect
+      .poll(() => staff.page.getByRole('img', { name: 'A region of the burn, one dot per screen pixel' }).count(), { timeout: 30_000 })
+      .toBe(1);
     await expect.poll(() => staff.page.getByText(/^480 × 480 dots of 2340 × 1620 at 360 lines per inch/).count()).toBe(1);
     await staff.page.getByRole('button', { name: 'Save settings' }).click();
     await expect.poll(() => staff.page.getByText('Saved versions (1)').count()).toBe(1);
@@ -189,7 +233,9 @@ describe('photo review: asking the buyer for a better photo', () => {
     const staff = await b.newPage();
     await signInOnPage(staff.page, b.baseUrl, 'tobias@harbour-light.test', DEMO_PASSWORD, `${b.baseUrl}/studio/harbour-light`);
     await staff.page.getByRole('navigation', { name: 'Workspace' }).getByRole('link', { name: 'Production' }).click();
-    await expect.poll(() => staff.page.getByRole('heading', { name: 'Black-backed (painted) glass · Workshop CO2, 100 W' }).count()).toBe(1);
+    await expect
+      .poll(() => staff.page.getByRole('heading', { name: 'Black-backed (painted) glass · Workshop CO2, 100 W' }).count())
+      .toBe(1);
     await shot(staff.page, 'production');
     await staff.page.getByRole('button', { name: 'Start a batch of 1 item' }).click();
     await staff.page.waitForURL(/\/production\/batches\//);

@@ -1,6 +1,6 @@
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { seedDemo } from '../../server/db/seed.ts';
+import { seedDemo } from '#server/db/seed.ts';
 import { screenshotDir, useBrowser } from '../support/browser.ts';
 
 describe('client shell in Chromium', () => {

@@ -2,7 +2,7 @@ import { join } from 'node:path';
 import sharp from 'sharp';
 import type { Page } from 'playwright-core';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { seedDemo } from '../../server/db/seed.ts';
+import { seedDemo } from '#server/db/seed.ts';
 import { referencePhotoDir as referencePhotosDir } from '../support/pillow.ts';
 import { freePort, screenshotDir, seriousA11yViolations, sidewaysOverflow, useBrowser } from '../support/browser.ts';
 import { useMailFake } from '../support/mail.ts';
@@ -27,7 +27,10 @@ describe('a buyer orders a glass portrait and pays', () => {
   beforeAll(async () => {
     await seedDemo(b.orm.em.fork());
     payments.connect(b.baseUrl);
-    photo = await sharp(join(referencePhotosDir, 'astronaut.png')).resize(2048, 2048, { kernel: 'lanczos3' }).jpeg({ quality: 90 }).toBuffer();
+    photo = await sharp(join(referencePhotosDir, 'astronaut.png'))
+      .resize(2048, 2048, { kernel: 'lanczos3' })
+      .jpeg({ quality: 90 })
+      .toBuffer();
   });
 
   async function openDesigner(page: Page) {
@@ -50,10 +53,14 @@ describe('a buyer orders a glass portrait and pays', () => {
     expect(await page.locator('legend').allTextContents()).toEqual(['1. Size', '2. Photo', '3. Placement', '4. Words (optional)']);
     expect(await page.getByText('Choose a photo first; then move, zoom, turn and straighten it here.').count()).toBe(1);
     await page.getByLabel('Choose your photo').setInputFiles({ name: 'astronaut.jpg', mimeType: 'image/jpeg', buffer: photo });
-    await expect.poll(async () => (progressSeen ||= (await page.getByRole('progressbar', { name: 'Upload progress' }).count()) > 0)).toBe(true);
+    await expect
+      .poll(async () => (progressSeen ||= (await page.getByRole('progressbar', { name: 'Upload progress' }).count()) > 0))
+      .toBe(true);
     // Worked by hand: the square photo fills the 7.5 × 9.5 in area by its height, 2048 px over
     // 9.5 in = 215.6 pixels per inch: "fair" by print practice (150–300).
-    await expect.poll(() => page.getByRole('status').filter({ hasText: 'resolution' }).textContent(), { timeout: 15_000 }).toMatch(/Fair resolution: 215 pixels per inch at 7.5 × 9.5 in/);
+    await expect
+      .poll(() => page.getByRole('status').filter({ hasText: 'resolution' }).textContent(), { timeout: 15_000 })
+      .toMatch(/Fair resolution: 215 pixels per inch at 7.5 × 9.5 in/);
     expect(await page.getByRole('progressbar').count()).toBe(0);
     await expect.poll(() => page.getByTestId('render-time').count(), { timeout: 15_000 }).toBe(1);
     await page.getByRole('button', { name: 'Your photo' }).click();
@@ -134,7 +141,9 @@ describe('a buyer orders a glass portrait and pays', () => {
     await page.getByLabel('Choose your photo').setInputFiles({ name: 'cat.jpg', mimeType: 'image/jpeg', buffer: small });
     // By hand: the landscape photo fills the portrait area by its height, 240 px over 9.5 in =
     // 25 pixels per inch; at 5 × 7 in (6.5 in high) still 36, so no size offered reaches 150.
-    await expect.poll(() => page.getByRole('status').filter({ hasText: 'resolution' }).textContent(), { timeout: 15_000 }).toMatch(/Resolution too low: 25 pixels per inch.*upload a larger photo/);
+    await expect
+      .poll(() => page.getByRole('status').filter({ hasText: 'resolution' }).textContent(), { timeout: 15_000 })
+      .toMatch(/Resolution too low: 25 pixels per inch.*upload a larger photo/);
     await page.getByRole('button', { name: /^Add to cart/ }).click();
     await expect.poll(() => page.getByText('Confirm the low resolution, or choose a smaller size.').count()).toBe(1);
     await shot(page, 'storefront-designer-too-low');

@@ -1,8 +1,8 @@
 import { join } from 'node:path';
 import sharp from 'sharp';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { seedDemo } from '../../server/db/seed.ts';
-import { DEMO_PASSWORD } from '../../server/db/demo-scenario.ts';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { seedDemo } from '#server/db/seed.ts';
+import { DEMO_PASSWORD } from '#server/db/demo-scenario.ts';
 import { screenshotDir, useBrowser } from '../support/browser.ts';
 import { useMailFake } from '../support/mail.ts';
 
@@ -35,13 +35,19 @@ describe('an owner invites a colleague, who joins from the e-mailed link', () =>
     await owner.page.getByLabel('Storefront colour', { exact: true }).fill('#2a7a50');
     await owner.page.getByRole('button', { name: 'Save settings' }).click();
     await expect.poll(() => owner.page.getByText('Settings saved.').count()).toBe(1);
-    const logo = await sharp({ create: { width: 300, height: 120, channels: 4, background: { r: 31, g: 111, b: 139, alpha: 1 } } }).png().toBuffer();
+    const logo = await sharp({ create: { width: 300, height: 120, channels: 4, background: { r: 31, g: 111, b: 139, alpha: 1 } } })
+      .png()
+      .toBuffer();
     await owner.page.getByLabel('Choose a logo').setInputFiles({ name: 'logo.png', mimeType: 'image/png', buffer: logo });
     await expect.poll(() => owner.page.getByText('Logo saved: it shows on the storefront.').count()).toBe(1);
     await owner.page.screenshot({ path: join(screenshotDir, 'settings.png'), fullPage: true });
     await owner.page.goto(`${b.baseUrl}/s/harbour-light`);
-    await expect.poll(() => owner.page.locator('header img').evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth)).toBe(300);
-    await expect.poll(() => owner.page.evaluate(() => getComputedStyle(document.querySelector('header')!).borderBottomColor)).toBe('rgb(42, 122, 80)');
+    await expect
+      .poll(() => owner.page.locator('header img').evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth))
+      .toBe(300);
+    await expect
+      .poll(() => owner.page.evaluate(() => getComputedStyle(document.querySelector('header')!).borderBottomColor))
+      .toBe('rgb(42, 122, 80)');
     expect(owner.problems).toEqual([]);
 
     const invite = await mail.latestTo('ola@harbour-light.test');

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import request from 'supertest';
-import { errorBodySchema } from '../../shared/errors.ts';
+import { errorBodySchema } from '#shared/errors.ts';
 import { useTestApp } from '../support/test-app.ts';
 
 describe('API error answers', () => {
@@ -18,7 +18,11 @@ describe('API error answers', () => {
   });
 
   it('answers a malformed JSON body with 400 JSON and no stack trace', async () => {
-    const res = await request(t.app).post('/api/storefront/harbour-light').set('content-type', 'application/json').send('{"name": ').expect(400);
+    const res = await request(t.app)
+      .post('/api/storefront/harbour-light')
+      .set('content-type', 'application/json')
+      .send('{"name": ')
+      .expect(400);
     expect(errorBodySchema.parse(res.body)).toEqual({ code: 'BAD_REQUEST', message: 'The request body is not valid JSON.' });
     expect(JSON.stringify(res.body)).not.toMatch(/at .*\.js|SyntaxError/);
   });

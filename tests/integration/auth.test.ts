@@ -1,7 +1,7 @@
-import { beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import request from 'supertest';
-import type { StoredMessage } from '../../fakes/mail/mailbox.ts';
-import { User } from '../../server/features/accounts/user.entity.ts';
+import type { StoredMessage } from '#fakes/mail/mailbox.ts';
+import { User } from '#server/features/accounts/user.entity.ts';
 import { buildTestApp, useTestApp } from '../support/test-app.ts';
 import { useMailFake } from '../support/mail.ts';
 import { createUser, signIn, TEST_PASSWORD } from '../support/factories.ts';
@@ -15,7 +15,11 @@ describe('sign-in', () => {
 
   async function requestLink(agent: ReturnType<typeof request.agent>, email: string) {
     const csrf = await agent.get('/api/auth/csrf').expect(200);
-    return agent.post('/api/auth/signin/nodemailer').set('x-auth-return-redirect', '1').type('form').send({ csrfToken: csrf.body.csrfToken, email, callbackUrl: '/' });
+    return agent
+      .post('/api/auth/signin/nodemailer')
+      .set('x-auth-return-redirect', '1')
+      .type('form')
+      .send({ csrfToken: csrf.body.csrfToken, email, callbackUrl: '/' });
   }
   /** The link's path and query: the mail says APP_URL, the test talks to the app directly. */
   const linkPath = (message: StoredMessage) => {
@@ -50,7 +54,10 @@ describe('sign-in', () => {
       const agent = request.agent(t.app);
       await requestLink(agent, 'late@example.com');
       const message = await latestMailTo('late@example.com');
-      await t.orm.em.fork().getConnection().execute("update verification_token set expires = now() - interval '1 minute' where identifier = 'late@example.com'");
+      await t.orm.em
+        .fork()
+        .getConnection()
+        .execute("update verification_token set expires = now() - interval '1 minute' where identifier = 'late@example.com'");
       const opened = await agent.get(linkPath(message));
       expect(opened.headers.location).toContain('error=Verification');
       expect((await me(agent)).user).toBeNull();

@@ -3,20 +3,20 @@ import sharp from 'sharp';
 import request from 'supertest';
 import type Stripe from 'stripe';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { seedDemo } from '../../server/db/seed.ts';
-import { TENANT_FILTER } from '../../server/db/tenant.ts';
-import { Blank, BlankSize } from '../../server/features/catalog/catalog.entity.ts';
-import { OutboxEmail } from '../../server/features/outbox/outbox-email.entity.ts';
-import { BuyerPhoto } from '../../server/features/photos/buyer-photo.entity.ts';
-import { Order, OrderEvent } from '../../server/features/orders/order.entity.ts';
-import { ShippingRate } from '../../server/features/shipping/shipping-rate.entity.ts';
-import { Studio } from '../../server/features/studios/studio.entity.ts';
+import { seedDemo } from '#server/db/seed.ts';
+import { TENANT_FILTER } from '#server/db/tenant.ts';
+import { Blank, BlankSize } from '#server/features/catalog/catalog.entity.ts';
+import { OutboxEmail } from '#server/features/outbox/outbox-email.entity.ts';
+import { BuyerPhoto } from '#server/features/photos/buyer-photo.entity.ts';
+import { Order } from '#server/features/orders/order.entity.ts';
+import { ShippingRate } from '#server/features/shipping/shipping-rate.entity.ts';
+import { Studio } from '#server/features/studios/studio.entity.ts';
 import { eventually } from '../support/fakes.ts';
 import { postSignedEvent, usePaymentsFake } from '../support/payments.ts';
 import { useTestApp } from '../support/test-app.ts';
 import { agentFor, createUser } from '../support/factories.ts';
 import { fillCrop } from '../support/orders.ts';
-import { orientedArea } from '../../shared/imaging/sizing.ts';
+import { orientedArea } from '#shared/imaging/sizing.ts';
 
 /**
  * From a photo to a paid order on the demo studio (USD, inches): uploads, pricing from the
@@ -55,7 +55,10 @@ describe('checkout and payment', () => {
   });
   afterAll(() => new Promise((resolve) => server.close(resolve)));
 
-  const jpeg = (width: number, height: number) => sharp({ create: { width, height, channels: 3, background: '#6d7f8c' } }).jpeg().toBuffer();
+  const jpeg = (width: number, height: number) =>
+    sharp({ create: { width, height, channels: 3, background: '#6d7f8c' } })
+      .jpeg()
+      .toBuffer();
 
   /** Uploads as the designer does; answers the claim's response. */
   async function upload(bytes: Buffer, contentType = 'image/jpeg') {
@@ -76,7 +79,10 @@ describe('checkout and payment', () => {
     orientation: 'portrait',
     quantity: 1,
     photoId: photo.id,
-    placement: { crop: fillCrop(photo, orientedArea(size, (extra.orientation as 'portrait' | 'landscape' | undefined) ?? 'portrait')), rotation: 0 },
+    placement: {
+      crop: fillCrop(photo, orientedArea(size, (extra.orientation as 'portrait' | 'landscape' | undefined) ?? 'portrait')),
+      rotation: 0,
+    },
     rightsConfirmed: true,
     ...extra,
   });
@@ -86,7 +92,11 @@ describe('checkout and payment', () => {
       .send({
         items,
         buyer: { email: 'june@buyers.test', name: 'June Aldous' },
-        delivery: { method: 'ship', rateId: rate.id, address: { line1: '3 Orchard Row', city: 'Kettleby', postalCode: 'KB1 2CD', country: 'gb' } },
+        delivery: {
+          method: 'ship',
+          rateId: rate.id,
+          address: { line1: '3 Orchard Row', city: 'Kettleby', postalCode: 'KB1 2CD', country: 'gb' },
+        },
         ...extra,
       });
   const orderOf = (id: string) => scoped().findOneOrFail(Order, { id }, { populate: ['items', 'events'] });
@@ -97,7 +107,11 @@ describe('checkout and payment', () => {
   });
 
   it('prices the order from the catalog, whatever the client says about money', async () => {
-    const res = await checkout([{ ...item(large, { quantity: 2 }), priceMinor: 1, unitPrice: 1 }], { total: 1, totalMinor: 1, shippingMinor: 0 }).expect(201);
+    const res = await checkout([{ ...item(large, { quantity: 2 }), priceMinor: 1, unitPrice: 1 }], {
+      total: 1,
+      totalMinor: 1,
+      shippingMinor: 0,
+    }).expect(201);
     const order = await orderOf(res.body.orderId);
     // 2 × $69.00 + $8.95 tracked post, from the demo catalog and rates.
     expect(order).toMatchObject({ status: 'awaiting_payment', subtotalMinor: 13800, shippingMinor: 895, totalMinor: 14695 });
@@ -120,7 +134,9 @@ describe('checkout and payment', () => {
     expect(mails.map((m) => m.to).sort()).toEqual(['hello@harbour-light.test', 'june@buyers.test']);
     const buyerMail = mails.find((m) => m.to === 'june@buyers.test')!;
     const link = /(http\S+\/orders\/\S+)/.exec(buyerMail.text)![1]!;
-    await request(t.app).get(new URL(link).pathname + new URL(link).search).expect(200);
+    await request(t.app)
+      .get(new URL(link).pathname + new URL(link).search)
+      .expect(200);
 
     // The provider delivers the same event again: nothing changes.
     const events = await t.payments.stripe.events.list({ type: 'checkout.session.completed' });
@@ -136,9 +152,16 @@ describe('checkout and payment', () => {
   it('ignores an expiry that arrives after the payment', async () => {
     const res = await checkout([item(small)]).expect(201);
     await payments.pay(res.body.paymentUrl);
-    const order = await eventually(async () => ((await orderOf(res.body.orderId)).status === 'paid' ? orderOf(res.body.orderId) : undefined));
+    const order = await eventually(async () =>
+      (await orderOf(res.body.orderId)).status === 'paid' ? orderOf(res.body.orderId) : undefined,
+    );
     const session = await t.payments.stripe.checkout.sessions.retrieve(order.checkoutSessionId!);
-    const late = await signedWebhook({ id: 'evt_late_expiry_1', object: 'event', type: 'checkout.session.expired', data: { object: { ...session, status: 'expired' } } }).expect(200);
+    const late = await signedWebhook({
+      id: 'evt_late_expiry_1',
+      object: 'event',
+      type: 'checkout.session.expired',
+      data: { object: { ...session, status: 'expired' } },
+    }).expect(200);
     expect(late.body.outcome).toBe('ignored');
     expect((await orderOf(order.id)).status).toBe('paid');
   });
@@ -147,7 +170,16 @@ describe('checkout and payment', () => {
     const res = await checkout([item(small)]).expect(201);
     const order = await orderOf(res.body.orderId);
     const session = await t.payments.stripe.checkout.sessions.retrieve(order.checkoutSessionId!);
-    expect((await signedWebhook({ id: 'evt_expiry_2', object: 'event', type: 'checkout.session.expired', data: { object: { ...session, status: 'expired' } } }).expect(200)).body.outcome).toBe('handled');
+    expect(
+      (
+        await signedWebhook({
+          id: 'evt_expiry_2',
+          object: 'event',
+          type: 'checkout.session.expired',
+          data: { object: { ...session, status: 'expired' } },
+        }).expect(200)
+      ).body.outcome,
+    ).toBe('handled');
     const released = await orderOf(order.id);
     expect(released.status).toBe('cancelled');
     expect(released.items.getItems().map((i) => i.stage)).toEqual(['cancelled']);
@@ -157,7 +189,12 @@ describe('checkout and payment', () => {
     const res = await checkout([item(small)]).expect(201);
     const order = await orderOf(res.body.orderId);
     const session = await t.payments.stripe.checkout.sessions.retrieve(order.checkoutSessionId!);
-    await signedWebhook({ id: 'evt_expiry_first_3', object: 'event', type: 'checkout.session.expired', data: { object: { ...session, status: 'expired' } } }).expect(200);
+    await signedWebhook({
+      id: 'evt_expiry_first_3',
+      object: 'event',
+      type: 'checkout.session.expired',
+      data: { object: { ...session, status: 'expired' } },
+    }).expect(200);
     const stockBefore = (await scoped().findOneOrFail(BlankSize, { id: small.id })).stock;
     // The payment's own event comes after the expiry.
     await payments.pay(res.body.paymentUrl);
@@ -169,7 +206,10 @@ describe('checkout and payment', () => {
     expect(lapsed.refundedMinor).toBe(lapsed.totalMinor);
     expect(lapsed.note).toMatch(/arrived after this order had lapsed, so it was refunded in full/);
     // The provider's own record: one charge.refunded event for this payment, for the whole amount.
-    const refundsOf = async () => (await t.payments.stripe.events.list({ type: 'charge.refunded' })).data.map((e) => e.data.object as Stripe.Charge).filter((c) => c.payment_intent === lapsed.paymentIntentId);
+    const refundsOf = async () =>
+      (await t.payments.stripe.events.list({ type: 'charge.refunded' })).data
+        .map((e) => e.data.object as Stripe.Charge)
+        .filter((c) => c.payment_intent === lapsed.paymentIntentId);
     expect((await refundsOf()).map((c) => c.amount_refunded)).toEqual([lapsed.totalMinor]);
     // Delivered again: still one refund, no stock taken, nothing paid.
     const events = await t.payments.stripe.events.list({ type: 'checkout.session.completed' });
@@ -182,14 +222,23 @@ describe('checkout and payment', () => {
   it('leaves the order unpaid after a declined card, and records the attempt', async () => {
     const res = await checkout([item(small)]).expect(201);
     expect(await payments.pay(res.body.paymentUrl, '4000 0000 0000 0002')).toBe(402); // the documented generic decline card
-    await eventually(async () => ((await orderOf(res.body.orderId)).events.getItems().some((e) => e.type === 'payment_failed') ? true : undefined));
+    await eventually(async () =>
+      (await orderOf(res.body.orderId)).events.getItems().some((e) => e.type === 'payment_failed') ? true : undefined,
+    );
     expect((await orderOf(res.body.orderId)).status).toBe('awaiting_payment');
   });
 
   it('refuses a webhook with a wrong signature and changes nothing', async () => {
     const res = await checkout([item(small)]).expect(201);
     const order = await orderOf(res.body.orderId);
-    const forged = { id: 'evt_forged_1', object: 'event', type: 'checkout.session.completed', data: { object: { id: order.checkoutSessionId, object: 'checkout.session', payment_status: 'paid', metadata: { orderId: order.id } } } };
+    const forged = {
+      id: 'evt_forged_1',
+      object: 'event',
+      type: 'checkout.session.completed',
+      data: {
+        object: { id: order.checkoutSessionId, object: 'checkout.session', payment_status: 'paid', metadata: { orderId: order.id } },
+      },
+    };
     expect((await signedWebhook(forged, 'whsec_not_the_secret').expect(400)).body.code).toBe('BAD_REQUEST');
     await request(t.app).post('/api/payments/webhook').set('content-type', 'application/json').send(JSON.stringify(forged)).expect(400);
     expect((await orderOf(order.id)).status).toBe('awaiting_payment');
@@ -233,14 +282,22 @@ describe('checkout and payment', () => {
     const lowRes = await upload(await jpeg(320, 240));
     expect(lowRes.status).toBe(201);
     const low = lowRes.body;
-    const lowItem = item(small, { photoId: low.id, orientation: 'landscape', placement: { crop: fillCrop(low, orientedArea(small, 'landscape')) } });
+    const lowItem = item(small, {
+      photoId: low.id,
+      orientation: 'landscape',
+      placement: { crop: fillCrop(low, orientedArea(small, 'landscape')) },
+    });
     const refused = await checkout([lowItem]).expect(400);
     expect(refused.body.issues[0].path).toEqual(['items', 0, 'lowResolutionConfirmed']);
     // 320 px across 6.5 in is 49 pixels per inch; no offered size reaches 150.
     expect(refused.body.message).toMatch(/only 49 pixels per inch at 6\.5 × 4\.5 in.*upload a larger photo/);
     await checkout([{ ...lowItem, lowResolutionConfirmed: true }]).expect(201);
     await scoped().nativeUpdate(Studio, { id: studio.id }, { lowResolutionPolicy: 'refuse' });
-    expect((await checkout([{ ...lowItem, lowResolutionConfirmed: true }]).expect(400)).body.issues[0].path).toEqual(['items', 0, 'photoId']);
+    expect((await checkout([{ ...lowItem, lowResolutionConfirmed: true }]).expect(400)).body.issues[0].path).toEqual([
+      'items',
+      0,
+      'photoId',
+    ]);
     await scoped().nativeUpdate(Studio, { id: studio.id }, { lowResolutionPolicy: 'confirm' });
   });
 
@@ -248,9 +305,13 @@ describe('checkout and payment', () => {
     const res = await checkout([item(small)]).expect(201);
     const key = new URL(res.body.paymentUrl).pathname; // not the key: anything else must fail
     await request(t.app).get(`${base}/orders/${res.body.orderId}`).expect(404);
-    await request(t.app).get(`${base}/orders/${res.body.orderId}?key=${encodeURIComponent(key)}`).expect(404);
+    await request(t.app)
+      .get(`${base}/orders/${res.body.orderId}?key=${encodeURIComponent(key)}`)
+      .expect(404);
     const session = await t.payments.stripe.checkout.sessions.retrieve((await orderOf(res.body.orderId)).checkoutSessionId!);
-    const page = await request(t.app).get(new URL(session.success_url!).pathname.replace('/s/', '/api/storefront/') + new URL(session.success_url!).search).expect(200);
+    const page = await request(t.app)
+      .get(new URL(session.success_url!).pathname.replace('/s/', '/api/storefront/') + new URL(session.success_url!).search)
+      .expect(200);
     expect(page.body).toMatchObject({ status: 'awaiting_payment', total: '$57.95', delivery: { label: 'Tracked post, 3–5 working days' } });
   });
 
@@ -261,7 +322,14 @@ describe('checkout and payment', () => {
     await em.nativeUpdate(Blank, { id: glass.id }, { name: 'Renamed portrait' });
     const order = await orderOf(res.body.orderId);
     const [line] = order.items.getItems();
-    expect(line).toMatchObject({ unitPriceMinor: 4900, snapshot: { blank: { name: 'Black-backed glass portrait' }, size: { label: '5 × 7 in', priceMinor: 4900 }, recipe: { linesPerInch: 360, speed: 5 } } });
+    expect(line).toMatchObject({
+      unitPriceMinor: 4900,
+      snapshot: {
+        blank: { name: 'Black-backed glass portrait' },
+        size: { label: '5 × 7 in', priceMinor: 4900 },
+        recipe: { linesPerInch: 360, speed: 5 },
+      },
+    });
     expect(order.totalMinor).toBe(4900 + 895);
     await em.nativeUpdate(BlankSize, { id: small.id }, { priceMinor: 4900, label: '5 × 7 in' });
     await em.nativeUpdate(Blank, { id: glass.id }, { name: 'Black-backed glass portrait' });
@@ -282,30 +350,64 @@ describe('checkout and payment', () => {
 
   describe('uploads that need converting: taken, as 8-bit sRGB', () => {
     it.each([
-      ['a CMYK JPEG', async () => sharp({ create: { width: 1200, height: 900, channels: 3, background: '#336699' } }).toColourspace('cmyk').jpeg().toBuffer(), 'jpeg'],
-      ['a 16-bit PNG', async () => sharp({ create: { width: 1000, height: 800, channels: 3, background: '#996633' } }).toColourspace('rgb16').png().toBuffer(), 'png'],
+      [
+        'a CMYK JPEG',
+        async () =>
+          sharp({ create: { width: 1200, height: 900, channels: 3, background: '#336699' } })
+            .toColourspace('cmyk')
+            .jpeg()
+            .toBuffer(),
+        'jpeg',
+      ],
+      [
+        'a 16-bit PNG',
+        async () =>
+          sharp({ create: { width: 1000, height: 800, channels: 3, background: '#996633' } })
+            .toColourspace('rgb16')
+            .png()
+            .toBuffer(),
+        'png',
+      ],
       // 40 MP: within the 100 MP limit, decoded once and kept whole for production.
-      ['a 40-megapixel JPEG', async () => sharp({ create: { width: 8000, height: 5000, channels: 3, background: '#557788' } }).jpeg({ quality: 70 }).toBuffer(), 'jpeg'],
-    ])('accepts %s and says what it is', async (_what, make, format) => {
-      const bytes = await make();
-      // The independent reading first: what the file says it is (sharp's libvips header reader).
-      const meta = await sharp(bytes).metadata();
-      const res = await upload(bytes, format === 'png' ? 'image/png' : 'image/jpeg');
-      expect(res.status).toBe(201);
-      expect(res.body).toMatchObject({ width: meta.width, height: meta.height });
-      const preview = await request(t.app).get(res.body.previewUrl).buffer(true).parse((r, done) => {
-        const chunks: Buffer[] = [];
-        r.on('data', (c: Buffer) => chunks.push(c));
-        r.on('end', () => done(null, Buffer.concat(chunks)));
-      }).expect(200);
-      // The preview the designer draws from is 8-bit sRGB whatever came in.
-      expect(await sharp(preview.body as Buffer).metadata()).toMatchObject({ format: 'webp', space: 'srgb', depth: 'uchar' });
-    }, 60_000);
+      [
+        'a 40-megapixel JPEG',
+        async () =>
+          sharp({ create: { width: 8000, height: 5000, channels: 3, background: '#557788' } })
+            .jpeg({ quality: 70 })
+            .toBuffer(),
+        'jpeg',
+      ],
+    ])(
+      'accepts %s and says what it is',
+      async (_what, make, format) => {
+        const bytes = await make();
+        // The independent reading first: what the file says it is (sharp's libvips header reader).
+        const meta = await sharp(bytes).metadata();
+        const res = await upload(bytes, format === 'png' ? 'image/png' : 'image/jpeg');
+        expect(res.status).toBe(201);
+        expect(res.body).toMatchObject({ width: meta.width, height: meta.height });
+        const preview = await request(t.app)
+          .get(res.body.previewUrl)
+          .buffer(true)
+          .parse((r, done) => {
+            const chunks: Buffer[] = [];
+            r.on('data', (c: Buffer) => chunks.push(c));
+            r.on('end', () => done(null, Buffer.concat(chunks)));
+          })
+          .expect(200);
+        // The preview the designer draws from is 8-bit sRGB whatever came in.
+        expect(await sharp(preview.body as Buffer).metadata()).toMatchObject({ format: 'webp', space: 'srgb', depth: 'uchar' });
+      },
+      60_000,
+    );
   });
 
   describe('uploads that cannot be used: a clear 4xx and no photo kept', () => {
     it('refuses a ticket for an empty file', async () => {
-      expect((await request(t.app).post(`${base}/photo-uploads`).send({ contentType: 'image/jpeg', contentLength: 0 }).expect(400)).body.issues[0].path).toEqual(['contentLength']);
+      expect(
+        (await request(t.app).post(`${base}/photo-uploads`).send({ contentType: 'image/jpeg', contentLength: 0 }).expect(400)).body
+          .issues[0].path,
+      ).toEqual(['contentLength']);
     });
 
     const photoCount = () => scoped().count(BuyerPhoto, {});
@@ -313,7 +415,9 @@ describe('checkout and payment', () => {
       ['a PDF', 'application/pdf', 1000, 'contentType'],
       ['a file over 25 MB', 'image/jpeg', 26 * 1024 * 1024, 'contentLength'],
     ])('refuses a ticket for %s', async (_what, contentType, contentLength, field) => {
-      expect((await request(t.app).post(`${base}/photo-uploads`).send({ contentType, contentLength }).expect(400)).body.issues[0].path).toEqual([field]);
+      expect(
+        (await request(t.app).post(`${base}/photo-uploads`).send({ contentType, contentLength }).expect(400)).body.issues[0].path,
+      ).toEqual([field]);
     });
 
     it.each([
@@ -323,11 +427,32 @@ describe('checkout and payment', () => {
       ['a HEIC photo', async () => heicHeader(), 415, /HEIC/],
       ['a text file', async () => Buffer.from('not a photo, just words '.repeat(10)), 415, /JPEG, PNG/],
       ['a text file named .jpg', async () => Buffer.from('Dear studio, here is my photo. '.repeat(8)), 415, /JPEG, PNG/],
-      ['an SVG with a script', async () => Buffer.from('<svg xmlns="http://www.w3.org/2000/svg" width="800" height="600" onload="alert(1)"><script>alert(1)</script><rect width="800" height="600"/></svg>'), 415, /JPEG, PNG/],
-      ['an HTML page', async () => Buffer.from('<!doctype html><html><body><script>alert(1)</script><img src=x></body></html>'), 415, /JPEG, PNG/],
+      [
+        'an SVG with a script',
+        async () =>
+          Buffer.from(
+            '<svg xmlns="http://www.w3.org/2000/svg" width="800" height="600" onload="alert(1)"><script>alert(1)</script><rect width="800" height="600"/></svg>',
+          ),
+        415,
+        /JPEG, PNG/,
+      ],
+      [
+        'an HTML page',
+        async () => Buffer.from('<!doctype html><html><body><script>alert(1)</script><img src=x></body></html>'),
+        415,
+        /JPEG, PNG/,
+      ],
       // A ZIP's local file header (PKWARE APPNOTE 4.3.7): "PK\x03\x04".
       ['a ZIP archive', async () => Buffer.concat([Buffer.from([0x50, 0x4b, 0x03, 0x04]), Buffer.alloc(200, 1)]), 415, /JPEG, PNG/],
-      ['an animated GIF', async () => sharp([await jpeg(64, 64), await jpeg(64, 64)], { join: { animated: true } }).gif().toBuffer(), 415, /JPEG, PNG/],
+      [
+        'an animated GIF',
+        async () =>
+          sharp([await jpeg(64, 64), await jpeg(64, 64)], { join: { animated: true } })
+            .gif()
+            .toBuffer(),
+        415,
+        /JPEG, PNG/,
+      ],
       // The first bytes of a JPEG (SOI, APP0) and nothing after: not a picture at all.
       ['a JPEG cut after its first bytes', async () => (await jpeg(800, 600)).subarray(0, 20), 400, /damaged/],
     ])('refuses %s', async (_what, make, status, message) => {
@@ -365,7 +490,12 @@ function bombPng(): Buffer {
   ihdr.writeUInt32BE(100_000, 4);
   ihdr[8] = 8; // bit depth
   ihdr[9] = 0; // gray
-  return Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), chunk('IHDR', ihdr), chunk('IDAT', Buffer.from([0x78, 0x9c, 0x03, 0x00, 0x00, 0x00, 0x00, 0x01])), chunk('IEND', Buffer.alloc(0))]);
+  return Buffer.concat([
+    Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
+    chunk('IHDR', ihdr),
+    chunk('IDAT', Buffer.from([0x78, 0x9c, 0x03, 0x00, 0x00, 0x00, 0x00, 0x01])),
+    chunk('IEND', Buffer.alloc(0)),
+  ]);
 }
 
 /** The start of a HEIC file: an ISO base media 'ftyp' box with the 'heic' brand (ISO/IEC 23008-12). */

@@ -2,11 +2,11 @@ import { randomUUID } from 'node:crypto';
 import type { Express } from 'express';
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { errorBodySchema } from '../../shared/errors.ts';
-import { workspaceRoutes, type AppDeps } from '../../server/app.ts';
-import { seedDemo } from '../../server/db/seed.ts';
-import { DEMO_PASSWORD } from '../../server/db/demo-scenario.ts';
-import type { WorkspaceFixtures } from '../../server/middleware/workspace-routes.ts';
+import { errorBodySchema } from '#shared/errors.ts';
+import { workspaceRoutes, type AppDeps } from '#server/app.ts';
+import { seedDemo } from '#server/db/seed.ts';
+import { DEMO_PASSWORD } from '#server/db/demo-scenario.ts';
+import type { WorkspaceFixtures } from '#server/middleware/workspace-routes.ts';
 import { signIn } from '../support/factories.ts';
 import { useTestApp } from '../support/test-app.ts';
 
@@ -24,9 +24,14 @@ type Route = { method: string; path: string };
 /** Every route the app answers under /api, from Express's own routing table. */
 function walk(stack: unknown[], prefix = ''): Route[] {
   const routes: Route[] = [];
-  for (const layer of stack as Array<{ rawPath?: string; route?: { path: string; methods: Record<string, boolean> }; handle?: { stack?: unknown[] } }>) {
+  for (const layer of stack as Array<{
+    rawPath?: string;
+    route?: { path: string; methods: Record<string, boolean> };
+    handle?: { stack?: unknown[] };
+  }>) {
     if (layer.route) for (const method of Object.keys(layer.route.methods)) routes.push({ method, path: prefix + layer.route.path });
-    else if (layer.handle?.stack) routes.push(...walk(layer.handle.stack, prefix + (typeof layer.rawPath === 'string' ? layer.rawPath : '')));
+    else if (layer.handle?.stack)
+      routes.push(...walk(layer.handle.stack, prefix + (typeof layer.rawPath === 'string' ? layer.rawPath : '')));
   }
   return routes;
 }
@@ -40,12 +45,21 @@ function generator(seed: number) {
     t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
     return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
   };
-  return { next, pick: <T,>(items: readonly T[]) => items[Math.floor(next() * items.length)]! };
+  return { next, pick: <T>(items: readonly T[]) => items[Math.floor(next() * items.length)]! };
 }
 
 const deep = (levels: number): unknown => (levels ? { a: deep(levels - 1) } : 'bottom');
 /** Text that is valid in a free-text field and must simply be stored and shown safely. */
-const AWKWARD_TEXT = ['\u202e evil \u202c', '👩‍👩‍👧‍👦🔥', 'ǅ ß ﬁ ẞ', '<script>alert(1)</script>', "'; drop table \"order\"; --", '../../etc/passwd', '{{7*7}}', ' '];
+const AWKWARD_TEXT = [
+  '\u202e evil \u202c',
+  '👩‍👩‍👧‍👦🔥',
+  'ǅ ß ﬁ ẞ',
+  '<script>alert(1)</script>',
+  '\'; drop table "order"; --',
+  '../../etc/passwd',
+  '{{7*7}}',
+  ' ',
+];
 /** Values of the wrong kind for a field whose sample value is of `kind`: never valid there. */
 const WRONG_KIND: Record<string, unknown[]> = {
   string: [42, true, [], ['a'], {}, deep(300), 'x'.repeat(20_000)],
@@ -74,7 +88,12 @@ function attemptsFor(sample: unknown, random: ReturnType<typeof generator>): Att
   out.push({ raw: 'plain words', type: 'text/plain', mustRefuse: takesInput });
   out.push({ raw: '<x>1</x>', type: 'application/xml', mustRefuse: takesInput });
   out.push({ raw: '{"a":1}', type: 'application/json; charset=utf-7', mustRefuse: takesInput });
-  for (const key of HOSTILE_KEYS) out.push({ raw: `{"${key}": {"polluted": true}, "constructor": {"prototype": {"polluted": true}}}`, type: 'application/json', mustRefuse: takesInput });
+  for (const key of HOSTILE_KEYS)
+    out.push({
+      raw: `{"${key}": {"polluted": true}, "constructor": {"prototype": {"polluted": true}}}`,
+      type: 'application/json',
+      mustRefuse: takesInput,
+    });
   if (sample && typeof sample === 'object' && !Array.isArray(sample)) {
     for (const [field, value] of Object.entries(sample)) {
       const { [field]: _dropped, ...missing } = sample as Record<string, unknown>;
@@ -101,7 +120,9 @@ describe('bad input on every API route', () => {
     );
     const parts = [];
     for (const { table_name: table, has_updated } of tables) {
-      const [row] = await t.orm.em.getConnection().execute(`select count(*)::int as n${has_updated ? ', max("updated_at")::text as at' : ''} from "${table}"`);
+      const [row] = await t.orm.em
+        .getConnection()
+        .execute(`select count(*)::int as n${has_updated ? ', max("updated_at")::text as at' : ''} from "${table}"`);
       parts.push(`${table}:${row?.n}:${row?.at ?? ''}`);
     }
     return parts.join('\n');
@@ -114,18 +135,28 @@ describe('bad input on every API route', () => {
     // Auth.js owns /api/auth (its own checks and counters); the webhook is covered by its
     // signature tests; signing out everywhere takes no input and would end the fuzzer's session.
     const skipped = new Set(['/api/payments/webhook', '/api/me/sign-out-everywhere']);
-    routes = walk((t.app as unknown as { router: { stack: unknown[] } }).router.stack).filter((r) => r.path.startsWith('/api/') && !r.path.startsWith('/api/auth') && !skipped.has(r.path));
+    routes = walk((t.app as unknown as { router: { stack: unknown[] } }).router.stack).filter(
+      (r) => r.path.startsWith('/api/') && !r.path.startsWith('/api/auth') && !skipped.has(r.path),
+    );
     // The workspace routes' own samples, with made-up ids: shapes only, nothing is created.
     const id = () => randomUUID();
     const fixtures: WorkspaceFixtures = {
-      studioId: id(), ownerId: id(), staffId: id(),
-      makeMember: async () => id(), makeInvite: async () => id(), shippingRate: async () => id(),
-      catalog: async () => id(), upload: async () => `uploads/${id()}/blank-photos/${id()}`,
+      studioId: id(),
+      ownerId: id(),
+      staffId: id(),
+      makeMember: async () => id(),
+      makeInvite: async () => id(),
+      shippingRate: async () => id(),
+      catalog: async () => id(),
+      upload: async () => `uploads/${id()}/blank-photos/${id()}`,
       orderItem: async () => ({ orderId: id(), itemId: id(), photoId: id() }),
       production: async () => ({ orderId: id(), itemId: id(), batchId: id(), renderId: id() }),
     };
     for (const route of workspaceRoutes({ ...t, logger: undefined, version: 'test' } as unknown as AppDeps)) {
-      samples.set(`${route.method} /api/studios/:studioSlug${route.path === '/' ? '' : route.path}`, (await route.sample?.(fixtures))?.body);
+      samples.set(
+        `${route.method} /api/studios/:studioSlug${route.path === '/' ? '' : route.path}`,
+        (await route.sample?.(fixtures))?.body,
+      );
     }
   });
 
@@ -133,7 +164,10 @@ describe('bad input on every API route', () => {
     const random = generator(20261202);
     const failures: string[] = [];
     let sent = 0;
-    const param = (name: string) => (name === 'studioSlug' || name === 'slug' ? 'harbour-light' : random.pick([randomUUID(), 'not-an-id', '%F0%9F%94%A5', 'x'.repeat(300), '..%2F..']));
+    const param = (name: string) =>
+      name === 'studioSlug' || name === 'slug'
+        ? 'harbour-light'
+        : random.pick([randomUUID(), 'not-an-id', '%F0%9F%94%A5', 'x'.repeat(300), '..%2F..']);
     const mutations = routes.filter((r) => r.method !== 'get');
     const reads = routes.filter((r) => r.method === 'get');
     for (let round = 0; sent < 10_000 && round < 50; round++) {
@@ -157,12 +191,17 @@ describe('bad input on every API route', () => {
           else if (res.status < 400 && attempt.mustRefuse) failures.push(`accepted: ${what}`);
         }
         // What was refused left no trace: the tables are as they were (checked on the first round).
-        if (first !== undefined && !accepted && (await fingerprint()) !== first) failures.push(`changed records: ${route.method} ${route.path}`);
+        if (first !== undefined && !accepted && (await fingerprint()) !== first)
+          failures.push(`changed records: ${route.method} ${route.path}`);
       }
       // Reads with hostile query strings: never a 5xx.
       for (const route of reads) {
         const path = route.path.replace(/:(\w+)/g, (_, name: string) => param(name));
-        const res = await owner.get(path).query({ [random.pick(['search', 'page', 'pageSize', 'stage', 'key', '__proto__', 'constructor[prototype]'])]: String(random.pick([...AWKWARD_TEXT, 'x'.repeat(5000), '-1', '1e308', '[]'])) });
+        const res = await owner.get(path).query({
+          [random.pick(['search', 'page', 'pageSize', 'stage', 'key', '__proto__', 'constructor[prototype]'])]: String(
+            random.pick([...AWKWARD_TEXT, 'x'.repeat(5000), '-1', '1e308', '[]']),
+          ),
+        });
         sent++;
         if (res.status >= 500) failures.push(`GET ${route.path} → ${res.status} ${JSON.stringify(res.body).slice(0, 200)}`);
       }

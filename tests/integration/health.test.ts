@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
-import { healthSchema } from '../../shared/health.ts';
+import { healthSchema } from '#shared/health.ts';
 import { buildTestApp } from '../support/test-app.ts';
 import { startTcpProxy } from '../support/tcp-proxy.ts';
 

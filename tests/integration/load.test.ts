@@ -1,8 +1,8 @@
 import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { seedDemo } from '../../server/db/seed.ts';
-import { BuyerPhoto } from '../../server/features/photos/buyer-photo.entity.ts';
+import { seedDemo } from '#server/db/seed.ts';
+import { BuyerPhoto } from '#server/features/photos/buyer-photo.entity.ts';
 import { prepareStorefrontLoad, runLoad, startBareExpress, type LoadTarget } from '../bench/load-bench.ts';
 import { useTestApp } from '../support/test-app.ts';
 
@@ -42,15 +42,28 @@ describe('under load', () => {
     }
   }, 60_000);
 
-  it.each(['storefront catalog', 'order page', 'upload accept'])('%s: every request answered 2xx', async (name) => {
-    const photosBefore = await t.orm.em.fork().count(BuyerPhoto, {}, { filters: false });
-    const result = await runLoad(baseUrl, targets.find((target) => target.name === name)!, options);
-    expect(result).toMatchObject({ non2xx: 0, timeouts: 0, errors: 0 });
-    expect(result.requests).toBeGreaterThan(0);
-    if (name === 'upload accept') {
-      // Nothing lost: each answered accept stored its photo (those still queued when the run
-      // stopped may be stored too, never fewer).
-      await expect.poll(async () => (await t.orm.em.fork().count(BuyerPhoto, {}, { filters: false })) - photosBefore, { timeout: 60_000, interval: 500 }).toBeGreaterThanOrEqual(result.requests);
-    }
-  }, 120_000);
+  it.each(['storefront catalog', 'order page', 'upload accept'])(
+    '%s: every request answered 2xx',
+    async (name) => {
+      const photosBefore = await t.orm.em.fork().count(BuyerPhoto, {}, { filters: false });
+      const result = await runLoad(
+        baseUrl,
+        targets.find((target) => target.name === name)!,
+        options,
+      );
+      expect(result).toMatchObject({ non2xx: 0, timeouts: 0, errors: 0 });
+      expect(result.requests).toBeGreaterThan(0);
+      if (name === 'upload accept') {
+        // Nothing lost: each answered accept stored its photo (those still queued when the run
+        // stopped may be stored too, never fewer).
+        await expect
+          .poll(async () => (await t.orm.em.fork().count(BuyerPhoto, {}, { filters: false })) - photosBefore, {
+            timeout: 60_000,
+            interval: 500,
+          })
+          .toBeGreaterThanOrEqual(result.requests);
+      }
+    },
+    120_000,
+  );
 });

@@ -1,15 +1,15 @@
 import { Writable } from 'node:stream';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { seedDemo } from '../../server/db/seed.ts';
-import { DEMO_PASSWORD } from '../../server/db/demo-scenario.ts';
-import { TENANT_FILTER } from '../../server/db/tenant.ts';
-import { LOCAL_SECRETS } from '../../server/env.ts';
-import { loggableUrl } from '../../server/logger.ts';
-import { Blank } from '../../server/features/catalog/catalog.entity.ts';
-import { OutboxEmail } from '../../server/features/outbox/outbox-email.entity.ts';
-import { OrderItem } from '../../server/features/orders/order.entity.ts';
-import { Studio } from '../../server/features/studios/studio.entity.ts';
+import { seedDemo } from '#server/db/seed.ts';
+import { DEMO_PASSWORD } from '#server/db/demo-scenario.ts';
+import { TENANT_FILTER } from '#server/db/tenant.ts';
+import { LOCAL_SECRETS } from '#server/env.ts';
+import { loggableUrl } from '#server/logger.ts';
+import { Blank } from '#server/features/catalog/catalog.entity.ts';
+import { OutboxEmail } from '#server/features/outbox/outbox-email.entity.ts';
+import { OrderItem } from '#server/features/orders/order.entity.ts';
+import { Studio } from '#server/features/studios/studio.entity.ts';
 import { signIn } from '../support/factories.ts';
 import { placePaidOrder, uploadBuyerPhoto } from '../support/orders.ts';
 import { buildTestApp } from '../support/test-app.ts';
@@ -41,9 +41,16 @@ describe('what the log keeps', () => {
 
     const em = t.orm.em.fork();
     const studio = await em.findOneOrFail(Studio, { slug: 'harbour-light' });
-    const glass = await em.findOneOrFail(Blank, { name: 'Black-backed glass portrait' }, { populate: ['sizes'], filters: { [TENANT_FILTER]: { studioId: studio.id } } });
+    const glass = await em.findOneOrFail(
+      Blank,
+      { name: 'Black-backed glass portrait' },
+      { populate: ['sizes'], filters: { [TENANT_FILTER]: { studioId: studio.id } } },
+    );
     const photo = await uploadBuyerPhoto(t, 'harbour-light', 1500, 2100);
-    const orderId = await placePaidOrder(t, 'harbour-light', [{ blankId: glass.id, sizeId: glass.sizes[0]!.id, photo }], { email: 'gale@buyers.test', name: 'Gale Orr' });
+    const orderId = await placePaidOrder(t, 'harbour-light', [{ blankId: glass.id, sizeId: glass.sizes[0]!.id, photo }], {
+      email: 'gale@buyers.test',
+      name: 'Gale Orr',
+    });
     const received = await t.orm.em.fork().findOneOrFail(OutboxEmail, { to: 'gale@buyers.test', subject: { $like: 'Your order%' } });
     secrets.orderKey = /[?&]key=([\w-]+)/.exec(received.text)![1]!;
     await request(t.app).get(`/api/storefront/harbour-light/orders/${orderId}?key=${secrets.orderKey}`).expect(200);
@@ -55,9 +62,17 @@ describe('what the log keeps', () => {
     secrets.proofToken = /\/proofs\/([\w-]+)/.exec(proofMail.text)![1]!;
     await request(t.app).get(`/api/storefront/harbour-light/proofs/${secrets.proofToken}`).expect(200);
 
-    const ticket = (await request(t.app).post('/api/storefront/harbour-light/photo-uploads').send({ contentType: 'image/jpeg', contentLength: 1000 }).expect(201)).body;
+    const ticket = (
+      await request(t.app)
+        .post('/api/storefront/harbour-light/photo-uploads')
+        .send({ contentType: 'image/jpeg', contentLength: 1000 })
+        .expect(201)
+    ).body;
     secrets.uploadSignature = new URL(ticket.url).searchParams.get('X-Amz-Signature')!;
-    await request(t.app).get(`/api/storefront/harbour-light/orders/${orderId}?key=${secrets.orderKey}&X-Amz-Signature=${secrets.uploadSignature}`).set('authorization', `Bearer ${LOCAL_SECRETS.STRIPE_SECRET_KEY}`).expect(200);
+    await request(t.app)
+      .get(`/api/storefront/harbour-light/orders/${orderId}?key=${secrets.orderKey}&X-Amz-Signature=${secrets.uploadSignature}`)
+      .set('authorization', `Bearer ${LOCAL_SECRETS.STRIPE_SECRET_KEY}`)
+      .expect(200);
 
     const log = lines.join('');
     expect(log.split('\n').length).toBeGreaterThan(12);
@@ -67,7 +82,11 @@ describe('what the log keeps', () => {
   });
 
   it('redacts link tokens and signatures in URLs but keeps ids readable', () => {
-    expect(loggableUrl('/api/storefront/s/orders/6f1c2d3e-0000-4000-8000-00000000abcd?key=abc&x=1')).toBe('/api/storefront/s/orders/6f1c2d3e-0000-4000-8000-00000000abcd?key=[redacted]&x=1');
-    expect(loggableUrl('/api/storefront/s/replacements/LcFOSemtGOinuxfsxp5RqEIUfEeK5qO0blYIkI8Qf5c/photo')).toBe('/api/storefront/s/replacements/[redacted]/photo');
+    expect(loggableUrl('/api/storefront/s/orders/6f1c2d3e-0000-4000-8000-00000000abcd?key=abc&x=1')).toBe(
+      '/api/storefront/s/orders/6f1c2d3e-0000-4000-8000-00000000abcd?key=[redacted]&x=1',
+    );
+    expect(loggableUrl('/api/storefront/s/replacements/LcFOSemtGOinuxfsxp5RqEIUfEeK5qO0blYIkI8Qf5c/photo')).toBe(
+      '/api/storefront/s/replacements/[redacted]/photo',
+    );
   });
 });

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { OutboxEmail } from '../../server/features/outbox/outbox-email.entity.ts';
-import { queueEmail } from '../../server/features/outbox/outbox.service.ts';
+import { OutboxEmail } from '#server/features/outbox/outbox-email.entity.ts';
+import { queueEmail } from '#server/features/outbox/outbox.service.ts';
 import { eventually } from '../support/fakes.ts';
 import { useMailFake } from '../support/mail.ts';
 import { startTcpProxy } from '../support/tcp-proxy.ts';
@@ -46,8 +46,9 @@ describe('mail server down', () => {
       const rows = await t.orm.em.fork().find(OutboxEmail, { to: 'fern@buyers.test' });
       return rows.every((r) => r.status === 'sent') ? rows : undefined;
     }, 30_000);
-    const inbox = (await (await fetch(`${mail.url}/api/messages?to=fern@buyers.test`)).json()) as { messages?: Array<{ subject: string }> } | Array<{ subject: string }>;
-    const received = (Array.isArray(inbox) ? inbox : inbox.messages ?? []).map((m) => m.subject).sort();
+    const inbox = (await (await fetch(`${mail.url}/api/messages?to=fern@buyers.test`)).json()) as
+      { messages?: Array<{ subject: string }> } | Array<{ subject: string }>;
+    const received = (Array.isArray(inbox) ? inbox : (inbox.messages ?? [])).map((m) => m.subject).sort();
     expect(received).toEqual([...subjects].sort());
   });
 });

@@ -1,7 +1,7 @@
 import request from 'supertest';
 import sharp from 'sharp';
 import { beforeAll, describe, expect, it } from 'vitest';
-import type { Studio } from '../../server/features/studios/studio.entity.ts';
+import type { Studio } from '#server/features/studios/studio.entity.ts';
 import { createStudio } from '../support/factories.ts';
 import { useTestApp } from '../support/test-app.ts';
 
@@ -16,12 +16,19 @@ describe('presigned upload links', () => {
   let other: Studio;
   let jpeg: Buffer;
   const ticket = async (slug: string) =>
-    (await request(t.app).post(`/api/storefront/${slug}/photo-uploads`).send({ contentType: 'image/jpeg', contentLength: jpeg.length }).expect(201)).body as { url: string; key: string; headers: Record<string, string> };
+    (
+      await request(t.app)
+        .post(`/api/storefront/${slug}/photo-uploads`)
+        .send({ contentType: 'image/jpeg', contentLength: jpeg.length })
+        .expect(201)
+    ).body as { url: string; key: string; headers: Record<string, string> };
 
   beforeAll(async () => {
     studio = await createStudio(t.orm.em.fork(), { slug: 'link-shop' });
     other = await createStudio(t.orm.em.fork(), { slug: 'other-shop' });
-    jpeg = await sharp({ create: { width: 640, height: 480, channels: 3, background: '#445566' } }).jpeg().toBuffer();
+    jpeg = await sharp({ create: { width: 640, height: 480, channels: 3, background: '#445566' } })
+      .jpeg()
+      .toBuffer();
   });
 
   it('lasts ten minutes and names a random key under the studio', async () => {
@@ -31,7 +38,9 @@ describe('presigned upload links', () => {
     expect(url.searchParams.get('X-Amz-Expires')).toBe('600');
     expect(url.searchParams.get('X-Amz-Algorithm')).toBe('AWS4-HMAC-SHA256');
     // RFC 9562 version 4 UUIDs: 122 random bits each.
-    expect(first.key).toMatch(new RegExp(`^uploads/${studio.id}/buyer-photos/[0-9a-f]{8}-[0-9a-f]{4}-4[0-9a-f]{3}-[89ab][0-9a-f]{3}-[0-9a-f]{12}$`));
+    expect(first.key).toMatch(
+      new RegExp(`^uploads/${studio.id}/buyer-photos/[0-9a-f]{8}-[0-9a-f]{4}-4[0-9a-f]{3}-[89ab][0-9a-f]{3}-[0-9a-f]{12}$`),
+    );
     expect(second.key).not.toBe(first.key);
   });
 

@@ -1,7 +1,7 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { Studio } from '../../server/features/studios/studio.entity.ts';
-import { Invite } from '../../server/features/team/invite.entity.ts';
+import { Studio } from '#server/features/studios/studio.entity.ts';
+import { Invite } from '#server/features/team/invite.entity.ts';
 import { agentFor, createMember, createStudio } from '../support/factories.ts';
 import { useTestApp } from '../support/test-app.ts';
 
@@ -36,9 +36,19 @@ describe('rate limits', () => {
   it('limits studios opened from one address, not counting refused forms', async () => {
     const { points } = t.limits.allowance('signUp');
     const open = (i: number, ip = '198.51.100.7') =>
-      request(t.app).post('/api/accounts/studios').set(from(ip)).send({ studioName: `Bench ${i}`, slug: `bench-${i}`, ownerName: 'Noor Hale', email: `noor${i}@bench.test`, password: 'a long enough password' });
+      request(t.app)
+        .post('/api/accounts/studios')
+        .set(from(ip))
+        .send({
+          studioName: `Bench ${i}`,
+          slug: `bench-${i}`,
+          ownerName: 'Noor Hale',
+          email: `noor${i}@bench.test`,
+          password: 'a long enough password',
+        });
     // Forms the schema refuses cost nothing.
-    for (let i = 0; i < points + 2; i++) await request(t.app).post('/api/accounts/studios').set(from('198.51.100.7')).send({ slug: 'x' }).expect(400);
+    for (let i = 0; i < points + 2; i++)
+      await request(t.app).post('/api/accounts/studios').set(from('198.51.100.7')).send({ slug: 'x' }).expect(400);
     const over = await spend(points, (i) => open(i), [201]);
     expectLimited(over, /^Too many studios have been opened from this address\. Try again in \d+ minutes?\.$/);
     expect(await t.orm.em.fork().count(Studio, { slug: `bench-${points}` })).toBe(0);
@@ -57,14 +67,19 @@ describe('rate limits', () => {
 
   it('limits accounts made from invitation links, so tokens cannot be tried at will', async () => {
     const { points } = t.limits.allowance('inviteAccount');
-    const make = (i: number) => request(t.app).post(`/api/invites/${'t'.repeat(30)}${i}/accept-with-account`).set(from('203.0.113.9')).send({ name: 'Pim Ray', password: 'a long enough password' });
+    const make = (i: number) =>
+      request(t.app)
+        .post(`/api/invites/${'t'.repeat(30)}${i}/accept-with-account`)
+        .set(from('203.0.113.9'))
+        .send({ name: 'Pim Ray', password: 'a long enough password' });
     const over = await spend(points, make, [404]);
     expectLimited(over, /^Too many accounts have been made from this address\./);
   });
 
   it('limits photos taken in from one address', async () => {
     const { points } = t.limits.allowance('photoAccept');
-    const accept = (ip: string) => request(t.app).post('/api/storefront/busy-bench/buyer-photos').set(from(ip)).send({ key: 'uploads/none/buyer-photos/missing' });
+    const accept = (ip: string) =>
+      request(t.app).post('/api/storefront/busy-bench/buyer-photos').set(from(ip)).send({ key: 'uploads/none/buyer-photos/missing' });
     const over = await spend(points, () => accept('192.0.2.44'), [404]);
     expectLimited(over, /^Too many photos have been uploaded from this address\. Try again in \d+ minutes?\.$/);
     expect((await accept('192.0.2.45')).status).toBe(404);

@@ -1,7 +1,7 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { seedDemo } from '../../server/db/seed.ts';
-import { DEMO_PASSWORD } from '../../server/db/demo-scenario.ts';
+import { seedDemo } from '#server/db/seed.ts';
+import { DEMO_PASSWORD } from '#server/db/demo-scenario.ts';
 import { signIn } from '../support/factories.ts';
 import { useTestApp } from '../support/test-app.ts';
 
@@ -21,7 +21,10 @@ describe('requests from other sites', () => {
     await signIn(member, 'tobias@harbour-light.test', DEMO_PASSWORD);
   });
 
-  const refused = { code: 'FORBIDDEN', message: 'This request came from another site and was refused. Open Etchwell itself and try again.' };
+  const refused = {
+    code: 'FORBIDDEN',
+    message: 'This request came from another site and was refused. Open Etchwell itself and try again.',
+  };
 
   it('refuses a cookie-carrying change sent from another site, by Sec-Fetch-Site or by Origin', async () => {
     expect((await member.post(url).set('sec-fetch-site', 'cross-site').send({}).expect(403)).body).toEqual(refused);
@@ -38,6 +41,10 @@ describe('requests from other sites', () => {
   });
 
   it('does not stand in the way of requests without cookies (webhooks, scripts)', async () => {
-    await request(t.app).post('/api/storefront/harbour-light/photo-uploads').set('origin', 'https://elsewhere.example').send({ contentType: 'image/jpeg', contentLength: 1000 }).expect(201);
+    await request(t.app)
+      .post('/api/storefront/harbour-light/photo-uploads')
+      .set('origin', 'https://elsewhere.example')
+      .send({ contentType: 'image/jpeg', contentLength: 1000 })
+      .expect(201);
   });
 });

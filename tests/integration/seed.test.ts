@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { seedDemo } from '../../server/db/seed.ts';
-import { demoPeople, demoStudios } from '../../server/db/demo-scenario.ts';
-import { Studio } from '../../server/features/studios/studio.entity.ts';
+import { seedDemo } from '#server/db/seed.ts';
+import { demoPeople, demoStudios } from '#server/db/demo-scenario.ts';
+import { Studio } from '#server/features/studios/studio.entity.ts';
 import { useTestApp } from '../support/test-app.ts';
 
 describe('demo scenario seed', () => {

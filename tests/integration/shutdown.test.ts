@@ -2,8 +2,8 @@ import { spawn } from 'node:child_process';
 import { createServer } from 'node:net';
 import sharp from 'sharp';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { BuyerPhoto } from '../../server/features/photos/buyer-photo.entity.ts';
-import type { Studio } from '../../server/features/studios/studio.entity.ts';
+import { BuyerPhoto } from '#server/features/photos/buyer-photo.entity.ts';
+import type { Studio } from '#server/features/studios/studio.entity.ts';
 import { createStudio } from '../support/factories.ts';
 import { useTestApp } from '../support/test-app.ts';
 
@@ -31,7 +31,14 @@ describe('a web process stopped mid-request', () => {
   it('finishes the work in hand before it closes the database', async () => {
     const port = await freePort();
     const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-      env: { ...process.env, NODE_ENV: 'test', PROCESS_ROLE: 'web', PORT: String(port), DATABASE_URL: t.env.DATABASE_URL, LOG_LEVEL: 'warn' },
+      env: {
+        ...process.env,
+        NODE_ENV: 'test',
+        PROCESS_ROLE: 'web',
+        PORT: String(port),
+        DATABASE_URL: t.env.DATABASE_URL,
+        LOG_LEVEL: 'warn',
+      },
       stdio: ['ignore', 'pipe', 'pipe'],
     });
     let output = '';
@@ -40,14 +47,38 @@ describe('a web process stopped mid-request', () => {
     const exited = new Promise<number | null>((resolve) => child.on('exit', (code) => resolve(code)));
     const base = `http://127.0.0.1:${port}/api/storefront/late-shift`;
     try {
-      for (let i = 0; i < 300 && !(await fetch(`http://127.0.0.1:${port}/api/health`).then((r) => r.ok, () => false)); i++) await new Promise((r) => setTimeout(r, 100));
+      for (
+        let i = 0;
+        i < 300 &&
+        !(await fetch(`http://127.0.0.1:${port}/api/health`).then(
+          (r) => r.ok,
+          () => false,
+        ));
+        i++
+      )
+        await new Promise((r) => setTimeout(r, 100));
       // A large photo, so that its accept is still at work when the stop comes.
-      const jpeg = await sharp({ create: { width: 6000, height: 4000, channels: 3, background: '#808080', noise: { type: 'gaussian', mean: 128, sigma: 40 } } }).jpeg().toBuffer();
-      const ticket = await (await fetch(`${base}/photo-uploads`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ contentType: 'image/jpeg', contentLength: jpeg.length }) })).json();
+      const jpeg = await sharp({
+        create: { width: 6000, height: 4000, channels: 3, background: '#808080', noise: { type: 'gaussian', mean: 128, sigma: 40 } },
+      })
+        .jpeg()
+        .toBuffer();
+      const ticket = await (
+        await fetch(`${base}/photo-uploads`, {
+          method: 'POST',
+          headers: { 'content-type': 'application/json' },
+          body: JSON.stringify({ contentType: 'image/jpeg', contentLength: jpeg.length }),
+        })
+      ).json();
       expect((await fetch(ticket.url, { method: 'PUT', headers: ticket.headers, body: new Uint8Array(jpeg) })).status).toBe(200);
 
       const buyer = new AbortController();
-      const accept = fetch(`${base}/buyer-photos`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ key: ticket.key }), signal: buyer.signal }).catch(() => 'hung up');
+      const accept = fetch(`${base}/buyer-photos`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({ key: ticket.key }),
+        signal: buyer.signal,
+      }).catch(() => 'hung up');
       await new Promise((r) => setTimeout(r, 150));
       buyer.abort();
       expect(await accept).toBe('hung up');

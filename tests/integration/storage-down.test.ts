@@ -1,8 +1,8 @@
 import sharp from 'sharp';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { seedDemo } from '../../server/db/seed.ts';
-import { BuyerPhoto } from '../../server/features/photos/buyer-photo.entity.ts';
+import { seedDemo } from '#server/db/seed.ts';
+import { BuyerPhoto } from '#server/features/photos/buyer-photo.entity.ts';
 import { startTcpProxy } from '../support/tcp-proxy.ts';
 import { buildTestApp } from '../support/test-app.ts';
 
@@ -31,13 +31,20 @@ describe('object storage down', () => {
   const photoRows = () => t.orm.em.fork().count(BuyerPhoto, {}, { filters: false });
 
   it('answers the accept call with 503 and a clear message, stores nothing, and accepts the same upload later', async () => {
-    const bytes = await sharp({ create: { width: 1200, height: 1500, channels: 3, background: '#6b7c8d' } }).jpeg().toBuffer();
-    const ticket = (await request(t.app).post(`${store}/photo-uploads`).send({ contentType: 'image/jpeg', contentLength: bytes.length }).expect(201)).body;
+    const bytes = await sharp({ create: { width: 1200, height: 1500, channels: 3, background: '#6b7c8d' } })
+      .jpeg()
+      .toBuffer();
+    const ticket = (
+      await request(t.app).post(`${store}/photo-uploads`).send({ contentType: 'image/jpeg', contentLength: bytes.length }).expect(201)
+    ).body;
     expect((await fetch(ticket.url, { method: 'PUT', headers: ticket.headers, body: new Uint8Array(bytes) })).status).toBe(200);
 
     await proxy.cut();
     const refused = await request(t.app).post(`${store}/buyer-photos`).send({ key: ticket.key }).expect(503);
-    expect(refused.body).toEqual({ code: 'SERVICE_UNAVAILABLE', message: 'File storage is not answering just now. Nothing was saved; please try again in a minute.' });
+    expect(refused.body).toEqual({
+      code: 'SERVICE_UNAVAILABLE',
+      message: 'File storage is not answering just now. Nothing was saved; please try again in a minute.',
+    });
     expect(await photoRows()).toBe(0);
 
     await proxy.restore();

@@ -1,7 +1,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
-import { publicStudioSchema } from '../../shared/studio.ts';
-import { Studio } from '../../server/features/studios/studio.entity.ts';
+import { publicStudioSchema } from '#shared/studio.ts';
+import { Studio } from '#server/features/studios/studio.entity.ts';
 import { useTestApp } from '../support/test-app.ts';
 
 describe('GET /api/storefront/:studioSlug', () => {
@@ -16,7 +16,16 @@ describe('GET /api/storefront/:studioSlug', () => {
 
   it('answers the public face of a studio and nothing more', async () => {
     const res = await request(t.app).get('/api/storefront/north-pier').expect(200);
-    expect(publicStudioSchema.strict().parse(res.body)).toEqual({ slug: 'north-pier', name: 'North Pier Etching', accentColour: '#336699', status: 'active', currency: 'USD', units: 'in', lowResolutionPolicy: 'confirm', logoUrl: null });
+    expect(publicStudioSchema.strict().parse(res.body)).toEqual({
+      slug: 'north-pier',
+      name: 'North Pier Etching',
+      accentColour: '#336699',
+      status: 'active',
+      currency: 'USD',
+      units: 'in',
+      lowResolutionPolicy: 'confirm',
+      logoUrl: null,
+    });
   });
 
   it('tells a suspended studio apart', async () => {

@@ -1,6 +1,6 @@
-import { beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import request from 'supertest';
-import { User } from '../../server/features/accounts/user.entity.ts';
+import { User } from '#server/features/accounts/user.entity.ts';
 import { useTestApp } from '../support/test-app.ts';
 import { useMailFake } from '../support/mail.ts';
 import { agentFor, createMember, createStudio, createUser, signIn } from '../support/factories.ts';
@@ -9,11 +9,22 @@ describe('opening a studio, and platform admin', () => {
   const mail = useMailFake();
   const t = useTestApp(async () => ({ SMTP_URL: (await mail.start()).smtpUrl }));
 
-  const valid = { studioName: 'Copper Finch Engraving', slug: 'copper-finch', ownerName: 'Rosa Vell', email: 'rosa@copper-finch.test', password: 'a very long password' };
+  const valid = {
+    studioName: 'Copper Finch Engraving',
+    slug: 'copper-finch',
+    ownerName: 'Rosa Vell',
+    email: 'rosa@copper-finch.test',
+    password: 'a very long password',
+  };
 
   it('checks an address live: format, reserved words and studios already there', async () => {
     await createStudio(t.orm.em.fork(), { slug: 'taken-one' });
-    const check = async (slug: string) => (await request(t.app).get(`/api/accounts/slug-availability?slug=${encodeURIComponent(slug)}`).expect(200)).body;
+    const check = async (slug: string) =>
+      (
+        await request(t.app)
+          .get(`/api/accounts/slug-availability?slug=${encodeURIComponent(slug)}`)
+          .expect(200)
+      ).body;
     expect(await check('fresh-name')).toEqual({ slug: 'fresh-name', available: true });
     expect(await check('taken-one')).toMatchObject({ available: false, reason: 'Another studio already uses this address.' });
     expect(await check('admin')).toMatchObject({ available: false, reason: 'This address is reserved.' });
@@ -27,7 +38,10 @@ describe('opening a studio, and platform admin', () => {
     ['email', { email: 'rosa' }],
     ['password', { password: 'short' }],
   ])('refuses a bad %s with that field’s message, and writes nothing', async (field, change) => {
-    const res = await request(t.app).post('/api/accounts/studios').send({ ...valid, ...change }).expect(400);
+    const res = await request(t.app)
+      .post('/api/accounts/studios')
+      .send({ ...valid, ...change })
+      .expect(400);
     expect(res.body.issues.map((i: { path: string[] }) => i.path[0])).toEqual([field]);
     expect(await t.orm.em.fork().count(User, { email: valid.email })).toBe(0);
   });
@@ -49,9 +63,15 @@ describe('opening a studio, and platform admin', () => {
   });
 
   it('refuses a second studio at the same address or for an e-mail already in use', async () => {
-    const sameSlug = await request(t.app).post('/api/accounts/studios').send({ ...valid, email: 'other@copper-finch.test' }).expect(409);
+    const sameSlug = await request(t.app)
+      .post('/api/accounts/studios')
+      .send({ ...valid, email: 'other@copper-finch.test' })
+      .expect(409);
     expect(sameSlug.body.issues[0].path).toEqual(['slug']);
-    const sameEmail = await request(t.app).post('/api/accounts/studios').send({ ...valid, slug: 'copper-finch-two' }).expect(409);
+    const sameEmail = await request(t.app)
+      .post('/api/accounts/studios')
+      .send({ ...valid, slug: 'copper-finch-two' })
+      .expect(409);
     expect(sameEmail.body.issues[0].path).toEqual(['email']);
   });
 

@@ -1,10 +1,10 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
-import { Invite } from '../../server/features/team/invite.entity.ts';
-import { Membership } from '../../server/features/team/membership.entity.ts';
-import { withoutTenantFilter } from '../../server/db/tenant.ts';
-import type { Studio } from '../../server/features/studios/studio.entity.ts';
-import type { User } from '../../server/features/accounts/user.entity.ts';
+import { Invite } from '#server/features/team/invite.entity.ts';
+import { Membership } from '#server/features/team/membership.entity.ts';
+import { withoutTenantFilter } from '#server/db/tenant.ts';
+import type { Studio } from '#server/features/studios/studio.entity.ts';
+import type { User } from '#server/features/accounts/user.entity.ts';
 import { useTestApp } from '../support/test-app.ts';
 import { useMailFake } from '../support/mail.ts';
 import { agentFor, createMember, createStudio, createUser, signIn } from '../support/factories.ts';
@@ -25,7 +25,8 @@ describe('team: invites, roles and the last owner', () => {
   });
 
   const base = '/api/studios/team-studio';
-  const tokenFromMail = async (email: string) => (await mail.latestTo(email)).links.map((l) => /\/invites\/([\w-]+)$/.exec(l)?.[1]).find(Boolean);
+  const tokenFromMail = async (email: string) =>
+    (await mail.latestTo(email)).links.map((l) => /\/invites\/([\w-]+)$/.exec(l)?.[1]).find(Boolean);
   const invite = async (email: string, role = 'staff') => {
     await ownerAgent.post(`${base}/team/invites`).send({ email, role }).expect(201);
     return tokenFromMail(email);
@@ -34,7 +35,13 @@ describe('team: invites, roles and the last owner', () => {
   it('e-mails an invite that an existing account accepts, joining with the invite’s role', async () => {
     const colleague = await createUser(t.orm.em.fork(), { email: 'colleague@example.com' });
     const token = await invite('Colleague@Example.com');
-    expect((await request(t.app).get(`/api/invites/${token}`).expect(200)).body).toMatchObject({ studioName: 'Team Studio', email: 'colleague@example.com', role: 'staff', status: 'open', hasAccount: true });
+    expect((await request(t.app).get(`/api/invites/${token}`).expect(200)).body).toMatchObject({
+      studioName: 'Team Studio',
+      email: 'colleague@example.com',
+      role: 'staff',
+      status: 'open',
+      hasAccount: true,
+    });
     const agent = await agentFor(t.app, colleague);
     expect((await agent.post(`/api/invites/${token}/accept`).expect(200)).body).toEqual({ studioSlug: 'team-studio' });
     expect((await agent.get(`${base}`).expect(200)).body.role).toBe('staff');
@@ -45,7 +52,10 @@ describe('team: invites, roles and the last owner', () => {
 
   it('lets a new person create an account while accepting', async () => {
     const token = await invite('newcomer@example.com', 'owner');
-    const res = await request(t.app).post(`/api/invites/${token}/accept-with-account`).send({ name: 'New Comer', password: 'a long new password' }).expect(201);
+    const res = await request(t.app)
+      .post(`/api/invites/${token}/accept-with-account`)
+      .send({ name: 'New Comer', password: 'a long new password' })
+      .expect(201);
     expect(res.body).toEqual({ studioSlug: 'team-studio', email: 'newcomer@example.com' });
     const agent = request.agent(t.app);
     await signIn(agent, 'newcomer@example.com', 'a long new password');
@@ -61,9 +71,13 @@ describe('team: invites, roles and the last owner', () => {
 
   it('refuses an expired invite and a withdrawn one, and an unknown token', async () => {
     const token = await invite('slow@example.com');
-    await t.orm.em.fork().nativeUpdate(Invite, { email: 'slow@example.com' }, { expiresAt: new Date(Date.now() - 1000) }, withoutTenantFilter);
+    await t.orm.em
+      .fork()
+      .nativeUpdate(Invite, { email: 'slow@example.com' }, { expiresAt: new Date(Date.now() - 1000) }, withoutTenantFilter);
     const slow = await agentFor(t.app, await createUser(t.orm.em.fork(), { email: 'slow@example.com' }));
-    expect((await slow.post(`/api/invites/${token}/accept`).expect(409)).body.message).toBe('This invitation has expired. Ask the studio for a new one.');
+    expect((await slow.post(`/api/invites/${token}/accept`).expect(409)).body.message).toBe(
+      'This invitation has expired. Ask the studio for a new one.',
+    );
 
     const withdrawn = await invite('withdrawn@example.com');
     const { invites } = (await ownerAgent.get(`${base}/team`).expect(200)).body as { invites: Array<{ id: string; email: string }> };
@@ -83,7 +97,10 @@ describe('team: invites, roles and the last owner', () => {
     const solo = await createStudio(em, { slug: 'solo-studio' });
     const soloOwner = await createMember(em, solo, 'owner');
     const agent = await agentFor(t.app, soloOwner.user);
-    const demote = await agent.patch(`/api/studios/solo-studio/team/members/${soloOwner.membership.id}`).send({ role: 'staff' }).expect(409);
+    const demote = await agent
+      .patch(`/api/studios/solo-studio/team/members/${soloOwner.membership.id}`)
+      .send({ role: 'staff' })
+      .expect(409);
     expect(demote.body.message).toBe('A studio needs at least one owner. Make another member an owner first.');
     await agent.delete(`/api/studios/solo-studio/team/members/${soloOwner.membership.id}`).expect(409);
 

@@ -80,10 +80,16 @@ export async function freePort(): Promise<number> {
 export async function seriousA11yViolations(page: Page): Promise<string[]> {
   await page.addScriptTag({ path: join(import.meta.dirname, '..', '..', 'node_modules', 'axe-core', 'axe.min.js') });
   const violations = await page.evaluate(async () => {
-    const axe = (globalThis as unknown as { axe: { run(): Promise<{ violations: Array<{ id: string; impact: string; nodes: Array<{ target: string[] }> }> }> } }).axe;
+    const axe = (
+      globalThis as unknown as {
+        axe: { run(): Promise<{ violations: Array<{ id: string; impact: string; nodes: Array<{ target: string[] }> }> }> };
+      }
+    ).axe;
     return (await axe.run()).violations;
   });
-  return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);
+  return violations
+    .filter((v) => v.impact === 'serious' || v.impact === 'critical')
+    .map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);
 }
 
 /** Signs in on the sign-in page with a password, as a person would, and waits for the landing page. */

@@ -1,18 +1,21 @@
 import request from 'supertest';
 import type { Express } from 'express';
 import type { EntityManager } from '@mikro-orm/postgresql';
-import type { Role } from '../../shared/permissions.ts';
-import { Studio } from '../../server/features/studios/studio.entity.ts';
-import { User } from '../../server/features/accounts/user.entity.ts';
-import { Membership } from '../../server/features/team/membership.entity.ts';
-import { hashPassword } from '../../server/auth/password.ts';
+import type { Role } from '#shared/permissions.ts';
+import { Studio } from '#server/features/studios/studio.entity.ts';
+import { User } from '#server/features/accounts/user.entity.ts';
+import { Membership } from '#server/features/team/membership.entity.ts';
+import { hashPassword } from '#server/auth/password.ts';
 
 export const TEST_PASSWORD = 'correct horse battery';
 let passwordHash: Promise<string> | undefined;
 let counter = 0;
 const unique = () => `${Date.now().toString(36)}${(counter++).toString(36)}`;
 
-export async function createUser(em: EntityManager, overrides: Partial<Pick<User, 'email' | 'name' | 'isPlatformAdmin'>> & { password?: boolean } = {}): Promise<User> {
+export async function createUser(
+  em: EntityManager,
+  overrides: Partial<Pick<User, 'email' | 'name' | 'isPlatformAdmin'>> & { password?: boolean } = {},
+): Promise<User> {
   const user = em.create(User, {
     email: overrides.email ?? `person-${unique()}@example.com`,
     name: overrides.name ?? 'Test Person',
@@ -25,12 +28,21 @@ export async function createUser(em: EntityManager, overrides: Partial<Pick<User
 }
 
 export async function createStudio(em: EntityManager, overrides: Partial<Pick<Studio, 'slug' | 'name' | 'status'>> = {}): Promise<Studio> {
-  const studio = em.create(Studio, { slug: overrides.slug ?? `studio-${unique()}`, name: overrides.name ?? 'Test Studio', status: overrides.status });
+  const studio = em.create(Studio, {
+    slug: overrides.slug ?? `studio-${unique()}`,
+    name: overrides.name ?? 'Test Studio',
+    status: overrides.status,
+  });
   await em.flush();
   return studio;
 }
 
-export async function createMember(em: EntityManager, studio: Studio, role: Role, user?: User): Promise<{ user: User; membership: Membership }> {
+export async function createMember(
+  em: EntityManager,
+  studio: Studio,
+  role: Role,
+  user?: User,
+): Promise<{ user: User; membership: Membership }> {
   const member = user ?? (await createUser(em));
   const membership = em.create(Membership, { studio, user: member, role });
   await em.flush();
@@ -52,6 +64,7 @@ export async function signIn(agent: ReturnType<typeof request.agent>, email: str
 export async function agentFor(app: Express, user: User) {
   const agent = request.agent(app);
   const res = await signIn(agent, user.email);
-  if (res.status !== 200 || String(res.body.url).includes('error=')) throw new Error(`sign-in failed for ${user.email}: ${res.status} ${JSON.stringify(res.body)}`);
+  if (res.status !== 200 || String(res.body.url).includes('error='))
+    throw new Error(`sign-in failed for ${user.email}: ${res.status} ${JSON.stringify(res.body)}`);
   return agent;
 }

@@ -1,6 +1,6 @@
 import { afterAll } from 'vitest';
-import { startMailFake, type MailFake } from '../../fakes/mail/server.ts';
-import type { StoredMessage } from '../../fakes/mail/mailbox.ts';
+import { startMailFake, type MailFake } from '#fakes/mail/server.ts';
+import type { StoredMessage } from '#fakes/mail/mailbox.ts';
 import { eventually, temporaryDataDir } from './fakes.ts';
 
 /**

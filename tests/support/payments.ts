@@ -2,8 +2,8 @@ import type { Express } from 'express';
 import request from 'supertest';
 import { afterAll } from 'vitest';
 import type { TestApp } from './test-app.ts';
-import { startPaymentsFake, type PaymentsFake } from '../../fakes/payments/server.ts';
-import type { WebhookEndpoint } from '../../fakes/payments/webhooks.ts';
+import { startPaymentsFake, type PaymentsFake } from '#fakes/payments/server.ts';
+import type { WebhookEndpoint } from '#fakes/payments/webhooks.ts';
 import { temporaryDataDir } from './fakes.ts';
 
 const SECRET_KEY = 'sk_test_checkout_tests';
@@ -37,7 +37,13 @@ export function usePaymentsFake() {
   });
   return {
     async start(): Promise<Record<string, string>> {
-      fake = await startPaymentsFake({ dataDir: data.dir, secretKeys: [SECRET_KEY], webhooks: endpoints, retryBaseMs: 50, merchantName: 'Test studio' });
+      fake = await startPaymentsFake({
+        dataDir: data.dir,
+        secretKeys: [SECRET_KEY],
+        webhooks: endpoints,
+        retryBaseMs: 50,
+        merchantName: 'Test studio',
+      });
       return { STRIPE_API_URL: fake.url, STRIPE_SECRET_KEY: SECRET_KEY, STRIPE_WEBHOOK_SECRET: WEBHOOK_SECRET };
     },
     /** Sends webhooks to the app at this base URL from now on. */
@@ -62,5 +68,9 @@ export function usePaymentsFake() {
 export function postSignedEvent(t: Pick<TestApp, 'app' | 'payments' | 'env'>, event: object, secret = t.env.STRIPE_WEBHOOK_SECRET) {
   const payload = JSON.stringify(event);
   const signature = t.payments.stripe.webhooks.generateTestHeaderString({ payload, secret });
-  return request(t.app as Express).post('/api/payments/webhook').set('content-type', 'application/json').set('stripe-signature', signature).send(payload);
+  return request(t.app as Express)
+    .post('/api/payments/webhook')
+    .set('content-type', 'application/json')
+    .set('stripe-signature', signature)
+    .send(payload);
 }

@@ -23,7 +23,10 @@ export async function pdfFirstPageQr(pdf: Uint8Array): Promise<string | undefine
   const dir = mkdtempSync(join(tmpdir(), 'etchwell-pdf-'));
   try {
     execFileSync('/usr/bin/pdftoppm', ['-png', '-r', '150', '-f', '1', '-l', '1', '-singlefile', '-', join(dir, 'page')], { input: pdf });
-    const { data, info } = await sharp(readFileSync(join(dir, 'page.png'))).ensureAlpha().raw().toBuffer({ resolveWithObject: true });
+    const { data, info } = await sharp(readFileSync(join(dir, 'page.png')))
+      .ensureAlpha()
+      .raw()
+      .toBuffer({ resolveWithObject: true });
     return jsQR(new Uint8ClampedArray(data.buffer, data.byteOffset, data.length), info.width, info.height)?.data;
   } finally {
     rmSync(dir, { recursive: true, force: true });

@@ -42,8 +42,17 @@ export function runPillow(script: string, input: { width: number; height: number
 /** Reads an image file with Pillow into raw 8-bit gray (BT.601, as Pillow's convert('L')). */
 export function pillowReadGray(path: string): { width: number; height: number; data: Uint8Array } {
   if (!existsSync(path)) throw new Error(`reference photo missing: ${path}`);
-  const size = execFileSync(PYTHON, ['-c', `from PIL import Image; i = Image.open(${JSON.stringify(path)}); print(i.size[0], i.size[1])`], { encoding: 'utf8' }).trim().split(' ').map(Number);
-  const data = execFileSync(PYTHON, ['-c', `import sys; from PIL import Image; sys.stdout.buffer.write(Image.open(${JSON.stringify(path)}).convert('L').tobytes())`], { maxBuffer: 64 * 1024 * 1024 });
+  const size = execFileSync(PYTHON, ['-c', `from PIL import Image; i = Image.open(${JSON.stringify(path)}); print(i.size[0], i.size[1])`], {
+    encoding: 'utf8',
+  })
+    .trim()
+    .split(' ')
+    .map(Number);
+  const data = execFileSync(
+    PYTHON,
+    ['-c', `import sys; from PIL import Image; sys.stdout.buffer.write(Image.open(${JSON.stringify(path)}).convert('L').tobytes())`],
+    { maxBuffer: 64 * 1024 * 1024 },
+  );
   return { width: size[0]!, height: size[1]!, data: new Uint8Array(data) };
 }
 
@@ -61,8 +70,21 @@ export function unpackBits(packed: Buffer, width: number, height: number): Uint8
 export const referencePhotoDir = join(import.meta.dirname, '..', '..', '.data', 'reference-photos');
 
 /** What Pillow reads from an image file's bytes: its mode, size and the resolution it records. */
-export function pillowImageInfo(bytes: Uint8Array): { format: string; mode: string; width: number; height: number; dpi: [number, number] | null } {
-  const out = execFileSync(PYTHON, ['-c', 'import sys, io, json; from PIL import Image; i = Image.open(io.BytesIO(sys.stdin.buffer.read())); print(json.dumps({"format": i.format, "mode": i.mode, "width": i.size[0], "height": i.size[1], "dpi": [float(v) for v in i.info["dpi"]] if "dpi" in i.info else None}))'], { input: bytes, encoding: 'utf8' });
+export function pillowImageInfo(bytes: Uint8Array): {
+  format: string;
+  mode: string;
+  width: number;
+  height: number;
+  dpi: [number, number] | null;
+} {
+  const out = execFileSync(
+    PYTHON,
+    [
+      '-c',
+      'import sys, io, json; from PIL import Image; i = Image.open(io.BytesIO(sys.stdin.buffer.read())); print(json.dumps({"format": i.format, "mode": i.mode, "width": i.size[0], "height": i.size[1], "dpi": [float(v) for v in i.info["dpi"]] if "dpi" in i.info else None}))',
+    ],
+    { input: bytes, encoding: 'utf8' },
+  );
   return JSON.parse(out);
 }
 

@@ -1,6 +1,6 @@
 import { randomBytes } from 'node:crypto';
-import { dropDatabase, ensureDatabase, withDatabaseName } from '../../server/db/database-admin.ts';
-import { databaseNameOf } from '../../server/db/database-admin.ts';
+import { dropDatabase, ensureDatabase, withDatabaseName } from '#server/db/database-admin.ts';
+import { databaseNameOf } from '#server/db/database-admin.ts';
 
 /**
  * Each test file gets a database of its own, copied from the migrated template that `npm test`

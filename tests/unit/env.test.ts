@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { EnvError, loadEnv } from '../../server/env.ts';
+import { EnvError, loadEnv } from '#server/env.ts';
 
 describe('environment validation', () => {
   it('gives safe local defaults when nothing is set', () => {

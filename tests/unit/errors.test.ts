@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
-import { AppError, errorBodySchema } from '../../shared/errors.ts';
-import { toAppError } from '../../server/middleware/error-handler.ts';
+import { AppError, errorBodySchema } from '#shared/errors.ts';
+import { toAppError } from '#server/middleware/error-handler.ts';
 
 describe('AppError', () => {
   it('carries the status of its code and a body in the shared shape', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatMoney, minorUnitDigits, moneyInputValue, parseMoneyInput } from '../../shared/money.ts';
+import { formatMoney, minorUnitDigits, moneyInputValue, parseMoneyInput } from '#shared/money.ts';
 
 // ISO 4217 minor units (USD, EUR, GBP: 2; JPY: 0), checked against Intl.NumberFormat itself.
 describe('money in minor units', () => {
@@ -34,7 +34,14 @@ describe('prices typed into a form', () => {
     expect(Number(moneyInputValue(minor, currency))).toBe(minor / 10 ** minorUnitDigits(currency));
   });
 
-  it.each([['12.345', 'USD'], ['1,234.00', 'USD'], ['12.5', 'JPY'], ['-3', 'USD'], ['', 'USD'], ['abc', 'GBP']])('refuses %j in %s', (text, currency) => {
+  it.each([
+    ['12.345', 'USD'],
+    ['1,234.00', 'USD'],
+    ['12.5', 'JPY'],
+    ['-3', 'USD'],
+    ['', 'USD'],
+    ['abc', 'GBP'],
+  ])('refuses %j in %s', (text, currency) => {
     expect(parseMoneyInput(text, currency)).toBeUndefined();
   });
 });

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { SignatureV4 } from '@smithy/signature-v4';
 import { Hash } from '@smithy/hash-node';
-import { verifySigV4 } from '../../fakes/storage/sigv4.ts';
+import { verifySigV4 } from '#fakes/storage/sigv4.ts';
 
 // Worked examples from the Amazon S3 API Reference, "Authenticating Requests (AWS Signature
 // Version 4)": "Example: GET Object" (header form) and "Example: Presigned URL" (query form).
@@ -40,7 +40,11 @@ describe('SigV4 verification of the stand-in object store', () => {
       headers: { host: 'examplebucket.s3.amazonaws.com' },
     };
     expect(verifySigV4(request, EXAMPLE_KEYS, EXAMPLE_TIME + 3600_000)).toMatchObject({ ok: true, presigned: true });
-    expect(verifySigV4(request, EXAMPLE_KEYS, EXAMPLE_TIME + 86_401_000)).toMatchObject({ ok: false, code: 'AccessDenied', message: 'Request has expired' });
+    expect(verifySigV4(request, EXAMPLE_KEYS, EXAMPLE_TIME + 86_401_000)).toMatchObject({
+      ok: false,
+      code: 'AccessDenied',
+      message: 'Request has expired',
+    });
   });
 
   it('agrees with the signing library the AWS SDK uses, and refuses any change', async () => {
@@ -59,7 +63,12 @@ describe('SigV4 verification of the stand-in object store', () => {
         port: 9000,
         path: '/photos/studio%201/a%2Bb.jpg',
         query: { 'x-id': 'PutObject', tag: ['b', 'a'] },
-        headers: { host: '127.0.0.1:9000', 'content-type': 'image/jpeg', 'x-amz-content-sha256': 'UNSIGNED-PAYLOAD', 'x-amz-meta-note': '  two  spaces ' },
+        headers: {
+          host: '127.0.0.1:9000',
+          'content-type': 'image/jpeg',
+          'x-amz-content-sha256': 'UNSIGNED-PAYLOAD',
+          'x-amz-meta-note': '  two  spaces ',
+        },
       },
       { signingDate: new Date('2026-06-01T12:00:00Z') },
     );
@@ -71,15 +80,27 @@ describe('SigV4 verification of the stand-in object store', () => {
     };
     const at = Date.parse('2026-06-01T12:05:00Z');
     expect(verifySigV4(received, { AKIDLOCAL: 'local-secret' }, at)).toMatchObject({ ok: true });
-    expect(verifySigV4({ ...received, headers: { ...received.headers, 'content-type': 'text/html' } }, { AKIDLOCAL: 'local-secret' }, at)).toMatchObject({ ok: false, code: 'SignatureDoesNotMatch' });
-    expect(verifySigV4({ ...received, rawPath: '/photos/other.jpg' }, { AKIDLOCAL: 'local-secret' }, at)).toMatchObject({ ok: false, code: 'SignatureDoesNotMatch' });
+    expect(
+      verifySigV4({ ...received, headers: { ...received.headers, 'content-type': 'text/html' } }, { AKIDLOCAL: 'local-secret' }, at),
+    ).toMatchObject({ ok: false, code: 'SignatureDoesNotMatch' });
+    expect(verifySigV4({ ...received, rawPath: '/photos/other.jpg' }, { AKIDLOCAL: 'local-secret' }, at)).toMatchObject({
+      ok: false,
+      code: 'SignatureDoesNotMatch',
+    });
     expect(verifySigV4(received, { AKIDLOCAL: 'another-secret' }, at)).toMatchObject({ ok: false, code: 'SignatureDoesNotMatch' });
     expect(verifySigV4(received, { SOMEONEELSE: 'local-secret' }, at)).toMatchObject({ ok: false, code: 'InvalidAccessKeyId' });
     // Header-signed requests older than 15 minutes are refused (clock skew limit).
-    expect(verifySigV4(received, { AKIDLOCAL: 'local-secret' }, at + 20 * 60_000)).toMatchObject({ ok: false, code: 'RequestTimeTooSkewed' });
+    expect(verifySigV4(received, { AKIDLOCAL: 'local-secret' }, at + 20 * 60_000)).toMatchObject({
+      ok: false,
+      code: 'RequestTimeTooSkewed',
+    });
   });
 
   it('refuses a request with no authentication at all', () => {
-    expect(verifySigV4({ method: 'GET', rawPath: '/b/k', rawQuery: '', headers: { host: 'x' } }, EXAMPLE_KEYS)).toMatchObject({ ok: false, status: 403, code: 'AccessDenied' });
+    expect(verifySigV4({ method: 'GET', rawPath: '/b/k', rawQuery: '', headers: { host: 'x' } }, EXAMPLE_KEYS)).toMatchObject({
+      ok: false,
+      status: 403,
+      code: 'AccessDenied',
+    });
   });
 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatSize, mmToUnit, unitToMm } from '../../shared/units.ts';
+import { formatSize, mmToUnit, unitToMm } from '#shared/units.ts';
 
 // 1 in = 25.4 mm exactly: the International Yard and Pound Agreement (1959).
 describe('lengths in the studio’s unit', () => {

@@ -1,4 +1,4 @@
-import { escapeHtml } from '../../lib/html.ts';
+import { escapeHtml } from '#server/lib/html.ts';
 
 export function verifyEmailMail(input: { name: string; studioName: string; url: string }) {
   return {

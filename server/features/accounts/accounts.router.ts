@@ -1,17 +1,16 @@
 import { Router } from 'express';
-import type { EntityManager } from '@mikro-orm/postgresql';
-import { openStudioInputSchema } from '../../../shared/schemas/accounts.ts';
-import type { Env } from '../../env.ts';
-import type { Orm } from '../../db/orm.ts';
-import type { Auth } from '../../auth/auth.ts';
-import type { RateLimits } from '../../lib/rate-limits.ts';
-import { optionalUser, requireUser } from '../../middleware/auth-guards.ts';
+import { openStudioInputSchema } from '#shared/schemas/accounts.ts';
+import type { Env } from '#server/env.ts';
+import type { Orm } from '#server/db/orm.ts';
+import type { Auth } from '#server/auth/auth.ts';
+import type { RateLimits } from '#server/lib/rate-limits.ts';
+import { optionalUser, requireUser } from '#server/middleware/auth-guards.ts';
 import { checkSlug, confirmEmail, describeMe, openStudio, signOutEverywhere } from './accounts.service.ts';
 
 /** Opening a studio, e-mail confirmation, and the signed-in person (`/api/accounts`, `/api/me`). */
 export function accountsRouter({ orm, env, auth, limits }: { orm: Orm; env: Env; auth: Auth; limits: RateLimits }): Router {
   const router = Router();
-  const em = () => orm.em as EntityManager;
+  const em = () => orm.em;
 
   router.get('/accounts/slug-availability', async (req, res) => {
     res.json(await checkSlug(em(), String(req.query.slug ?? '')));

@@ -1,11 +1,11 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { AppError } from '../../../shared/errors.ts';
-import type { OpenStudioInput, SlugAvailability, Me } from '../../../shared/schemas/accounts.ts';
-import { studioSlugSchema } from '../../../shared/studio.ts';
-import { withoutTenantFilter } from '../../db/tenant.ts';
-import { hashPassword } from '../../auth/password.ts';
-import { VerificationToken } from '../../auth/verification-token.entity.ts';
-import { hashToken, newLinkToken } from '../../lib/tokens.ts';
+import { AppError } from '#shared/errors.ts';
+import type { OpenStudioInput, SlugAvailability, Me } from '#shared/schemas/accounts.ts';
+import { studioSlugSchema } from '#shared/studio.ts';
+import { withoutTenantFilter } from '#server/db/tenant.ts';
+import { hashPassword } from '#server/auth/password.ts';
+import { VerificationToken } from '#server/auth/verification-token.entity.ts';
+import { hashToken, newLinkToken } from '#server/lib/tokens.ts';
 import { Studio } from '../studios/studio.entity.ts';
 import { Membership } from '../team/membership.entity.ts';
 import { User } from './user.entity.ts';
@@ -14,7 +14,24 @@ import { verifyEmailMail } from './accounts-mail.ts';
 import { addMaterialLibrary } from '../catalog/catalog.service.ts';
 
 /** Addresses the app itself uses or might: never a studio's. */
-const RESERVED_SLUGS = new Set(['admin', 'api', 'app', 'auth', 'etchwell', 'help', 'invites', 'platform', 'settings', 'sign-in', 'sign-up', 'static', 'studio', 'studios', 'support', 'www']);
+const RESERVED_SLUGS = new Set([
+  'admin',
+  'api',
+  'app',
+  'auth',
+  'etchwell',
+  'help',
+  'invites',
+  'platform',
+  'settings',
+  'sign-in',
+  'sign-up',
+  'static',
+  'studio',
+  'studios',
+  'support',
+  'www',
+]);
 
 export async function checkSlug(em: EntityManager, slug: string): Promise<SlugAvailability> {
   const parsed = studioSlugSchema.safeParse(slug);
@@ -46,7 +63,11 @@ export async function openStudio(em: EntityManager, input: OpenStudioInput, appU
     const studio = tx.create(Studio, { slug: input.slug, name: input.studioName, contactEmail: input.email });
     tx.create(Membership, { studio, user, role: 'owner' });
     addMaterialLibrary(tx, studio);
-    tx.create(VerificationToken, { identifier: `verify:${user.email}`, token: hash, expires: new Date(Date.now() + VERIFY_DAYS * 86_400_000) });
+    tx.create(VerificationToken, {
+      identifier: `verify:${user.email}`,
+      token: hash,
+      expires: new Date(Date.now() + VERIFY_DAYS * 86_400_000),
+    });
     const url = `${appUrl}/api/accounts/verify-email?token=${token}`;
     queueEmail(tx, { to: user.email, ...verifyEmailMail({ name: input.ownerName, studioName: studio.name, url }) });
     return { studio, user };
@@ -58,7 +79,10 @@ export async function openStudio(em: EntityManager, input: OpenStudioInput, appU
 export async function confirmEmail(em: EntityManager, token: string): Promise<boolean> {
   const rows = await em
     .getConnection()
-    .execute<Array<{ identifier: string; expires: Date }>>("delete from verification_token where token = ? and identifier like 'verify:%' returning identifier, expires", [hashToken(token)]);
+    .execute<Array<{ identifier: string; expires: Date }>>(
+      "delete from verification_token where token = ? and identifier like 'verify:%' returning identifier, expires",
+      [hashToken(token)],
+    );
   const row = rows[0];
   if (!row || new Date(row.expires) < new Date()) return false;
   const user = await em.findOne(User, { email: row.identifier.slice('verify:'.length) });
@@ -70,9 +94,19 @@ export async function confirmEmail(em: EntityManager, token: string): Promise<bo
 
 export async function describeMe(em: EntityManager, user: User | undefined): Promise<Me> {
   if (!user) return { user: null, memberships: [] };
-  const memberships = await em.find(Membership, { user }, { ...withoutTenantFilter, populate: ['studio'], orderBy: { studio: { name: 'asc' } } });
+  const memberships = await em.find(
+    Membership,
+    { user },
+    { ...withoutTenantFilter, populate: ['studio'], orderBy: { studio: { name: 'asc' } } },
+  );
   return {
-    user: { id: user.id, email: user.email, name: user.name, emailVerified: Boolean(user.emailVerifiedAt), isPlatformAdmin: user.isPlatformAdmin },
+    user: {
+      id: user.id,
+      email: user.email,
+      name: user.name,
+      emailVerified: Boolean(user.emailVerifiedAt),
+      isPlatformAdmin: user.isPlatformAdmin,
+    },
     memberships: memberships.map((m) => ({ studioSlug: m.studio.slug, studioName: m.studio.name, role: m.role })),
   };
 }

@@ -1,12 +1,15 @@
 import { Entity, Index, Property } from '@mikro-orm/core';
-import { BaseEntity } from '../../db/base.entity.ts';
+import { BaseEntity } from '#server/db/base.entity.ts';
 
 /**
  * A person who signs in: a buyer, a studio member, or a platform admin. The e-mail is stored in
  * lower case and unique (a unique index on lower(email) guards against any other writer).
  */
 @Entity({ tableName: 'app_user' })
-@Index({ name: 'app_user_email_lower_unique', expression: 'create unique index "app_user_email_lower_unique" on "app_user" (lower("email"))' })
+@Index({
+  name: 'app_user_email_lower_unique',
+  expression: 'create unique index "app_user_email_lower_unique" on "app_user" (lower("email"))',
+})
 export class User extends BaseEntity<'name' | 'passwordHash' | 'emailVerifiedAt' | 'isPlatformAdmin' | 'sessionVersion'> {
   @Property({ type: 'string', length: 254 })
   email!: string;

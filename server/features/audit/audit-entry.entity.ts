@@ -1,7 +1,7 @@
 import { Entity, Filter, Index, ManyToOne, OptionalProps, PrimaryKey, Property } from '@mikro-orm/core';
 import { randomUUID } from 'node:crypto';
-import type { AuditAction } from '../../../shared/schemas/audit.ts';
-import { tenantFilter } from '../../db/tenant.ts';
+import type { AuditAction } from '#shared/schemas/audit.ts';
+import { tenantFilter } from '#server/db/tenant.ts';
 import { User } from '../accounts/user.entity.ts';
 import { Studio } from '../studios/studio.entity.ts';
 

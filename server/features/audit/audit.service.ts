@@ -1,5 +1,5 @@
 import type { EntityManager, FilterQuery } from '@mikro-orm/postgresql';
-import { AUDIT_ACTIONS, type AuditAction, type AuditEntryView, type AuditGroup, type AuditPage } from '../../../shared/schemas/audit.ts';
+import { AUDIT_ACTIONS, type AuditAction, type AuditEntryView, type AuditGroup, type AuditPage } from '#shared/schemas/audit.ts';
 import { displayName, type User } from '../accounts/user.entity.ts';
 import type { Studio } from '../studios/studio.entity.ts';
 import { AuditEntry } from './audit-entry.entity.ts';
@@ -43,7 +43,11 @@ const view = (e: AuditEntry): AuditEntryView => ({
 });
 
 /** Newest first, a page at a time; `next` marks where the following page starts. */
-export async function listAudit(em: EntityManager, studio: Studio, query: { group?: AuditGroup; before?: string; limit: number }): Promise<AuditPage> {
+export async function listAudit(
+  em: EntityManager,
+  studio: Studio,
+  query: { group?: AuditGroup; before?: string; limit: number },
+): Promise<AuditPage> {
   const where: FilterQuery<AuditEntry> = { studio };
   if (query.group) where.action = { $in: actionsOf(query.group) };
   if (query.before) {
@@ -64,4 +68,7 @@ export function describeChanges(before: Record<string, string>, after: Record<st
 }
 
 /** "Speed 300 mm/s, passes 1": every fact, for a record made or removed. */
-export const describeFacts = (facts: Record<string, string>) => Object.entries(facts).map(([label, value]) => `${label} ${value}`).join(', ');
+export const describeFacts = (facts: Record<string, string>) =>
+  Object.entries(facts)
+    .map(([label, value]) => `${label} ${value}`)
+    .join(', ');

@@ -1,5 +1,5 @@
-import { HALFTONE_METHODS, type HalftoneMethod } from '../../../shared/imaging/halftone/halftone.ts';
-import { SPEED_UNIT_LABELS } from '../../../shared/schemas/catalog.ts';
+import { HALFTONE_METHODS, type HalftoneMethod } from '#shared/imaging/halftone/halftone.ts';
+import { SPEED_UNIT_LABELS } from '#shared/schemas/catalog.ts';
 import type { BlankSize, Recipe } from './catalog.entity.ts';
 
 /**
@@ -20,4 +20,3 @@ export function recipeFacts(recipe: Recipe): Record<string, string> {
 export const recipeSubject = (recipe: Recipe) => `${recipe.material.name} on ${recipe.machine.name}`;
 
 export const sizeSubject = (size: BlankSize) => `${size.blank.name}, ${size.label}`;
-

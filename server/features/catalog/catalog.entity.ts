@@ -1,7 +1,7 @@
 import { Collection, Entity, Enum, Filter, ManyToOne, OneToMany, Property, Unique } from '@mikro-orm/core';
-import type { LaserKind } from '../../../shared/schemas/catalog.ts';
-import { BaseEntity } from '../../db/base.entity.ts';
-import { tenantFilter } from '../../db/tenant.ts';
+import type { LaserKind } from '#shared/schemas/catalog.ts';
+import { BaseEntity } from '#server/db/base.entity.ts';
+import { tenantFilter } from '#server/db/tenant.ts';
 import { Studio } from '../studios/studio.entity.ts';
 
 /** A material as one studio uses it (each studio gets its own copy of the library). */
@@ -62,7 +62,8 @@ export class Blank extends BaseEntity {
   @Property({ type: 'string', length: 120 }) name!: string;
   @Property({ type: 'text' }) description!: string;
   @ManyToOne(() => Material, { deleteRule: 'restrict' }) material!: Material;
-  @Enum({ items: ['rectangle', 'rounded-rectangle', 'oval', 'circle'], type: 'string' }) shape!: 'rectangle' | 'rounded-rectangle' | 'oval' | 'circle';
+  @Enum({ items: ['rectangle', 'rounded-rectangle', 'oval', 'circle'], type: 'string' }) shape!:
+    'rectangle' | 'rounded-rectangle' | 'oval' | 'circle';
   @Enum({ items: ['draft', 'active', 'archived'], type: 'string' }) status!: 'draft' | 'active' | 'archived';
   @Property({ type: 'integer' }) sortOrder!: number;
   @OneToMany(() => BlankSize, (size) => size.blank) sizes = new Collection<BlankSize>(this);

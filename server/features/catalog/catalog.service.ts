@@ -1,21 +1,21 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { UniqueConstraintViolationException } from '@mikro-orm/core';
-import { AppError } from '../../../shared/errors.ts';
-import type { BlankInput, MachineInput, MaterialInput, RecipeInput, SizeInput } from '../../../shared/schemas/catalog.ts';
-import { isUuid } from '../../lib/tokens.ts';
+import { AppError } from '#shared/errors.ts';
+import type { BlankInput, MachineInput, MaterialInput, RecipeInput, SizeInput } from '#shared/schemas/catalog.ts';
+import { isUuid } from '#server/lib/tokens.ts';
 import type { Studio } from '../studios/studio.entity.ts';
 import { Blank, BlankPhoto, BlankSize, Machine, Material, Recipe } from './catalog.entity.ts';
 import { MATERIAL_LIBRARY } from './material-library.ts';
-import type { Storage } from '../../adapters/storage.ts';
-import { MAX_IMAGE_UPLOAD_BYTES, type ImageUploadRequest, type UploadTicket } from '../../../shared/schemas/uploads.ts';
+import type { Storage } from '#server/adapters/storage.ts';
+import { MAX_IMAGE_UPLOAD_BYTES, type ImageUploadRequest, type UploadTicket } from '#shared/schemas/uploads.ts';
 import { issueUpload, readUpload } from '../uploads/uploads.service.ts';
-import { toWebPhoto } from '../../imaging/web-photo.ts';
+import { toWebPhoto } from '#server/imaging/web-photo.ts';
 import type { User } from '../accounts/user.entity.ts';
 import { describeChanges, describeFacts, recordAudit } from '../audit/audit.service.ts';
 import { recipeFacts, recipeSubject, sizeSubject } from './catalog-audit.ts';
-import { formatMoney } from '../../../shared/money.ts';
-import { sizeFit, sizeFitMessage, type BlankShape } from '../../../shared/imaging/shape.ts';
-import { formatSize, mmToUnitDown } from '../../../shared/units.ts';
+import { formatMoney } from '#shared/money.ts';
+import { sizeFit, sizeFitMessage, type BlankShape } from '#shared/imaging/shape.ts';
+import { formatSize, mmToUnitDown } from '#shared/units.ts';
 
 const recipesLink = (studio: Studio) => `/studio/${studio.slug}/catalog/recipes`;
 const blankLink = (studio: Studio, blank: Blank) => `/studio/${studio.slug}/catalog/blanks/${blank.id}`;
@@ -39,14 +39,17 @@ async function flushUnique(em: EntityManager, field: string, message: string): P
   try {
     await em.flush();
   } catch (error) {
-    if (error instanceof UniqueConstraintViolationException) throw new AppError('CONFLICT', message, { issues: [{ path: [field], message }] });
+    if (error instanceof UniqueConstraintViolationException)
+      throw new AppError('CONFLICT', message, { issues: [{ path: [field], message }] });
     throw error;
   }
 }
 
 /** Gives a new studio its own copy of the materials library (forbidden entries included, flagged). */
 export function addMaterialLibrary(em: EntityManager, studio: Studio): Material[] {
-  return MATERIAL_LIBRARY.map(({ suggestedLinesPerInch: _l, suggestedHalftone: _h, ...material }) => em.create(Material, { ...material, studio }));
+  return MATERIAL_LIBRARY.map(({ suggestedLinesPerInch: _l, suggestedHalftone: _h, ...material }) =>
+    em.create(Material, { ...material, studio }),
+  );
 }
 
 /** The studio's materials, each with how many blanks use it (a material in use cannot be deleted). */
@@ -68,7 +71,11 @@ export async function createMaterial(em: EntityManager, studio: Studio, input: M
 export async function deleteMaterial(em: EntityManager, studio: Studio, id: string): Promise<void> {
   const material = await findIn(em, Material, studio, id, 'material');
   const blanks = await em.find(Blank, { studio, material }, { fields: ['name'], orderBy: { name: 'asc' } });
-  if (blanks.length) throw new AppError('CONFLICT', `${material.name} is used by ${blanks.map((b) => b.name).join(', ')}. Choose another material for those blanks first.`);
+  if (blanks.length)
+    throw new AppError(
+      'CONFLICT',
+      `${material.name} is used by ${blanks.map((b) => b.name).join(', ')}. Choose another material for those blanks first.`,
+    );
   await em.nativeDelete(Recipe, { studio, material });
   em.remove(material);
   await em.flush();
@@ -115,13 +122,20 @@ async function checkedPair(em: EntityManager, studio: Studio, input: RecipeInput
   return { material, machine };
 }
 
-export const listRecipes = (em: EntityManager, studio: Studio) => em.find(Recipe, { studio }, { populate: ['material', 'machine'], orderBy: { material: { name: 'asc' } } });
+export const listRecipes = (em: EntityManager, studio: Studio) =>
+  em.find(Recipe, { studio }, { populate: ['material', 'machine'], orderBy: { material: { name: 'asc' } } });
 
 export async function createRecipe(em: EntityManager, studio: Studio, input: RecipeInput, actor: User): Promise<Recipe> {
   const { material, machine } = await checkedPair(em, studio, input);
   const { materialId: _m, machineId: _k, ...values } = input;
   const recipe = em.create(Recipe, { ...values, material, machine, studio });
-  recordAudit(em, studio, actor, { action: 'recipe.created', subject: recipeSubject(recipe), summary: `New recipe: ${describeFacts(recipeFacts(recipe))}.`, link: recipesLink(studio), details: { recipeId: recipe.id, ...values } });
+  recordAudit(em, studio, actor, {
+    action: 'recipe.created',
+    subject: recipeSubject(recipe),
+    summary: `New recipe: ${describeFacts(recipeFacts(recipe))}.`,
+    link: recipesLink(studio),
+    details: { recipeId: recipe.id, ...values },
+  });
   await flushUnique(em, 'machineId', 'This material already has a recipe on this machine.');
   return recipe;
 }
@@ -134,7 +148,14 @@ export async function updateRecipe(em: EntityManager, studio: Studio, id: string
   const before = { Recipe: recipeSubject(recipe), ...recipeFacts(recipe) };
   em.assign(recipe, { ...values, material, machine });
   const changes = describeChanges(before, { Recipe: recipeSubject(recipe), ...recipeFacts(recipe) });
-  if (changes) recordAudit(em, studio, actor, { action: 'recipe.changed', subject: recipeSubject(recipe), summary: `${changes}.`, link: recipesLink(studio), details: { recipeId: recipe.id, ...values } });
+  if (changes)
+    recordAudit(em, studio, actor, {
+      action: 'recipe.changed',
+      subject: recipeSubject(recipe),
+      summary: `${changes}.`,
+      link: recipesLink(studio),
+      details: { recipeId: recipe.id, ...values },
+    });
   await flushUnique(em, 'machineId', 'This material already has a recipe on this machine.');
   return recipe;
 }
@@ -142,7 +163,13 @@ export async function updateRecipe(em: EntityManager, studio: Studio, id: string
 export async function deleteRecipe(em: EntityManager, studio: Studio, id: string, actor: User): Promise<void> {
   const recipe = await findIn(em, Recipe, studio, id, 'recipe');
   await em.populate(recipe, ['material', 'machine']);
-  recordAudit(em, studio, actor, { action: 'recipe.deleted', subject: recipeSubject(recipe), summary: `Deleted the recipe: ${describeFacts(recipeFacts(recipe))}.`, link: recipesLink(studio), details: { recipeId: recipe.id } });
+  recordAudit(em, studio, actor, {
+    action: 'recipe.deleted',
+    subject: recipeSubject(recipe),
+    summary: `Deleted the recipe: ${describeFacts(recipeFacts(recipe))}.`,
+    link: recipesLink(studio),
+    details: { recipeId: recipe.id },
+  });
   em.remove(recipe);
   await em.flush();
 }
@@ -182,15 +209,32 @@ function assertAreaFits(studio: Studio, shape: BlankShape, input: SizeInput): vo
   const { fits, largest } = sizeFit(shape, input);
   if (fits) return;
   const unit = studio.units;
-  const message = sizeFitMessage(shape, input, largest, (w, h) => formatSize(w, h, unit), (w, h) => `${mmToUnitDown(w, unit)} × ${mmToUnitDown(h, unit)} ${unit}`);
-  throw new AppError('VALIDATION_FAILED', message, { issues: [{ path: ['areaWidthMm'], message }, { path: ['areaHeightMm'], message: 'See the engraving width.' }] });
+  const message = sizeFitMessage(
+    shape,
+    input,
+    largest,
+    (w, h) => formatSize(w, h, unit),
+    (w, h) => `${mmToUnitDown(w, unit)} × ${mmToUnitDown(h, unit)} ${unit}`,
+  );
+  throw new AppError('VALIDATION_FAILED', message, {
+    issues: [
+      { path: ['areaWidthMm'], message },
+      { path: ['areaHeightMm'], message: 'See the engraving width.' },
+    ],
+  });
 }
 
 export async function addSize(em: EntityManager, studio: Studio, blankId: string, input: SizeInput, actor: User): Promise<BlankSize> {
   const blank = await findIn(em, Blank, studio, blankId, 'blank');
   assertAreaFits(studio, blank.shape, input);
   const size = em.create(BlankSize, { ...input, blank, studio });
-  recordAudit(em, studio, actor, { action: 'price.changed', subject: sizeSubject(size), summary: `New size offered at ${formatMoney(size.priceMinor, studio.currency)}.`, link: blankLink(studio, blank), details: { sizeId: size.id, priceMinor: size.priceMinor, currency: studio.currency } });
+  recordAudit(em, studio, actor, {
+    action: 'price.changed',
+    subject: sizeSubject(size),
+    summary: `New size offered at ${formatMoney(size.priceMinor, studio.currency)}.`,
+    link: blankLink(studio, blank),
+    details: { sizeId: size.id, priceMinor: size.priceMinor, currency: studio.currency },
+  });
   await em.flush();
   return size;
 }
@@ -203,7 +247,13 @@ export async function updateSize(em: EntityManager, studio: Studio, id: string, 
   em.assign(size, input);
   if (size.priceMinor !== fromMinor) {
     const money = (minor: number) => formatMoney(minor, studio.currency);
-    recordAudit(em, studio, actor, { action: 'price.changed', subject: sizeSubject(size), summary: `Price: ${money(fromMinor)} → ${money(size.priceMinor)}.`, link: blankLink(studio, size.blank), details: { sizeId: size.id, fromMinor, toMinor: size.priceMinor, currency: studio.currency } });
+    recordAudit(em, studio, actor, {
+      action: 'price.changed',
+      subject: sizeSubject(size),
+      summary: `Price: ${money(fromMinor)} → ${money(size.priceMinor)}.`,
+      link: blankLink(studio, size.blank),
+      details: { sizeId: size.id, fromMinor, toMinor: size.priceMinor, currency: studio.currency },
+    });
   }
   await em.flush();
   return size;
@@ -212,7 +262,13 @@ export async function updateSize(em: EntityManager, studio: Studio, id: string, 
 export async function removeSize(em: EntityManager, studio: Studio, id: string, actor: User): Promise<void> {
   const size = await findIn(em, BlankSize, studio, id, 'size');
   await em.populate(size, ['blank']);
-  recordAudit(em, studio, actor, { action: 'price.changed', subject: sizeSubject(size), summary: `Size taken off sale (it was ${formatMoney(size.priceMinor, studio.currency)}).`, link: blankLink(studio, size.blank), details: { sizeId: size.id, fromMinor: size.priceMinor, currency: studio.currency } });
+  recordAudit(em, studio, actor, {
+    action: 'price.changed',
+    subject: sizeSubject(size),
+    summary: `Size taken off sale (it was ${formatMoney(size.priceMinor, studio.currency)}).`,
+    link: blankLink(studio, size.blank),
+    details: { sizeId: size.id, fromMinor: size.priceMinor, currency: studio.currency },
+  });
   em.remove(size);
   await em.flush();
 }
@@ -221,7 +277,13 @@ export const MAX_PHOTOS_PER_BLANK = 8;
 const photoUploadPrefix = (studio: Studio) => `uploads/${studio.id}/blank-photos`;
 
 /** A ticket for the browser to upload one product photo of a blank to storage. */
-export async function startPhotoUpload(em: EntityManager, storage: Storage, studio: Studio, blankId: string, request: ImageUploadRequest): Promise<UploadTicket> {
+export async function startPhotoUpload(
+  em: EntityManager,
+  storage: Storage,
+  studio: Studio,
+  blankId: string,
+  request: ImageUploadRequest,
+): Promise<UploadTicket> {
   await findIn(em, Blank, studio, blankId, 'blank');
   return issueUpload(storage, photoUploadPrefix(studio), request);
 }
@@ -232,7 +294,8 @@ export async function startPhotoUpload(em: EntityManager, storage: Storage, stud
  */
 export async function addPhoto(em: EntityManager, storage: Storage, studio: Studio, blankId: string, key: string): Promise<BlankPhoto> {
   const blank = await getBlank(em, studio, blankId);
-  if (blank.photos.length >= MAX_PHOTOS_PER_BLANK) throw new AppError('CONFLICT', `A blank shows at most ${MAX_PHOTOS_PER_BLANK} photos. Remove one first.`);
+  if (blank.photos.length >= MAX_PHOTOS_PER_BLANK)
+    throw new AppError('CONFLICT', `A blank shows at most ${MAX_PHOTOS_PER_BLANK} photos. Remove one first.`);
   const web = await toWebPhoto(await readUpload(storage, photoUploadPrefix(studio), key, MAX_IMAGE_UPLOAD_BYTES));
   const photo = em.create(BlankPhoto, { studio, blank, key: '', width: web.width, height: web.height, sortOrder: blank.photos.length });
   photo.key = `studios/${studio.id}/blank-photos/${photo.id}.webp`;
@@ -256,8 +319,38 @@ export async function removePhoto(em: EntityManager, storage: Storage, studio: S
  */
 export function snapshotForOrder(blank: Blank, size: BlankSize, recipe: Recipe | null) {
   return structuredClone({
-    blank: { id: blank.id, name: blank.name, shape: blank.shape, material: { id: blank.material.id, name: blank.material.name, surfaceColour: blank.material.surfaceColour, markColour: blank.material.markColour, defaultTone: blank.material.defaultTone, linesPerInchMax: blank.material.linesPerInchMax } },
-    size: { id: size.id, label: size.label, areaWidthMm: size.areaWidthMm, areaHeightMm: size.areaHeightMm, outerWidthMm: size.outerWidthMm, outerHeightMm: size.outerHeightMm, priceMinor: size.priceMinor, sku: size.sku },
-    recipe: recipe && { id: recipe.id, linesPerInch: recipe.linesPerInch, halftoneMethod: recipe.halftoneMethod, tone: recipe.tone, speed: recipe.speed, powerMinPercent: recipe.powerMinPercent, powerMaxPercent: recipe.powerMaxPercent, passes: recipe.passes },
+    blank: {
+      id: blank.id,
+      name: blank.name,
+      shape: blank.shape,
+      material: {
+        id: blank.material.id,
+        name: blank.material.name,
+        surfaceColour: blank.material.surfaceColour,
+        markColour: blank.material.markColour,
+        defaultTone: blank.material.defaultTone,
+        linesPerInchMax: blank.material.linesPerInchMax,
+      },
+    },
+    size: {
+      id: size.id,
+      label: size.label,
+      areaWidthMm: size.areaWidthMm,
+      areaHeightMm: size.areaHeightMm,
+      outerWidthMm: size.outerWidthMm,
+      outerHeightMm: size.outerHeightMm,
+      priceMinor: size.priceMinor,
+      sku: size.sku,
+    },
+    recipe: recipe && {
+      id: recipe.id,
+      linesPerInch: recipe.linesPerInch,
+      halftoneMethod: recipe.halftoneMethod,
+      tone: recipe.tone,
+      speed: recipe.speed,
+      powerMinPercent: recipe.powerMinPercent,
+      powerMaxPercent: recipe.powerMaxPercent,
+      passes: recipe.passes,
+    },
   });
 }

@@ -1,5 +1,5 @@
-import type { BlankPhotoView, BlankView, MachineView, MaterialView, RecipeView, SizeView } from '../../../shared/schemas/catalog.ts';
-import { sizeFit, type BlankShape } from '../../../shared/imaging/shape.ts';
+import type { BlankPhotoView, BlankView, MachineView, MaterialView, RecipeView, SizeView } from '#shared/schemas/catalog.ts';
+import { sizeFit, type BlankShape } from '#shared/imaging/shape.ts';
 import type { Blank, BlankPhoto, BlankSize, Machine, Material, Recipe } from './catalog.entity.ts';
 
 /**
@@ -62,9 +62,15 @@ export const sizeView = (s: BlankSize, shape: BlankShape): SizeView => ({
   fit: sizeFit(shape, s),
 });
 
-export const photoView = (p: BlankPhoto, url: (photo: BlankPhoto) => string): BlankPhotoView => ({ id: p.id, url: url(p), width: p.width, height: p.height });
+export const photoView = (p: BlankPhoto, url: (photo: BlankPhoto) => string): BlankPhotoView => ({
+  id: p.id,
+  url: url(p),
+  width: p.width,
+  height: p.height,
+});
 
-export const byPosition = <T extends { sortOrder: number; createdAt: Date }>(a: T, b: T) => a.sortOrder - b.sortOrder || a.createdAt.getTime() - b.createdAt.getTime();
+export const byPosition = <T extends { sortOrder: number; createdAt: Date }>(a: T, b: T) =>
+  a.sortOrder - b.sortOrder || a.createdAt.getTime() - b.createdAt.getTime();
 
 /** Sizes cheapest first, photos in their order. */
 export const blankView = (b: Blank, photoUrl: (photo: BlankPhoto) => string): BlankView => ({
@@ -80,5 +86,8 @@ export const blankView = (b: Blank, photoUrl: (photo: BlankPhoto) => string): Bl
     .getItems()
     .sort((x, y) => x.priceMinor - y.priceMinor || x.label.localeCompare(y.label))
     .map((s) => sizeView(s, b.shape)),
-  photos: b.photos.getItems().sort(byPosition).map((p) => photoView(p, photoUrl)),
+  photos: b.photos
+    .getItems()
+    .sort(byPosition)
+    .map((p) => photoView(p, photoUrl)),
 });

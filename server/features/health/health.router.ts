@@ -1,6 +1,6 @@
 import { Router } from 'express';
-import type { Health } from '../../../shared/health.ts';
-import type { Orm } from '../../db/orm.ts';
+import type { Health } from '#shared/health.ts';
+import type { Orm } from '#server/db/orm.ts';
 
 /** `GET /api/health`: asks the database a real question; 503 when it cannot answer. */
 export function healthRouter({ orm, version }: { orm: Orm; version: string }): Router {

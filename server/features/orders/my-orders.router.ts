@@ -1,11 +1,10 @@
 import { Router } from 'express';
-import type { EntityManager } from '@mikro-orm/postgresql';
-import { formatMoney } from '../../../shared/money.ts';
-import type { MyOrders } from '../../../shared/schemas/checkout.ts';
-import type { Auth } from '../../auth/auth.ts';
-import type { Orm } from '../../db/orm.ts';
-import { withoutTenantFilter } from '../../db/tenant.ts';
-import { requireUser } from '../../middleware/auth-guards.ts';
+import { formatMoney } from '#shared/money.ts';
+import type { MyOrders } from '#shared/schemas/checkout.ts';
+import type { Auth } from '#server/auth/auth.ts';
+import type { Orm } from '#server/db/orm.ts';
+import { withoutTenantFilter } from '#server/db/tenant.ts';
+import { requireUser } from '#server/middleware/auth-guards.ts';
 import { Order } from './order.entity.ts';
 
 /**
@@ -17,7 +16,11 @@ export function myOrdersRouter({ orm, auth }: { orm: Orm; auth: Auth }): Router 
   router.get('/me/orders', requireUser(auth), async (req, res) => {
     const user = req.user!;
     if (!user.emailVerifiedAt) return void res.json({ confirmed: false, orders: [] } satisfies MyOrders);
-    const orders = await (orm.em as EntityManager).find(Order, { buyerEmail: user.email }, { ...withoutTenantFilter, populate: ['studio', 'items'], orderBy: { createdAt: 'desc' }, limit: 100 });
+    const orders = await orm.em.find(
+      Order,
+      { buyerEmail: user.email },
+      { ...withoutTenantFilter, populate: ['studio', 'items'], orderBy: { createdAt: 'desc' }, limit: 100 },
+    );
     res.json({
       confirmed: true,
       orders: orders.map((o) => ({

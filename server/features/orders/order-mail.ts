@@ -1,12 +1,20 @@
-import { escapeHtml } from '../../lib/html.ts';
+import { escapeHtml } from '#server/lib/html.ts';
 
 type Line = { name: string; quantity: number; price: string };
 
 const list = (lines: Line[]) => lines.map((l) => `${l.quantity} × ${l.name}: ${l.price}`).join('\n');
-const htmlList = (lines: Line[]) => `<ul>${lines.map((l) => `<li>${l.quantity} × ${escapeHtml(l.name)}: ${escapeHtml(l.price)}</li>`).join('')}</ul>`;
+const htmlList = (lines: Line[]) =>
+  `<ul>${lines.map((l) => `<li>${l.quantity} × ${escapeHtml(l.name)}: ${escapeHtml(l.price)}</li>`).join('')}</ul>`;
 
 /** To the buyer once payment is in: what was ordered and the private link to follow it. */
-export function orderReceivedMail(input: { studioName: string; number: number; buyerName: string; lines: Line[]; total: string; url: string }) {
+export function orderReceivedMail(input: {
+  studioName: string;
+  number: number;
+  buyerName: string;
+  lines: Line[];
+  total: string;
+  url: string;
+}) {
   return {
     subject: `Your order ${input.number} at ${input.studioName}`,
     text: `Hello ${input.buyerName},\n\nThank you: ${input.studioName} has your order ${input.number} and your payment of ${input.total}.\n\n${list(input.lines)}\n\nWe check every photo before engraving and will write if we need anything from you. Follow your order here:\n${input.url}\n\nKeep this link to yourself: it opens your order.`,
@@ -33,7 +41,15 @@ export function soldOutMail(input: { studioName: string; number: number; buyerNa
 }
 
 /** To the buyer when the studio needs a better photo: why, and the private link to send one. */
-export function newPhotoNeededMail(input: { studioName: string; number: number; buyerName: string; what: string; reason: string; note: string; url: string }) {
+export function newPhotoNeededMail(input: {
+  studioName: string;
+  number: number;
+  buyerName: string;
+  what: string;
+  reason: string;
+  note: string;
+  url: string;
+}) {
   return {
     subject: `Order ${input.number}: ${input.studioName} needs a new photo`,
     text: `Hello ${input.buyerName},\n\nBefore engraving ${input.what}, ${input.studioName} checked your photo and needs another one.\n\nWhy: ${input.reason}.${input.note ? `\nFrom the studio: ${input.note}` : ''}\n\nSend a new photo here (the link works once):\n${input.url}\n\nNothing else about your order changes.`,
@@ -67,9 +83,23 @@ export function proofMail(input: { studioName: string; number: number; buyerName
 }
 
 /** To the buyer when items leave the studio: by carrier with tracking, or handed over in person. */
-export function handedOverMail(input: { studioName: string; number: number; buyerName: string; what: string[]; method: 'ship' | 'pickup'; carrier?: string; trackingNumber?: string; complete: boolean }) {
-  const how = input.method === 'ship' ? `is on its way with ${input.carrier}. Tracking number: ${input.trackingNumber}` : 'was collected at the studio';
-  const rest = input.complete ? 'That completes your order. Thank you for ordering from us!' : 'The rest of your order follows; we will write again.';
+export function handedOverMail(input: {
+  studioName: string;
+  number: number;
+  buyerName: string;
+  what: string[];
+  method: 'ship' | 'pickup';
+  carrier?: string;
+  trackingNumber?: string;
+  complete: boolean;
+}) {
+  const how =
+    input.method === 'ship'
+      ? `is on its way with ${input.carrier}. Tracking number: ${input.trackingNumber}`
+      : 'was collected at the studio';
+  const rest = input.complete
+    ? 'That completes your order. Thank you for ordering from us!'
+    : 'The rest of your order follows; we will write again.';
   return {
     subject: input.method === 'ship' ? `Order ${input.number} has shipped` : `Order ${input.number}: picked up`,
     text: `Hello ${input.buyerName},\n\nYour ${input.what.join(', ')} from ${input.studioName} ${how}.\n\n${rest}\n\nYour order page (the link in your first e-mail) shows this too.`,

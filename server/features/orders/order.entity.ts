@@ -1,9 +1,9 @@
 import { Collection, Entity, Enum, Filter, Index, ManyToOne, OneToMany, PrimaryKey, Property, Unique } from '@mikro-orm/core';
-import type { Address, Handover, Inscription, Placement } from '../../../shared/schemas/checkout.ts';
-import type { PrepVersion } from '../../../shared/schemas/prep.ts';
-import { ITEM_STAGES, ORDER_STATUSES, type ItemStage, type OrderStatus } from '../../../shared/orders/stages.ts';
-import { BaseEntity } from '../../db/base.entity.ts';
-import { tenantFilter } from '../../db/tenant.ts';
+import type { Address, Handover, Inscription, Placement } from '#shared/schemas/checkout.ts';
+import type { PrepVersion } from '#shared/schemas/prep.ts';
+import { ITEM_STAGES, ORDER_STATUSES, type ItemStage, type OrderStatus } from '#shared/orders/stages.ts';
+import { BaseEntity } from '#server/db/base.entity.ts';
+import { tenantFilter } from '#server/db/tenant.ts';
 import { Studio } from '../studios/studio.entity.ts';
 import { BlankSize } from '../catalog/catalog.entity.ts';
 import { BuyerPhoto } from '../photos/buyer-photo.entity.ts';
@@ -37,13 +37,25 @@ export class Order extends BaseEntity<'refundedMinor'> {
   @Property({ type: 'datetime', nullable: true }) paidAt: Date | null = null;
   /** Something the buyer should know about the order as a whole (a refund after a sell-out…). */
   @Property({ type: 'text', nullable: true }) note: string | null = null;
-  @OneToMany(() => OrderItem, (item) => item.order, { orderBy: { position: 'asc', createdAt: 'asc' } }) items = new Collection<OrderItem>(this);
+  @OneToMany(() => OrderItem, (item) => item.order, { orderBy: { position: 'asc', createdAt: 'asc' } }) items = new Collection<OrderItem>(
+    this,
+  );
   @OneToMany(() => OrderEvent, (event) => event.order) events = new Collection<OrderEvent>(this);
 }
 
 @Entity({ tableName: 'order_item' })
 @Filter(tenantFilter)
-export class OrderItem extends BaseEntity<'replacementTokenHash' | 'replacementReason' | 'replacementNote' | 'replacements' | 'prepVersions' | 'proofTokenHash' | 'handover' | 'proofImageKey' | 'position'> {
+export class OrderItem extends BaseEntity<
+  | 'replacementTokenHash'
+  | 'replacementReason'
+  | 'replacementNote'
+  | 'replacements'
+  | 'prepVersions'
+  | 'proofTokenHash'
+  | 'handover'
+  | 'proofImageKey'
+  | 'position'
+> {
   @ManyToOne(() => Studio, { deleteRule: 'cascade' }) studio!: Studio;
   @ManyToOne(() => Order, { deleteRule: 'cascade' }) order!: Order;
   @Enum({ items: [...ITEM_STAGES], type: 'string' }) stage!: ItemStage;

@@ -1,7 +1,7 @@
-import { formatMoney } from '../../../shared/money.ts';
-import { orientedArea } from '../../../shared/imaging/sizing.ts';
-import type { HalftoneMethod } from '../../../shared/imaging/halftone/halftone.ts';
-import type { BurnLook, OrderView } from '../../../shared/schemas/checkout.ts';
+import { formatMoney } from '#shared/money.ts';
+import { orientedArea } from '#shared/imaging/sizing.ts';
+import type { HalftoneMethod } from '#shared/imaging/halftone/halftone.ts';
+import type { BurnLook, OrderView } from '#shared/schemas/checkout.ts';
 import type { Order, OrderItem } from './order.entity.ts';
 
 /** The halftone the mock-up uses when a material has no recipe yet: its usual tone and density. */
@@ -41,7 +41,11 @@ export function orderView(order: Order): OrderView {
     total: money(order.totalMinor),
     refunded: order.refundedMinor ? money(order.refundedMinor) : null,
     buyer: { name: order.buyerName, email: order.buyerEmail },
-    delivery: { method: order.deliveryMethod, label: order.deliveryMethod === 'pickup' ? 'Pickup at the studio' : (order.shippingRate?.name ?? 'Shipping'), address: order.shippingAddress },
+    delivery: {
+      method: order.deliveryMethod,
+      label: order.deliveryMethod === 'pickup' ? 'Pickup at the studio' : (order.shippingRate?.name ?? 'Shipping'),
+      address: order.shippingAddress,
+    },
     note: order.note,
     items: order.items.getItems().map((item) => ({
       id: item.id,

@@ -15,7 +15,13 @@ const SAME_DOWNLOAD_MS = 3600_000;
 
 /** Logs that a member fetched a buyer's original photo, and flushes the line before it is sent. */
 export async function recordPhotoDownload(em: EntityManager, studio: Studio, user: User, photo: BuyerPhoto): Promise<void> {
-  const recent = await em.count(AuditEntry, { studio, actor: user, action: 'photo.downloaded', createdAt: { $gt: new Date(Date.now() - SAME_DOWNLOAD_MS) }, details: { photoId: photo.id } });
+  const recent = await em.count(AuditEntry, {
+    studio,
+    actor: user,
+    action: 'photo.downloaded',
+    createdAt: { $gt: new Date(Date.now() - SAME_DOWNLOAD_MS) },
+    details: { photoId: photo.id },
+  });
   if (recent) return;
   const item = await em.findOne(OrderItem, { studio, photo }, { populate: ['order'] });
   recordAudit(em, studio, user, {

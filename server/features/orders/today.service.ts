@@ -1,6 +1,6 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { ITEM_STAGES, type ItemStage } from '../../../shared/orders/stages.ts';
-import type { Today } from '../../../shared/schemas/workspace-orders.ts';
+import { ITEM_STAGES, type ItemStage } from '#shared/orders/stages.ts';
+import type { Today } from '#shared/schemas/workspace-orders.ts';
 import type { Studio } from '../studios/studio.entity.ts';
 import { OrderItem } from './order.entity.ts';
 
@@ -14,8 +14,15 @@ export async function today(em: EntityManager, studio: Studio, now = new Date())
     `select "stage", count(*) as "count" from "order_item" where "studio_id" = ? and "stage" not in ('unpaid', 'cancelled') group by "stage"`,
     [studio.id],
   );
-  const byStage = ITEM_STAGES.filter((s) => s !== 'unpaid' && s !== 'cancelled').map((stage) => ({ stage, count: Number(counts.find((c) => c.stage === stage)?.count ?? 0) }));
-  const oldest = await em.find(OrderItem, { studio, stage: { $in: WAITING } }, { populate: ['order'], orderBy: { updatedAt: 'asc' }, limit: 5 });
+  const byStage = ITEM_STAGES.filter((s) => s !== 'unpaid' && s !== 'cancelled').map((stage) => ({
+    stage,
+    count: Number(counts.find((c) => c.stage === stage)?.count ?? 0),
+  }));
+  const oldest = await em.find(
+    OrderItem,
+    { studio, stage: { $in: WAITING } },
+    { populate: ['order'], orderBy: { updatedAt: 'asc' }, limit: 5 },
+  );
   // Weeks start on Monday (ISO 8601), as PostgreSQL's date_trunc('week') counts them.
   const rows = await em.execute<Array<{ week: Date; orders: string; revenue: string | null }>>(
     `select date_trunc('week', "paid_at") as "week", count(*) as "orders", sum("total_minor" - "refunded_minor") as "revenue"
@@ -31,7 +38,14 @@ export async function today(em: EntityManager, studio: Studio, now = new Date())
   });
   return {
     byStage,
-    oldest: oldest.map((i) => ({ itemId: i.id, orderId: i.order.id, orderNumber: i.order.number, label: `${i.snapshot.blank.name}, ${i.snapshot.size.label}`, stage: i.stage, since: i.updatedAt.toISOString() })),
+    oldest: oldest.map((i) => ({
+      itemId: i.id,
+      orderId: i.order.id,
+      orderNumber: i.order.number,
+      label: `${i.snapshot.blank.name}, ${i.snapshot.size.label}`,
+      stage: i.stage,
+      since: i.updatedAt.toISOString(),
+    })),
     weeks,
     currency: studio.currency,
   };

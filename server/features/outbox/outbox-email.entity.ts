@@ -1,5 +1,5 @@
 import { Entity, Enum, Index, Property } from '@mikro-orm/core';
-import { BaseEntity } from '../../db/base.entity.ts';
+import { BaseEntity } from '#server/db/base.entity.ts';
 
 /**
  * An e-mail waiting to be sent, or sent. Features write a row in the same transaction as the

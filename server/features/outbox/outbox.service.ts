@@ -1,8 +1,8 @@
 import { LockMode } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/postgresql';
-import type { Mailer, OutgoingMail } from '../../adapters/mailer.ts';
-import type { Logger } from '../../logger.ts';
-import type { Orm } from '../../db/orm.ts';
+import type { Mailer, OutgoingMail } from '#server/adapters/mailer.ts';
+import type { Logger } from '#server/logger.ts';
+import type { Orm } from '#server/db/orm.ts';
 import { OutboxEmail } from './outbox-email.entity.ts';
 
 /** Puts an e-mail in the outbox; it is written with the caller's next flush or transaction. */
@@ -18,7 +18,12 @@ const backoffMs = (attempts: number, firstSeconds: number) => Math.min(firstSeco
  * Sends the e-mails that are due, a batch at a time. Rows are claimed with SKIP LOCKED, so any
  * number of processes may run this side by side without sending anything twice.
  */
-export async function deliverDueEmails(orm: Orm, mailer: Mailer, logger: Logger, { batch = 20, retrySeconds = 30 }: { batch?: number; retrySeconds?: number } = {}): Promise<number> {
+export async function deliverDueEmails(
+  orm: Orm,
+  mailer: Mailer,
+  logger: Logger,
+  { batch = 20, retrySeconds = 30 }: { batch?: number; retrySeconds?: number } = {},
+): Promise<number> {
   let sent = 0;
   await orm.em.fork().transactional(async (tx) => {
     const due = await tx.find(
@@ -46,11 +51,21 @@ export async function deliverDueEmails(orm: Orm, mailer: Mailer, logger: Logger,
 }
 
 /** Runs the sender every `intervalMs` until stopped. */
-export function startOutboxSender(orm: Orm, mailer: Mailer, logger: Logger, intervalMs = 1000, retrySeconds = 30): { stop(): Promise<void> } {
+export function startOutboxSender(
+  orm: Orm,
+  mailer: Mailer,
+  logger: Logger,
+  intervalMs = 1000,
+  retrySeconds = 30,
+): { stop(): Promise<void> } {
   let running: Promise<unknown> = Promise.resolve();
   let stopped = false;
   const timer = setInterval(() => {
-    running = running.then(() => (stopped ? 0 : deliverDueEmails(orm, mailer, logger, { retrySeconds }).catch((error) => logger.error({ err: error }, 'outbox sender failed'))));
+    running = running.then(() =>
+      stopped
+        ? 0
+        : deliverDueEmails(orm, mailer, logger, { retrySeconds }).catch((error) => logger.error({ err: error }, 'outbox sender failed')),
+    );
   }, intervalMs);
   return {
     async stop() {

@@ -1,7 +1,7 @@
 import { Entity, Filter, ManyToOne, Property } from '@mikro-orm/core';
-import type { PhotoQuality } from '../../../shared/imaging/photo-checks.ts';
-import { BaseEntity } from '../../db/base.entity.ts';
-import { tenantFilter } from '../../db/tenant.ts';
+import type { PhotoQuality } from '#shared/imaging/photo-checks.ts';
+import { BaseEntity } from '#server/db/base.entity.ts';
+import { tenantFilter } from '#server/db/tenant.ts';
 import { Studio } from '../studios/studio.entity.ts';
 
 /**

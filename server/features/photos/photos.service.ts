@@ -1,10 +1,10 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { AppError } from '../../../shared/errors.ts';
-import type { BuyerPhotoView } from '../../../shared/schemas/photos.ts';
-import { MAX_IMAGE_UPLOAD_BYTES, type ImageUploadRequest, type UploadTicket } from '../../../shared/schemas/uploads.ts';
-import type { Storage } from '../../adapters/storage.ts';
-import { makePhotoDerivatives } from '../../imaging/photo-derivatives.ts';
-import { isUuid } from '../../lib/tokens.ts';
+import { AppError } from '#shared/errors.ts';
+import type { BuyerPhotoView } from '#shared/schemas/photos.ts';
+import { MAX_IMAGE_UPLOAD_BYTES, type ImageUploadRequest, type UploadTicket } from '#shared/schemas/uploads.ts';
+import type { Storage } from '#server/adapters/storage.ts';
+import { makePhotoDerivatives } from '#server/imaging/photo-derivatives.ts';
+import { isUuid } from '#server/lib/tokens.ts';
 import type { Studio } from '../studios/studio.entity.ts';
 import { issueUpload, readUpload } from '../uploads/uploads.service.ts';
 import { BuyerPhoto } from './buyer-photo.entity.ts';

@@ -1,9 +1,8 @@
 import { Router } from 'express';
-import type { EntityManager } from '@mikro-orm/postgresql';
-import { claimUploadSchema, imageUploadRequestSchema } from '../../../shared/schemas/uploads.ts';
-import type { Storage } from '../../adapters/storage.ts';
-import type { Orm } from '../../db/orm.ts';
-import type { RateLimits } from '../../lib/rate-limits.ts';
+import { claimUploadSchema, imageUploadRequestSchema } from '#shared/schemas/uploads.ts';
+import type { Storage } from '#server/adapters/storage.ts';
+import type { Orm } from '#server/db/orm.ts';
+import type { RateLimits } from '#server/lib/rate-limits.ts';
 import { storefrontStudio } from '../studios/studios.service.ts';
 import { acceptBuyerPhoto, buyerPhotoView, findBuyerPhoto, startBuyerPhotoUpload } from './photos.service.ts';
 
@@ -14,7 +13,7 @@ import { acceptBuyerPhoto, buyerPhotoView, findBuyerPhoto, startBuyerPhotoUpload
  */
 export function storefrontPhotosRouter({ orm, storage, limits }: { orm: Orm; storage: Storage; limits: RateLimits }): Router {
   const router = Router();
-  const em = () => orm.em as EntityManager;
+  const em = () => orm.em;
 
   router.post('/:studioSlug/photo-uploads', async (req, res) => {
     const studio = await storefrontStudio(em(), req.params.studioSlug, { open: true });

@@ -1,28 +1,36 @@
 import { Router } from 'express';
-import type { EntityManager } from '@mikro-orm/postgresql';
-import { AppError } from '../../../shared/errors.ts';
-import type { Orm } from '../../db/orm.ts';
-import type { Auth } from '../../auth/auth.ts';
-import { requirePlatformAdmin, requireUser } from '../../middleware/auth-guards.ts';
+import { AppError } from '#shared/errors.ts';
+import type { Orm } from '#server/db/orm.ts';
+import type { Auth } from '#server/auth/auth.ts';
+import { requirePlatformAdmin, requireUser } from '#server/middleware/auth-guards.ts';
 import { findStudioBySlug } from '../studios/studios.service.ts';
 
 /** Platform admin pages' API (`/api/platform`): studios with counts; suspend and resume. */
 export function platformRouter({ orm, auth }: { orm: Orm; auth: Auth }): Router {
   const router = Router();
-  const em = () => orm.em as EntityManager;
+  const em = () => orm.em;
   router.use(requireUser(auth), requirePlatformAdmin);
 
   router.get('/studios', async (_req, res) => {
     // Counts only: the platform page never reads a studio's buyers or photos.
-    const rows = await em().getConnection().execute<Array<{ slug: string; name: string; status: string; created_at: Date; owners: string; staff: string }>>(
-      `select s.slug, s.name, s.status, s.created_at,
+    const rows = await em()
+      .getConnection()
+      .execute<Array<{ slug: string; name: string; status: string; created_at: Date; owners: string; staff: string }>>(
+        `select s.slug, s.name, s.status, s.created_at,
               count(m.id) filter (where m.role = 'owner') as owners,
               count(m.id) filter (where m.role = 'staff') as staff
          from studio s left join membership m on m.studio_id = s.id
         group by s.id order by s.name`,
-    );
+      );
     res.json({
-      studios: rows.map((r) => ({ slug: r.slug, name: r.name, status: r.status, createdAt: new Date(r.created_at).toISOString(), owners: Number(r.owners), staff: Number(r.staff) })),
+      studios: rows.map((r) => ({
+        slug: r.slug,
+        name: r.name,
+        status: r.status,
+        createdAt: new Date(r.created_at).toISOString(),
+        owners: Number(r.owners),
+        staff: Number(r.staff),
+      })),
     });
   });
 

@@ -1,7 +1,7 @@
 import PDFDocument from 'pdfkit';
 import QRCode from 'qrcode';
-import { LASER_CAUTIONS } from '../../../shared/safety.ts';
-import { nunitoWoff } from '../../lib/fonts.ts';
+import { LASER_CAUTIONS } from '#shared/safety.ts';
+import { nunitoWoff } from '#server/lib/fonts.ts';
 
 /**
  * The job sheet: one printed page that goes with the piece from the machine to the parcel. It
@@ -28,7 +28,11 @@ const MUTED = '#6b625a';
 
 export async function jobSheetPdf(sheet: JobSheet): Promise<Buffer> {
   const qr = await QRCode.toBuffer(sheet.orderUrl, { type: 'png', errorCorrectionLevel: 'M', margin: 1, scale: 6 });
-  const doc = new PDFDocument({ size: sheet.paper, margin: 40, info: { Title: sheet.title, Author: sheet.studioName, Creator: 'Etchwell' } });
+  const doc = new PDFDocument({
+    size: sheet.paper,
+    margin: 40,
+    info: { Title: sheet.title, Author: sheet.studioName, Creator: 'Etchwell' },
+  });
   const chunks: Buffer[] = [];
   doc.on('data', (chunk: Buffer) => chunks.push(chunk));
   const finished = new Promise<Buffer>((resolve, reject) => {
@@ -42,8 +46,16 @@ export async function jobSheetPdf(sheet: JobSheet): Promise<Buffer> {
 
   // Header: who, what, and the code that opens the order.
   doc.font('regular').fontSize(10).fillColor(MUTED).text(sheet.studioName, left, 40);
-  doc.font('bold').fontSize(22).fillColor(INK).text(sheet.title, left, 54, { width: width - 110 });
-  doc.font('regular').fontSize(11).fillColor(MUTED).text(sheet.subtitle, { width: width - 110 });
+  doc
+    .font('bold')
+    .fontSize(22)
+    .fillColor(INK)
+    .text(sheet.title, left, 54, { width: width - 110 });
+  doc
+    .font('regular')
+    .fontSize(11)
+    .fillColor(MUTED)
+    .text(sheet.subtitle, { width: width - 110 });
   doc.image(qr, left + width - 96, 36, { fit: [96, 96] });
   doc.fontSize(7).text('Scan to open the order', left + width - 100, 134, { width: 104, align: 'center' });
 
@@ -53,8 +65,16 @@ export async function jobSheetPdf(sheet: JobSheet): Promise<Buffer> {
   const [pw, ph] = [sheet.preview.readUInt32BE(16), sheet.preview.readUInt32BE(20)];
   const scale = Math.min(170 / pw, 220 / ph);
   doc.image(sheet.preview, left, top, { width: pw * scale, height: ph * scale });
-  doc.rect(left, top, pw * scale, ph * scale).lineWidth(0.5).strokeColor('#cfc6bb').stroke();
-  doc.font('regular').fontSize(7).fillColor(MUTED).text('The engrave file as sent to the machine: black dots fire the laser.', left, top + ph * scale + 4, { width: 170 });
+  doc
+    .rect(left, top, pw * scale, ph * scale)
+    .lineWidth(0.5)
+    .strokeColor('#cfc6bb')
+    .stroke();
+  doc
+    .font('regular')
+    .fontSize(7)
+    .fillColor(MUTED)
+    .text('The engrave file as sent to the machine: black dots fire the laser.', left, top + ph * scale + 4, { width: 170 });
   let y = top;
   const labelX = left + 190;
   const valueX = labelX + 120;
@@ -66,7 +86,11 @@ export async function jobSheetPdf(sheet: JobSheet): Promise<Buffer> {
       continue;
     }
     doc.font('regular').fontSize(9.5).fillColor(MUTED).text(label, labelX, y, { width: 115 });
-    doc.font('bold').fontSize(9.5).fillColor(INK).text(value, valueX, y, { width: left + width - valueX });
+    doc
+      .font('bold')
+      .fontSize(9.5)
+      .fillColor(INK)
+      .text(value, valueX, y, { width: left + width - valueX });
     y = Math.max(doc.y, y + 13) + 1;
   }
 
@@ -75,18 +99,34 @@ export async function jobSheetPdf(sheet: JobSheet): Promise<Buffer> {
   doc.font('bold').fontSize(10).fillColor(INK).text('CHECKS', left, y, { characterSpacing: 0.6 });
   y = doc.y + 4;
   for (const check of sheet.checks) {
-    doc.rect(left, y + 1, 9, 9).lineWidth(0.8).strokeColor(INK).stroke();
-    doc.font('regular').fontSize(10).fillColor(INK).text(check, left + 16, y, { width: width - 16 });
+    doc
+      .rect(left, y + 1, 9, 9)
+      .lineWidth(0.8)
+      .strokeColor(INK)
+      .stroke();
+    doc
+      .font('regular')
+      .fontSize(10)
+      .fillColor(INK)
+      .text(check, left + 16, y, { width: width - 16 });
     y = doc.y + 4;
   }
 
   // The cautions, boxed.
   y += 10;
   const boxTop = y;
-  doc.font('bold').fontSize(10).fillColor(INK).text('Before you burn', left + 12, y + 10);
+  doc
+    .font('bold')
+    .fontSize(10)
+    .fillColor(INK)
+    .text('Before you burn', left + 12, y + 10);
   doc.font('regular').fontSize(9);
   for (const caution of LASER_CAUTIONS) doc.text(`•  ${caution}`, left + 12, doc.y + 3, { width: width - 24 });
-  doc.rect(left, boxTop, width, doc.y - boxTop + 10).lineWidth(1.2).strokeColor('#b7791f').stroke();
+  doc
+    .rect(left, boxTop, width, doc.y - boxTop + 10)
+    .lineWidth(1.2)
+    .strokeColor('#b7791f')
+    .stroke();
 
   doc.end();
   return finished;

@@ -1,7 +1,7 @@
 import { Collection, Entity, Enum, Filter, ManyToOne, OneToMany, Property, Unique } from '@mikro-orm/core';
-import { RENDER_STATUSES, type BatchMachine, type RenderFiles, type RenderStatus } from '../../../shared/schemas/production.ts';
-import { BaseEntity } from '../../db/base.entity.ts';
-import { tenantFilter } from '../../db/tenant.ts';
+import { RENDER_STATUSES, type BatchMachine, type RenderFiles, type RenderStatus } from '#shared/schemas/production.ts';
+import { BaseEntity } from '#server/db/base.entity.ts';
+import { tenantFilter } from '#server/db/tenant.ts';
 import { Studio } from '../studios/studio.entity.ts';
 import { OrderItem } from '../orders/order.entity.ts';
 

@@ -1,59 +1,91 @@
-import type { EntityManager } from '@mikro-orm/postgresql';
-import { createBatchInputSchema, shipInputSchema } from '../../../shared/schemas/production.ts';
-import type { Jobs } from '../../adapters/jobs.ts';
-import type { Storage } from '../../adapters/storage.ts';
-import type { Env } from '../../env.ts';
-import type { Orm } from '../../db/orm.ts';
-import type { WorkspaceRoute } from '../../middleware/workspace-routes.ts';
-import { handOver } from '../orders/handover.service.ts';
-import { batchView, createBatch, findBatch, markBurned, productionBoard, renderDownload, retryRender, takeOutOfBatch } from './production.service.ts';
+import { createBatchInputSchema, shipInputSchema } from '#shared/schemas/production.ts';
+import type { Jobs } from '#server/adapters/jobs.ts';
+import type { Storage } from '#server/adapters/storage.ts';
+import type { Env } from '#server/env.ts';
+import type { WorkspaceRoute } from '#server/middleware/workspace-routes.ts';
+import { handOver } from '#server/features/fulfilment/handover.service.ts';
+import {
+  batchView,
+  createBatch,
+  findBatch,
+  markBurned,
+  productionBoard,
+  renderDownload,
+  retryRender,
+  takeOutOfBatch,
+} from './production.service.ts';
 
 /** Production: the board of approved items, batches and their renders, downloads, burned, handed over. */
-export function productionRoutes({ orm, env, storage, jobs }: { orm: Orm; env: Env; storage: Storage; jobs: Jobs }): WorkspaceRoute[] {
-  const em = () => orm.em as EntityManager;
+export function productionRoutes({ env, storage, jobs }: { env: Env; storage: Storage; jobs: Jobs }): WorkspaceRoute[] {
   return [
-    { method: 'get', path: '/production', permission: 'order:read', handler: async (req, res) => void res.json(await productionBoard(em(), req.studio!)) },
     {
-      method: 'post', path: '/production/batches', permission: 'order:produce',
+      method: 'get',
+      path: '/production',
+      permission: 'order:read',
+      handler: async (ctx, req, res) => void res.json(await productionBoard(ctx.em, ctx.studio)),
+    },
+    {
+      method: 'post',
+      path: '/production/batches',
+      permission: 'order:produce',
       sample: async (f) => ({ body: { itemIds: [(await f.orderItem({ stage: 'approved' })).itemId] } }),
-      handler: async (req, res) => {
-        const batch = await createBatch(em(), jobs, req.studio!, req.user!, createBatchInputSchema.parse(req.body).itemIds);
+      handler: async (ctx, req, res) => {
+        const batch = await createBatch(ctx.em, jobs, ctx.studio, ctx.user, createBatchInputSchema.parse(req.body).itemIds);
         res.status(201).json({ id: batch.id, number: batch.number });
       },
     },
     {
-      method: 'get', path: '/production/batches/:batchId', permission: 'order:read',
+      method: 'get',
+      path: '/production/batches/:batchId',
+      permission: 'order:read',
       sample: async (f) => ({ params: { batchId: (await f.production('done')).batchId } }),
-      handler: async (req, res) => void res.json(batchView(req.studio!, await findBatch(em(), req.studio!, String(req.params.batchId)), env.RENDER_TIMEOUT_SECONDS)),
+      handler: async (ctx, req, res) =>
+        void res.json(batchView(ctx.studio, await findBatch(ctx.em, ctx.studio, String(req.params.batchId)), env.RENDER_TIMEOUT_SECONDS)),
     },
     {
-      method: 'post', path: '/production/renders/:renderId/retry', permission: 'order:produce',
+      method: 'post',
+      path: '/production/renders/:renderId/retry',
+      permission: 'order:produce',
       sample: async (f) => ({ params: { renderId: (await f.production('failed')).renderId } }),
-      handler: async (req, res) => void res.json({ status: (await retryRender(em(), jobs, req.studio!, String(req.params.renderId), env.RENDER_TIMEOUT_SECONDS)).status }),
+      handler: async (ctx, req, res) =>
+        void res.json({
+          status: (await retryRender(ctx.em, jobs, ctx.studio, String(req.params.renderId), env.RENDER_TIMEOUT_SECONDS)).status,
+        }),
     },
     {
-      method: 'get', path: '/production/renders/:renderId/files/:kind', permission: 'order:produce',
+      method: 'get',
+      path: '/production/renders/:renderId/files/:kind',
+      permission: 'order:produce',
       sample: async (f) => ({ params: { renderId: (await f.production('done')).renderId, kind: 'engrave' } }),
-      handler: async (req, res) => void res.json(await renderDownload(em(), storage, req.studio!, String(req.params.renderId), String(req.params.kind), req.user!)),
+      handler: async (ctx, req, res) =>
+        void res.json(await renderDownload(ctx.em, storage, ctx.studio, String(req.params.renderId), String(req.params.kind), ctx.user)),
     },
     {
-      method: 'post', path: '/items/:itemId/burned', permission: 'order:produce',
+      method: 'post',
+      path: '/items/:itemId/burned',
+      permission: 'order:produce',
       sample: async (f) => ({ params: { itemId: (await f.production('done')).itemId } }),
-      handler: async (req, res) => void res.json({ stage: (await markBurned(em(), req.studio!, String(req.params.itemId), req.user!)).stage }),
+      handler: async (ctx, req, res) =>
+        void res.json({ stage: (await markBurned(ctx.em, ctx.studio, String(req.params.itemId), ctx.user)).stage }),
     },
     {
-      method: 'post', path: '/items/:itemId/out-of-batch', permission: 'order:produce',
+      method: 'post',
+      path: '/items/:itemId/out-of-batch',
+      permission: 'order:produce',
       sample: async (f) => ({ params: { itemId: (await f.production('failed')).itemId } }),
-      handler: async (req, res) => void res.json({ stage: (await takeOutOfBatch(em(), storage, req.studio!, String(req.params.itemId), req.user!)).stage }),
+      handler: async (ctx, req, res) =>
+        void res.json({ stage: (await takeOutOfBatch(ctx.em, storage, ctx.studio, String(req.params.itemId), ctx.user)).stage }),
     },
     {
-      method: 'post', path: '/orders/:orderId/handover', permission: 'order:produce',
+      method: 'post',
+      path: '/orders/:orderId/handover',
+      permission: 'order:produce',
       sample: async (f) => {
         const { orderId, itemId } = await f.orderItem({ stage: 'burned' });
         return { params: { orderId }, body: { method: 'ship', itemIds: [itemId], carrier: 'Parcelway', trackingNumber: 'PW 1234 5678' } };
       },
-      handler: async (req, res) => {
-        const order = await handOver(em(), req.studio!, String(req.params.orderId), req.user!, shipInputSchema.parse(req.body));
+      handler: async (ctx, req, res) => {
+        const order = await handOver(ctx.em, ctx.studio, String(req.params.orderId), ctx.user, shipInputSchema.parse(req.body));
         res.json({ status: order.status });
       },
     },

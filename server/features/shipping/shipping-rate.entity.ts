@@ -1,6 +1,6 @@
 import { Entity, Filter, ManyToOne, Property } from '@mikro-orm/core';
-import { BaseEntity } from '../../db/base.entity.ts';
-import { tenantFilter } from '../../db/tenant.ts';
+import { BaseEntity } from '#server/db/base.entity.ts';
+import { tenantFilter } from '#server/db/tenant.ts';
 import { Studio } from '../studios/studio.entity.ts';
 
 /** A flat shipping rate a studio offers, such as "Tracked post, 3–5 days". */

@@ -1,18 +1,23 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { AppError } from '../../../shared/errors.ts';
-import { shippingRateInputSchema, type ShippingRateView } from '../../../shared/studio.ts';
-import type { Orm } from '../../db/orm.ts';
-import { isUuid } from '../../lib/tokens.ts';
-import type { WorkspaceRoute } from '../../middleware/workspace-routes.ts';
+import { AppError } from '#shared/errors.ts';
+import { shippingRateInputSchema, type ShippingRateView } from '#shared/studio.ts';
+import { isUuid } from '#server/lib/tokens.ts';
+import type { WorkspaceRoute } from '#server/middleware/workspace-routes.ts';
 import type { Studio } from '../studios/studio.entity.ts';
 import { ShippingRate } from './shipping-rate.entity.ts';
-import { formatMoney } from '../../../shared/money.ts';
+import { formatMoney } from '#shared/money.ts';
 import type { User } from '../accounts/user.entity.ts';
 import { recordAudit } from '../audit/audit.service.ts';
 
 /** Shipping prices are prices: their changes go to the audit log. */
 function auditRate(em: EntityManager, studio: Studio, actor: User, rate: ShippingRate, summary: string, details: Record<string, unknown>) {
-  recordAudit(em, studio, actor, { action: 'price.changed', subject: `Shipping: ${rate.name}`, summary, link: `/studio/${studio.slug}/settings`, details: { shippingRateId: rate.id, currency: studio.currency, ...details } });
+  recordAudit(em, studio, actor, {
+    action: 'price.changed',
+    subject: `Shipping: ${rate.name}`,
+    summary,
+    link: `/studio/${studio.slug}/settings`,
+    details: { shippingRateId: rate.id, currency: studio.currency, ...details },
+  });
 }
 
 const view = (r: ShippingRate): ShippingRateView => ({ id: r.id, name: r.name, priceMinor: r.priceMinor, sortOrder: r.sortOrder });
@@ -28,46 +33,68 @@ async function findRate(em: EntityManager, studio: Studio, id: string): Promise<
  * A studio's flat shipping rates (owners set them; checkout offers them). An order keeps a copy
  * of the rate it was placed with, so rates may change or go at any time.
  */
-export function shippingRoutes({ orm }: { orm: Orm }): WorkspaceRoute[] {
-  const em = () => orm.em as EntityManager;
+export function shippingRoutes(): WorkspaceRoute[] {
   return [
     {
-      method: 'get', path: '/shipping-rates', permission: 'studio:read',
-      handler: async (req, res) => void res.json({ rates: (await em().find(ShippingRate, { studio: req.studio! }, { orderBy: { sortOrder: 'asc', priceMinor: 'asc' } })).map(view) }),
+      method: 'get',
+      path: '/shipping-rates',
+      permission: 'studio:read',
+      handler: async (ctx, req, res) =>
+        void res.json({
+          rates: (await ctx.em.find(ShippingRate, { studio: ctx.studio }, { orderBy: { sortOrder: 'asc', priceMinor: 'asc' } })).map(view),
+        }),
     },
     {
-      method: 'post', path: '/shipping-rates', permission: 'studio:settings',
+      method: 'post',
+      path: '/shipping-rates',
+      permission: 'studio:settings',
       sample: () => ({ body: rate }),
-      handler: async (req, res) => {
-        const created = em().create(ShippingRate, { ...shippingRateInputSchema.parse(req.body), studio: req.studio! });
-        auditRate(em(), req.studio!, req.user!, created, `New shipping rate at ${formatMoney(created.priceMinor, req.studio!.currency)}.`, { priceMinor: created.priceMinor });
-        await em().flush();
+      handler: async (ctx, req, res) => {
+        const created = ctx.em.create(ShippingRate, { ...shippingRateInputSchema.parse(req.body), studio: ctx.studio });
+        auditRate(ctx.em, ctx.studio, ctx.user, created, `New shipping rate at ${formatMoney(created.priceMinor, ctx.studio.currency)}.`, {
+          priceMinor: created.priceMinor,
+        });
+        await ctx.em.flush();
         res.status(201).json(view(created));
       },
     },
     {
-      method: 'put', path: '/shipping-rates/:rateId', permission: 'studio:settings',
+      method: 'put',
+      path: '/shipping-rates/:rateId',
+      permission: 'studio:settings',
       sample: async (f) => ({ params: { rateId: await f.shippingRate() }, body: rate }),
-      handler: async (req, res) => {
-        const found = await findRate(em(), req.studio!, String(req.params.rateId));
+      handler: async (ctx, req, res) => {
+        const found = await findRate(ctx.em, ctx.studio, String(req.params.rateId));
         const fromMinor = found.priceMinor;
-        em().assign(found, shippingRateInputSchema.parse(req.body));
+        ctx.em.assign(found, shippingRateInputSchema.parse(req.body));
         if (found.priceMinor !== fromMinor) {
-          const money = (minor: number) => formatMoney(minor, req.studio!.currency);
-          auditRate(em(), req.studio!, req.user!, found, `Price: ${money(fromMinor)} → ${money(found.priceMinor)}.`, { fromMinor, toMinor: found.priceMinor });
+          const money = (minor: number) => formatMoney(minor, ctx.studio.currency);
+          auditRate(ctx.em, ctx.studio, ctx.user, found, `Price: ${money(fromMinor)} → ${money(found.priceMinor)}.`, {
+            fromMinor,
+            toMinor: found.priceMinor,
+          });
         }
-        await em().flush();
+        await ctx.em.flush();
         res.json(view(found));
       },
     },
     {
-      method: 'delete', path: '/shipping-rates/:rateId', permission: 'studio:settings',
+      method: 'delete',
+      path: '/shipping-rates/:rateId',
+      permission: 'studio:settings',
       sample: async (f) => ({ params: { rateId: await f.shippingRate() } }),
-      handler: async (req, res) => {
-        const found = await findRate(em(), req.studio!, String(req.params.rateId));
-        auditRate(em(), req.studio!, req.user!, found, `Shipping rate removed (it was ${formatMoney(found.priceMinor, req.studio!.currency)}).`, { fromMinor: found.priceMinor });
-        em().remove(found);
-        await em().flush();
+      handler: async (ctx, req, res) => {
+        const found = await findRate(ctx.em, ctx.studio, String(req.params.rateId));
+        auditRate(
+          ctx.em,
+          ctx.studio,
+          ctx.user,
+          found,
+          `Shipping rate removed (it was ${formatMoney(found.priceMinor, ctx.studio.currency)}).`,
+          { fromMinor: found.priceMinor },
+        );
+        ctx.em.remove(found);
+        await ctx.em.flush();
         res.status(204).end();
       },
     },

@@ -1,11 +1,24 @@
 import { Entity, Enum, Property, Unique } from '@mikro-orm/core';
-import type { MasterResolution } from '../../../shared/studio.ts';
-import type { StudioStatus } from '../../../shared/studio.ts';
-import { BaseEntity } from '../../db/base.entity.ts';
+import type { MasterResolution } from '#shared/studio.ts';
+import type { StudioStatus } from '#shared/studio.ts';
+import { BaseEntity } from '#server/db/base.entity.ts';
 
 /** A tenant: one engraving studio with its own storefront and workspace. */
 @Entity({ tableName: 'studio' })
-export class Studio extends BaseEntity<'accentColour' | 'status' | 'currency' | 'units' | 'contactEmail' | 'logoKey' | 'lowResolutionPolicy' | 'pickupEnabled' | 'pickupNote' | 'nextOrderNumber' | 'proofsRequired' | 'masterResolution'> {
+export class Studio extends BaseEntity<
+  | 'accentColour'
+  | 'status'
+  | 'currency'
+  | 'units'
+  | 'contactEmail'
+  | 'logoKey'
+  | 'lowResolutionPolicy'
+  | 'pickupEnabled'
+  | 'pickupNote'
+  | 'nextOrderNumber'
+  | 'proofsRequired'
+  | 'masterResolution'
+> {
   @Property({ type: 'string', length: 40 })
   @Unique()
   slug!: string;

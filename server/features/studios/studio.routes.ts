@@ -1,57 +1,77 @@
-import type { Request } from 'express';
-import type { EntityManager } from '@mikro-orm/postgresql';
-import { ROLE_PERMISSIONS } from '../../../shared/permissions.ts';
-import { orderSettingsInputSchema, studioSettingsInputSchema } from '../../../shared/studio.ts';
-import type { Orm } from '../../db/orm.ts';
-import type { WorkspaceRoute } from '../../middleware/workspace-routes.ts';
+import { ROLE_PERMISSIONS } from '#shared/permissions.ts';
+import { orderSettingsInputSchema, studioSettingsInputSchema } from '#shared/studio.ts';
+import type { WorkspaceContext, WorkspaceRoute } from '#server/middleware/workspace-routes.ts';
 import { randomUUID } from 'node:crypto';
-import type { Storage } from '../../adapters/storage.ts';
-import { claimUploadSchema, imageUploadRequestSchema, MAX_IMAGE_UPLOAD_BYTES } from '../../../shared/schemas/uploads.ts';
-import { LOGO_OPTIONS, toWebPhoto } from '../../imaging/web-photo.ts';
+import type { Storage } from '#server/adapters/storage.ts';
+import { claimUploadSchema, imageUploadRequestSchema, MAX_IMAGE_UPLOAD_BYTES } from '#shared/schemas/uploads.ts';
+import { LOGO_OPTIONS, toWebPhoto } from '#server/imaging/web-photo.ts';
 import { issueUpload, readUpload } from '../uploads/uploads.service.ts';
 import { logoUrl } from './studios.service.ts';
 
-const describe = (req: Request) => {
-  const s = req.studio!;
+const describe = (ctx: WorkspaceContext) => {
+  const s = ctx.studio;
   return {
-    studio: { slug: s.slug, name: s.name, accentColour: s.accentColour, currency: s.currency, units: s.units, contactEmail: s.contactEmail, status: s.status, logoUrl: logoUrl(s) },
-    orders: { lowResolutionPolicy: s.lowResolutionPolicy, pickupEnabled: s.pickupEnabled, pickupNote: s.pickupNote, proofsRequired: s.proofsRequired, masterResolution: s.masterResolution },
-    role: req.role,
-    permissions: ROLE_PERMISSIONS[req.role!],
+    studio: {
+      slug: s.slug,
+      name: s.name,
+      accentColour: s.accentColour,
+      currency: s.currency,
+      units: s.units,
+      contactEmail: s.contactEmail,
+      status: s.status,
+      logoUrl: logoUrl(s),
+    },
+    orders: {
+      lowResolutionPolicy: s.lowResolutionPolicy,
+      pickupEnabled: s.pickupEnabled,
+      pickupNote: s.pickupNote,
+      proofsRequired: s.proofsRequired,
+      masterResolution: s.masterResolution,
+    },
+    role: ctx.role,
+    permissions: ROLE_PERMISSIONS[ctx.role],
   };
 };
 
 /** The workspace's view of its own studio, what the member may do there, and its settings. */
-export function studioRoutes({ orm, storage }: { orm: Orm; storage: Storage }): WorkspaceRoute[] {
-  const logoPrefix = (req: Request) => `uploads/${req.studio!.id}/logo`;
+export function studioRoutes({ storage }: { storage: Storage }): WorkspaceRoute[] {
+  const logoPrefix = (ctx: WorkspaceContext) => `uploads/${ctx.studio.id}/logo`;
   return [
     {
       method: 'get',
       path: '/',
       permission: 'studio:read',
-      handler: (req, res) => void res.json(describe(req)),
+      handler: (ctx, req, res) => void res.json(describe(ctx)),
     },
     {
       method: 'put',
       path: '/settings',
       permission: 'studio:settings',
       sample: () => ({ body: { name: 'Matrix Studio', accentColour: '#224466', currency: 'EUR', units: 'mm', contactEmail: '' } }),
-      handler: async (req, res) => {
+      handler: async (ctx, req, res) => {
         const input = studioSettingsInputSchema.parse(req.body);
-        (orm.em as EntityManager).assign(req.studio!, input);
-        await orm.em.flush();
-        res.json(describe(req));
+        ctx.em.assign(ctx.studio, input);
+        await ctx.em.flush();
+        res.json(describe(ctx));
       },
     },
     {
       method: 'put',
       path: '/settings/orders',
       permission: 'studio:settings',
-      sample: () => ({ body: { lowResolutionPolicy: 'refuse', pickupEnabled: true, pickupNote: 'At the workshop, weekdays.', proofsRequired: false, masterResolution: 'recipe' } }),
-      handler: async (req, res) => {
-        (orm.em as EntityManager).assign(req.studio!, orderSettingsInputSchema.parse(req.body));
-        await orm.em.flush();
-        res.json(describe(req));
+      sample: () => ({
+        body: {
+          lowResolutionPolicy: 'refuse',
+          pickupEnabled: true,
+          pickupNote: 'At the workshop, weekdays.',
+          proofsRequired: false,
+          masterResolution: 'recipe',
+        },
+      }),
+      handler: async (ctx, req, res) => {
+        ctx.em.assign(ctx.studio, orderSettingsInputSchema.parse(req.body));
+        await ctx.em.flush();
+        res.json(describe(ctx));
       },
     },
     {
@@ -59,36 +79,37 @@ export function studioRoutes({ orm, storage }: { orm: Orm; storage: Storage }): 
       path: '/settings/logo-uploads',
       permission: 'studio:settings',
       sample: () => ({ body: { contentType: 'image/png', contentLength: 2000 } }),
-      handler: async (req, res) => void res.status(201).json(await issueUpload(storage, logoPrefix(req), imageUploadRequestSchema.parse(req.body))),
+      handler: async (ctx, req, res) =>
+        void res.status(201).json(await issueUpload(storage, logoPrefix(ctx), imageUploadRequestSchema.parse(req.body))),
     },
     {
       method: 'put',
       path: '/settings/logo',
       permission: 'studio:settings',
       sample: async (f) => ({ body: { key: await f.upload('logo') } }),
-      handler: async (req, res) => {
+      handler: async (ctx, req, res) => {
         const { key } = claimUploadSchema.parse(req.body);
-        const bytes = await readUpload(storage, logoPrefix(req), key, MAX_IMAGE_UPLOAD_BYTES);
+        const bytes = await readUpload(storage, logoPrefix(ctx), key, MAX_IMAGE_UPLOAD_BYTES);
         const logo = await toWebPhoto(bytes, LOGO_OPTIONS).finally(() => storage.remove(key));
-        const studio = req.studio!;
+        const studio = ctx.studio;
         const previous = studio.logoKey;
         studio.logoKey = `studios/${studio.id}/logo/${randomUUID()}.webp`;
         await storage.put(studio.logoKey, logo.data, 'image/webp');
-        await orm.em.flush();
+        await ctx.em.flush();
         if (previous) await storage.remove(previous);
-        res.json(describe(req));
+        res.json(describe(ctx));
       },
     },
     {
       method: 'delete',
       path: '/settings/logo',
       permission: 'studio:settings',
-      handler: async (req, res) => {
-        const previous = req.studio!.logoKey;
-        req.studio!.logoKey = null;
-        await orm.em.flush();
+      handler: async (ctx, req, res) => {
+        const previous = ctx.studio.logoKey;
+        ctx.studio.logoKey = null;
+        await ctx.em.flush();
         if (previous) await storage.remove(previous);
-        res.json(describe(req));
+        res.json(describe(ctx));
       },
     },
   ];

@@ -1,8 +1,8 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { AppError } from '../../../shared/errors.ts';
-import { type PublicStudio, studioSlugSchema } from '../../../shared/studio.ts';
+import { AppError } from '#shared/errors.ts';
+import { type PublicStudio, studioSlugSchema } from '#shared/studio.ts';
 import { Studio } from './studio.entity.ts';
-import { TENANT_FILTER } from '../../db/tenant.ts';
+import { TENANT_FILTER } from '#server/db/tenant.ts';
 
 /** A studio by its public slug; NOT_FOUND for unknown and malformed slugs alike. */
 export async function findStudioBySlug(em: EntityManager, slug: string): Promise<Studio> {
@@ -13,10 +13,20 @@ export async function findStudioBySlug(em: EntityManager, slug: string): Promise
 }
 
 /** Where a studio's logo loads from; the key's own name changes with each new logo, so it caches well. */
-export const logoUrl = (studio: Studio) => (studio.logoKey ? `/api/storefront/${studio.slug}/logo?v=${studio.logoKey.split('/').pop()!.replace('.webp', '')}` : null);
+export const logoUrl = (studio: Studio) =>
+  studio.logoKey ? `/api/storefront/${studio.slug}/logo?v=${studio.logoKey.split('/').pop()!.replace('.webp', '')}` : null;
 
 export function toPublicStudio(studio: Studio): PublicStudio {
-  return { slug: studio.slug, name: studio.name, accentColour: studio.accentColour, status: studio.status, currency: studio.currency, units: studio.units, lowResolutionPolicy: studio.lowResolutionPolicy, logoUrl: logoUrl(studio) };
+  return {
+    slug: studio.slug,
+    name: studio.name,
+    accentColour: studio.accentColour,
+    status: studio.status,
+    currency: studio.currency,
+    units: studio.units,
+    lowResolutionPolicy: studio.lowResolutionPolicy,
+    logoUrl: logoUrl(studio),
+  };
 }
 
 /**

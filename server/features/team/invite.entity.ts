@@ -1,7 +1,7 @@
 import { Entity, Enum, Filter, ManyToOne, Property, Unique } from '@mikro-orm/core';
-import type { Role } from '../../../shared/permissions.ts';
-import { BaseEntity } from '../../db/base.entity.ts';
-import { tenantFilter } from '../../db/tenant.ts';
+import type { Role } from '#shared/permissions.ts';
+import { BaseEntity } from '#server/db/base.entity.ts';
+import { tenantFilter } from '#server/db/tenant.ts';
 import { Studio } from '../studios/studio.entity.ts';
 import { User } from '../accounts/user.entity.ts';
 

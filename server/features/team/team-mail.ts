@@ -1,4 +1,4 @@
-import { escapeHtml } from '../../lib/html.ts';
+import { escapeHtml } from '#server/lib/html.ts';
 
 export function inviteMail(input: { studioName: string; inviterName: string; role: string; url: string; validDays: number }) {
   return {

@@ -1,10 +1,10 @@
 import { appendFileSync, mkdirSync } from 'node:fs';
 import { join } from 'node:path';
-import { startStorageFake } from '../../../fakes/storage/server.ts';
-import { startPaymentsFake } from '../../../fakes/payments/server.ts';
-import { startMailFake } from '../../../fakes/mail/server.ts';
-import { consoleLogger, type RequestLogger } from '../../../fakes/support/request-log.ts';
-import type { Env } from '../../env.ts';
+import { startStorageFake } from '#fakes/storage/server.ts';
+import { startPaymentsFake } from '#fakes/payments/server.ts';
+import { startMailFake } from '#fakes/mail/server.ts';
+import { consoleLogger, type RequestLogger } from '#fakes/support/request-log.ts';
+import type { Env } from '#server/env.ts';
 
 /**
  * The local stand-ins for object storage, payments and e-mail, configured from the same

@@ -9,10 +9,17 @@ let aptUpdated = false;
 async function aptInstall(packages: string[]): Promise<void> {
   if (!aptUpdated) await run('apt-get', ['update'], { quiet: true });
   aptUpdated = true;
-  await run('apt-get', ['install', '-y', '--no-install-recommends', ...packages], { quiet: true, env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
+  await run('apt-get', ['install', '-y', '--no-install-recommends', ...packages], {
+    quiet: true,
+    env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' },
+  });
 }
 
-const pillowInstalled = () => run('/usr/bin/python3', ['-c', 'import PIL'], { quiet: true }).then(() => true, () => false);
+const pillowInstalled = () =>
+  run('/usr/bin/python3', ['-c', 'import PIL'], { quiet: true }).then(
+    () => true,
+    () => false,
+  );
 
 /** What the tests and benchmarks check against: Chromium, Pillow, Poppler, ImageMagick, open-licensed photographs. */
 export async function ensureReferenceTools(need: { chromium?: boolean; imagemagick?: boolean } = {}): Promise<void> {
@@ -50,4 +57,3 @@ export async function ensureReferenceTools(need: { chromium?: boolean; imagemagi
     rmSync(work, { recursive: true, force: true });
   }
 }
-

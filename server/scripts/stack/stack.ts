@@ -1,9 +1,9 @@
 import { resolve } from 'node:path';
-import { dropDatabase, ensureDatabase } from '../../db/database-admin.ts';
-import { initOrm, migrate } from '../../db/orm.ts';
-import { seedDemo } from '../../db/seed.ts';
-import { loadEnv } from '../../env.ts';
-import { createStorage } from '../../adapters/storage.ts';
+import { dropDatabase, ensureDatabase } from '#server/db/database-admin.ts';
+import { initOrm, migrate } from '#server/db/orm.ts';
+import { seedDemo } from '#server/db/seed.ts';
+import { loadEnv } from '#server/env.ts';
+import { createStorage } from '#server/adapters/storage.ts';
 import { log } from './run.ts';
 import { startPostgres } from './postgres.ts';
 import { startFake, type FakeName } from './fakes.ts';
@@ -102,4 +102,3 @@ async function prepareDatabase(databaseUrl: string, { seed }: { seed: boolean })
     await orm.close();
   }
 }
-

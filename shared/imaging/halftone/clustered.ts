@@ -14,7 +14,8 @@ const spotFunction = (cu: number, cv: number) => 1 - (cu * cu + cv * cv) / 2;
 const SAMPLES = (() => {
   const n = 64;
   const values = new Float64Array(n * n);
-  for (let j = 0; j < n; j++) for (let i = 0; i < n; i++) values[j * n + i] = spotFunction((2 * (i + 0.5)) / n - 1, (2 * (j + 0.5)) / n - 1);
+  for (let j = 0; j < n; j++)
+    for (let i = 0; i < n; i++) values[j * n + i] = spotFunction((2 * (i + 0.5)) / n - 1, (2 * (j + 0.5)) / n - 1);
   return values.sort();
 })();
 

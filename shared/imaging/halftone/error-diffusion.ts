@@ -60,8 +60,14 @@ export function errorDiffuseAnyKernel(image: GrayF, options: ErrorDiffusionOptio
     let c2 = 0; // … and the one after it
     // Sliding windows over the next two rows: partial sums for the positions 2 and 1 behind,
     // at, and 1 ahead of the pixel, kept in locals; each position is written once, when final.
-    let u2 = 0, u1 = 0, u0 = 0, uA = 0;
-    let v2 = 0, v1 = 0, v0 = 0, vA = 0;
+    let u2 = 0,
+      u1 = 0,
+      u0 = 0,
+      uA = 0;
+    let v2 = 0,
+      v1 = 0,
+      v0 = 0,
+      vA = 0;
     let x = rightward ? 0 : width - 1;
     for (let n = 0; n < width; n++, x += step) {
       const i = row + x;
@@ -126,9 +132,16 @@ function jarvisJudiceNinke(image: GrayF, options: ErrorDiffusionOptions): Bitmap
     const inside = mask ? mask.subarray(row, row + width) : allInside;
     const rightward = !serpentine || (y & 1) === 0;
     const step = rightward ? 1 : -1;
-    let c1 = 0, c2 = 0;
-    let u2 = 0, u1 = 0, u0 = 0, uA = 0;
-    let v2 = 0, v1 = 0, v0 = 0, vA = 0;
+    let c1 = 0,
+      c2 = 0;
+    let u2 = 0,
+      u1 = 0,
+      u0 = 0,
+      uA = 0;
+    let v2 = 0,
+      v1 = 0,
+      v0 = 0,
+      vA = 0;
     let x = rightward ? 0 : width - 1;
     let behind2 = x - 2 * step + pad;
     for (let n = 0; n < width; n++) {
@@ -142,7 +155,10 @@ function jarvisJudiceNinke(image: GrayF, options: ErrorDiffusionOptions): Bitmap
       } else {
         out[i] = 1;
       }
-      const e1 = e * k1, e3 = e * k3, e5 = e * k5, e7 = e * k7;
+      const e1 = e * k1,
+        e3 = e * k3,
+        e5 = e * k5,
+        e7 = e * k7;
       c1 = c2 + e7;
       c2 = e5;
       next1[behind2]! += u2 + e3;

@@ -29,9 +29,15 @@ export type HalftoneOptions = {
 export function halftone(image: GrayF, options: HalftoneOptions): Bitmap {
   const { method, mask } = options;
   if (method === 'threshold') return thresholdDither(image, 127.5, mask);
-  if (method === 'bayer-2' || method === 'bayer-4' || method === 'bayer-8') return orderedDither(image, Number(method.slice(6)) as 2 | 4 | 8, mask);
+  if (method === 'bayer-2' || method === 'bayer-4' || method === 'bayer-8')
+    return orderedDither(image, Number(method.slice(6)) as 2 | 4 | 8, mask);
   if (method === 'clustered') {
-    return clusteredDot(image, { cellsPerInch: options.cellsPerInch ?? 60, pixelsPerInch: options.pixelsPerInch ?? 360, angleDegrees: options.angleDegrees, mask });
+    return clusteredDot(image, {
+      cellsPerInch: options.cellsPerInch ?? 60,
+      pixelsPerInch: options.pixelsPerInch ?? 360,
+      angleDegrees: options.angleDegrees,
+      mask,
+    });
   }
   return errorDiffuse(image, { kernel: method, scan: options.scan ?? 'serpentine', mask });
 }

@@ -26,7 +26,11 @@ export const DIFFUSION_KERNELS = {
     weights: rows([7, 5], { from: -2, weights: [3, 5, 7, 5, 3] }, { from: -2, weights: [1, 3, 5, 3, 1] }),
   },
   /** P. Stucki, IBM Research Report RZ1060, 1981. */
-  stucki: { name: 'Stucki', divisor: 42, weights: rows([8, 4], { from: -2, weights: [2, 4, 8, 4, 2] }, { from: -2, weights: [1, 2, 4, 2, 1] }) },
+  stucki: {
+    name: 'Stucki',
+    divisor: 42,
+    weights: rows([8, 4], { from: -2, weights: [2, 4, 8, 4, 2] }, { from: -2, weights: [1, 2, 4, 2, 1] }),
+  },
   /** D. Burkes, 1988 (tabulated in DHALF.TXT, 1991). */
   burkes: { name: 'Burkes', divisor: 32, weights: rows([8, 4], { from: -2, weights: [2, 4, 8, 4, 2] }) },
   /** F. Sierra, 1989 (DHALF.TXT). */

@@ -1,13 +1,22 @@
 import { Link } from 'react-router-dom';
-import { SiteLayout } from '../../components/layouts/site-layout.tsx';
-import { Card } from '../../components/ui/card.tsx';
-import { buttonClasses } from '../../components/ui/button.tsx';
-import { Notice } from '../../components/ui/notice.tsx';
+import { SiteLayout } from '#src/app/layouts/site-layout.tsx';
+import { Card } from '#src/components/ui/card.tsx';
+import { buttonClasses } from '#src/components/ui/button.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
 
 const steps = [
-  { title: 'The photo arrives', text: 'Buyers drop a phone photo on your storefront. Etchwell tells them at once whether it has enough pixels for the size they chose.' },
-  { title: 'Your team prepares it', text: 'Cut the subject out, soften the edge, set the tone and sharpen hard — the burn softens detail, so the file must not.' },
-  { title: 'Dots the laser can burn', text: 'Halftoning at your machine’s lines per inch, as a negative on glass, slate and granite, with each material’s recipe.' },
+  {
+    title: 'The photo arrives',
+    text: 'Buyers drop a phone photo on your storefront. Etchwell tells them at once whether it has enough pixels for the size they chose.',
+  },
+  {
+    title: 'Your team prepares it',
+    text: 'Cut the subject out, soften the edge, set the tone and sharpen hard — the burn softens detail, so the file must not.',
+  },
+  {
+    title: 'Dots the laser can burn',
+    text: 'Halftoning at your machine’s lines per inch, as a negative on glass, slate and granite, with each material’s recipe.',
+  },
   { title: 'Proof, burn, ship', text: 'Buyers approve a proof before anything is burned, and hear from you when it ships.' },
 ];
 
@@ -20,9 +29,9 @@ export function HomePage() {
           Etchwell turns your buyers&rsquo; photos into files your laser can burn.
         </h1>
         <p className="mt-5 max-w-2xl text-lg text-graphite-600">
-          A storefront where buyers upload a photo, pick a blank and a size and see how it will look in glass, stone, wood
-          or metal — and a workspace where your team checks the photo, prepares it, sends a proof, renders the engrave
-          file and ships. One place for the work you now do by hand in two or three programs.
+          A storefront where buyers upload a photo, pick a blank and a size and see how it will look in glass, stone, wood or metal — and a
+          workspace where your team checks the photo, prepares it, sends a proof, renders the engrave file and ships. One place for the work
+          you now do by hand in two or three programs.
         </p>
         <div className="mt-8 flex flex-wrap gap-3">
           <Link to="/open-a-studio" className={buttonClasses('primary', 'lg')}>
@@ -53,9 +62,9 @@ export function HomePage() {
 
       <section className="mx-auto max-w-6xl px-6 pb-20">
         <Notice tone="caution" title="Laser safety">
-          Engraving lasers are Class 4 laser products. Never leave a running machine unattended, keep fire suppression
-          at hand, run fume extraction, wear eye protection rated for the wavelength, and never burn PVC or vinyl. Follow
-          your machine maker&rsquo;s manual and local codes.
+          Engraving lasers are Class 4 laser products. Never leave a running machine unattended, keep fire suppression at hand, run fume
+          extraction, wear eye protection rated for the wavelength, and never burn PVC or vinyl. Follow your machine maker&rsquo;s manual
+          and local codes.
         </Notice>
       </section>
     </SiteLayout>

@@ -1,17 +1,17 @@
 import type { FormEvent } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
-import { acceptWithAccountInputSchema } from '../../../shared/schemas/team.ts';
-import { AppError } from '../../../shared/errors.ts';
-import { SiteLayout } from '../../components/layouts/site-layout.tsx';
-import { Card } from '../../components/ui/card.tsx';
-import { TextField } from '../../components/ui/text-field.tsx';
-import { Button, buttonClasses } from '../../components/ui/button.tsx';
-import { Notice } from '../../components/ui/notice.tsx';
-import { acceptInvite, acceptInviteWithAccount, useInvitePreview } from '../../features/team/api/invites.ts';
-import { useMe, meQueries } from '../../features/auth/api/get-me.ts';
-import { signInWithPassword } from '../../features/auth/api/sign-in.ts';
-import { useFieldErrors } from '../../lib/use-field-errors.ts';
+import { acceptWithAccountInputSchema } from '#shared/schemas/team.ts';
+import { AppError } from '#shared/errors.ts';
+import { SiteLayout } from '#src/app/layouts/site-layout.tsx';
+import { Card } from '#src/components/ui/card.tsx';
+import { TextField } from '#src/components/ui/text-field.tsx';
+import { Button, buttonClasses } from '#src/components/ui/button.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { acceptInvite, acceptInviteWithAccount, useInvitePreview } from '#src/features/team/api/invites.ts';
+import { useMe, meQueries } from '#src/features/auth/api/get-me.ts';
+import { signInWithPassword } from '#src/features/auth/api/sign-in.ts';
+import { useFieldErrors } from '#src/lib/use-field-errors.ts';
 
 const roleWords = { owner: 'an owner', staff: 'a team member' } as const;
 const closed = {
@@ -50,7 +50,13 @@ export function InvitePage() {
   let body;
   if (preview.isPending || me.isPending) body = <p className="text-graphite-500">Opening the invitation…</p>;
   else if (preview.error)
-    body = <Notice tone="error">{preview.error instanceof AppError && preview.error.code === 'NOT_FOUND' ? preview.error.message : 'The invitation could not be opened. Please try again.'}</Notice>;
+    body = (
+      <Notice tone="error">
+        {preview.error instanceof AppError && preview.error.code === 'NOT_FOUND'
+          ? preview.error.message
+          : 'The invitation could not be opened. Please try again.'}
+      </Notice>
+    );
   else {
     const invite = preview.data;
     const user = me.data?.user;
@@ -73,7 +79,9 @@ export function InvitePage() {
       body = (
         <>
           {intro}
-          <Notice tone="caution">You are signed in as {user.email}. Sign out and sign in as {invite.email} to accept.</Notice>
+          <Notice tone="caution">
+            You are signed in as {user.email}. Sign out and sign in as {invite.email} to accept.
+          </Notice>
         </>
       );
     else if (invite.hasAccount)
@@ -92,7 +100,14 @@ export function InvitePage() {
           <form onSubmit={onCreateAccount} className="flex flex-col gap-4" noValidate>
             <p className="text-sm text-graphite-600">Create your account to join.</p>
             <TextField label="Your name" name="name" autoComplete="name" error={form.errors.name} />
-            <TextField label="Choose a password" name="password" type="password" autoComplete="new-password" hint="At least 10 characters." error={form.errors.password} />
+            <TextField
+              label="Choose a password"
+              name="password"
+              type="password"
+              autoComplete="new-password"
+              hint="At least 10 characters."
+              error={form.errors.password}
+            />
             <Button type="submit" busy={form.busy}>
               Create my account and join
             </Button>

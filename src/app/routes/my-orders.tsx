@@ -1,11 +1,11 @@
 import { Link } from 'react-router-dom';
 import { useQuery } from '@tanstack/react-query';
-import { ORDER_STATUS_LABELS } from '../../../shared/orders/stages.ts';
-import { myOrdersSchema } from '../../../shared/schemas/checkout.ts';
-import { SiteLayout } from '../../components/layouts/site-layout.tsx';
-import { Card } from '../../components/ui/card.tsx';
-import { Notice } from '../../components/ui/notice.tsx';
-import { apiFetch } from '../../lib/api-client.ts';
+import { ORDER_STATUS_LABELS } from '#shared/orders/stages.ts';
+import { myOrdersSchema } from '#shared/schemas/checkout.ts';
+import { SiteLayout } from '#src/app/layouts/site-layout.tsx';
+import { Card } from '#src/components/ui/card.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { apiFetch } from '#src/lib/api-client.ts';
 import { RequireSignIn } from './workspace/require-sign-in.tsx';
 
 /** Every order placed with the signed-in person's address, at any studio. */
@@ -20,13 +20,20 @@ export function MyOrdersPage() {
 }
 
 function MyOrders() {
-  const orders = useQuery({ queryKey: ['me', 'orders'], queryFn: ({ signal }) => apiFetch('/api/me/orders', { schema: myOrdersSchema, signal }) });
+  const orders = useQuery({
+    queryKey: ['me', 'orders'],
+    queryFn: ({ signal }) => apiFetch('/api/me/orders', { schema: myOrdersSchema, signal }),
+  });
   return (
     <div className="mx-auto flex max-w-3xl flex-col gap-6 px-6 py-10">
       <h1 className="text-3xl font-extrabold">My orders</h1>
       {orders.isPending && <p className="text-graphite-500">Loading…</p>}
       {orders.error && <Notice tone="error">{orders.error.message}</Notice>}
-      {orders.data && !orders.data.confirmed && <Notice tone="caution">Confirm your e-mail address first: orders are found by it. Sign in with an e-mailed link to confirm it.</Notice>}
+      {orders.data && !orders.data.confirmed && (
+        <Notice tone="caution">
+          Confirm your e-mail address first: orders are found by it. Sign in with an e-mailed link to confirm it.
+        </Notice>
+      )}
       {orders.data?.confirmed && orders.data.orders.length === 0 && <p className="text-graphite-600">No orders with this address yet.</p>}
       <ul className="flex flex-col gap-3">
         {orders.data?.orders.map((o) => (

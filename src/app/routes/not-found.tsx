@@ -1,6 +1,6 @@
 import { Link } from 'react-router-dom';
-import { SiteLayout } from '../../components/layouts/site-layout.tsx';
-import { buttonClasses } from '../../components/ui/button.tsx';
+import { SiteLayout } from '#src/app/layouts/site-layout.tsx';
+import { buttonClasses } from '#src/components/ui/button.tsx';
 
 export function NotFoundPage() {
   return (

@@ -1,18 +1,18 @@
 import { useState, type FormEvent } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
-import { openStudioInputSchema } from '../../../shared/schemas/accounts.ts';
-import { studioSlugSchema } from '../../../shared/studio.ts';
-import { SiteLayout } from '../../components/layouts/site-layout.tsx';
-import { Card } from '../../components/ui/card.tsx';
-import { TextField } from '../../components/ui/text-field.tsx';
-import { Button } from '../../components/ui/button.tsx';
-import { Notice } from '../../components/ui/notice.tsx';
-import { openStudio, useSlugAvailability } from '../../features/accounts/api/open-studio.ts';
-import { signInWithPassword } from '../../features/auth/api/sign-in.ts';
-import { meQueries } from '../../features/auth/api/get-me.ts';
-import { useFieldErrors } from '../../lib/use-field-errors.ts';
-import { useDebounced } from '../../lib/use-debounced.ts';
+import { openStudioInputSchema } from '#shared/schemas/accounts.ts';
+import { studioSlugSchema } from '#shared/studio.ts';
+import { SiteLayout } from '#src/app/layouts/site-layout.tsx';
+import { Card } from '#src/components/ui/card.tsx';
+import { TextField } from '#src/components/ui/text-field.tsx';
+import { Button } from '#src/components/ui/button.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { openStudio, useSlugAvailability } from '#src/features/accounts/api/open-studio.ts';
+import { signInWithPassword } from '#src/features/auth/api/sign-in.ts';
+import { meQueries } from '#src/features/auth/api/get-me.ts';
+import { useFieldErrors } from '#src/lib/use-field-errors.ts';
+import { useDebounced } from '#src/lib/use-debounced.ts';
 
 /** "my Studio Name" → "my-studio-name": a suggestion the owner may change. */
 const suggestSlug = (name: string) =>
@@ -36,8 +36,15 @@ export function OpenStudioPage() {
   const slugFormat = shownSlug ? studioSlugSchema.safeParse(shownSlug) : undefined;
   const slugMessage =
     form.errors.slug ??
-    (slugFormat && !slugFormat.success ? slugFormat.error.issues[0]!.message : availability.data && !availability.data.available ? availability.data.reason : undefined);
-  const slugHint = availability.data?.available && availability.data.slug === shownSlug ? `Available: your storefront will be at /s/${shownSlug}` : 'Your storefront’s address.';
+    (slugFormat && !slugFormat.success
+      ? slugFormat.error.issues[0]!.message
+      : availability.data && !availability.data.available
+        ? availability.data.reason
+        : undefined);
+  const slugHint =
+    availability.data?.available && availability.data.slug === shownSlug
+      ? `Available: your storefront will be at /s/${shownSlug}`
+      : 'Your storefront’s address.';
 
   async function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
@@ -60,7 +67,14 @@ export function OpenStudioPage() {
         <Card>
           <form onSubmit={onSubmit} className="flex flex-col gap-4" noValidate>
             {form.formError && <Notice tone="error">{form.formError}</Notice>}
-            <TextField label="Studio name" name="studioName" value={studioName} onChange={(e) => setStudioName(e.target.value)} error={form.errors.studioName} autoComplete="organization" />
+            <TextField
+              label="Studio name"
+              name="studioName"
+              value={studioName}
+              onChange={(e) => setStudioName(e.target.value)}
+              error={form.errors.studioName}
+              autoComplete="organization"
+            />
             <TextField
               label="Storefront address"
               name="slug"
@@ -74,7 +88,14 @@ export function OpenStudioPage() {
             />
             <TextField label="Your name" name="ownerName" autoComplete="name" error={form.errors.ownerName} />
             <TextField label="Your e-mail address" name="email" type="email" autoComplete="email" error={form.errors.email} />
-            <TextField label="Password" name="password" type="password" autoComplete="new-password" hint="At least 10 characters." error={form.errors.password} />
+            <TextField
+              label="Password"
+              name="password"
+              type="password"
+              autoComplete="new-password"
+              hint="At least 10 characters."
+              error={form.errors.password}
+            />
             <Button type="submit" busy={form.busy} className="mt-2">
               Open the studio
             </Button>

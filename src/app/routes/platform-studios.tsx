@@ -1,11 +1,11 @@
 import { Navigate } from 'react-router-dom';
-import { SiteLayout } from '../../components/layouts/site-layout.tsx';
-import { Table, TBody, TD, TH, THActions, THead, TR } from '../../components/ui/table.tsx';
-import { Button } from '../../components/ui/button.tsx';
-import { Notice } from '../../components/ui/notice.tsx';
-import { useToast } from '../../components/ui/toast.tsx';
-import { useMe } from '../../features/auth/api/get-me.ts';
-import { usePlatformStudios, useSetStudioStatus } from '../../features/platform/api/studios.ts';
+import { SiteLayout } from '#src/app/layouts/site-layout.tsx';
+import { Table, TBody, TD, TH, THActions, THead, TR } from '#src/components/ui/table.tsx';
+import { Button } from '#src/components/ui/button.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { useToast } from '#src/components/ui/toast.tsx';
+import { useMe } from '#src/features/auth/api/get-me.ts';
+import { usePlatformStudios, useSetStudioStatus } from '#src/features/platform/api/studios.ts';
 import { RequireSignIn } from './workspace/require-sign-in.tsx';
 
 /** Platform admins: every studio with its team size; suspend and resume. */
@@ -59,7 +59,10 @@ function PlatformStudios() {
                     onClick={() =>
                       setStatus.mutate(
                         { slug: s.slug, action: s.status === 'active' ? 'suspend' : 'resume' },
-                        { onError: (e) => toast.show(e.message, 'error'), onSuccess: () => toast.show(`${s.name} is ${s.status === 'active' ? 'suspended' : 'open again'}.`, 'success') },
+                        {
+                          onError: (e) => toast.show(e.message, 'error'),
+                          onSuccess: () => toast.show(`${s.name} is ${s.status === 'active' ? 'suspended' : 'open again'}.`, 'success'),
+                        },
                       )
                     }
                   >

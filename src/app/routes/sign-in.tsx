@@ -2,15 +2,15 @@ import { useState, type FormEvent } from 'react';
 import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { emailSchema } from '../../../shared/schemas/accounts.ts';
-import { SiteLayout } from '../../components/layouts/site-layout.tsx';
-import { Card } from '../../components/ui/card.tsx';
-import { TextField } from '../../components/ui/text-field.tsx';
-import { Button } from '../../components/ui/button.tsx';
-import { Notice } from '../../components/ui/notice.tsx';
-import { getMe, meQueries } from '../../features/auth/api/get-me.ts';
-import { requestSignInLink, signInWithPassword } from '../../features/auth/api/sign-in.ts';
-import { useFieldErrors } from '../../lib/use-field-errors.ts';
+import { emailSchema } from '#shared/schemas/accounts.ts';
+import { SiteLayout } from '#src/app/layouts/site-layout.tsx';
+import { Card } from '#src/components/ui/card.tsx';
+import { TextField } from '#src/components/ui/text-field.tsx';
+import { Button } from '#src/components/ui/button.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { getMe, meQueries } from '#src/features/auth/api/get-me.ts';
+import { requestSignInLink, signInWithPassword } from '#src/features/auth/api/sign-in.ts';
+import { useFieldErrors } from '#src/lib/use-field-errors.ts';
 
 /** Only same-site paths are followed after sign-in, so a link cannot send people elsewhere. */
 export function safeNext(next: string | null): string | undefined {
@@ -71,7 +71,11 @@ export function SignInPage() {
           </div>
         )}
         <Card>
-          <div role="tablist" aria-label="How to sign in" className="mb-5 grid grid-cols-2 gap-1 rounded-lg bg-birch-100 p-1 text-sm font-semibold">
+          <div
+            role="tablist"
+            aria-label="How to sign in"
+            className="mb-5 grid grid-cols-2 gap-1 rounded-lg bg-birch-100 p-1 text-sm font-semibold"
+          >
             {(['password', 'link'] as const).map((m) => (
               <button
                 key={m}
@@ -120,8 +124,14 @@ export function LinkSentPage() {
         <h1 className="mb-4 text-3xl font-extrabold">Check your inbox</h1>
         <Card>
           <p className="text-graphite-700">
-            We sent a sign-in link{params.get('to') ? <> to <strong>{params.get('to')}</strong></> : null}. Open it on this device to sign in. It works once and for
-            30 minutes.
+            We sent a sign-in link
+            {params.get('to') ? (
+              <>
+                {' '}
+                to <strong>{params.get('to')}</strong>
+              </>
+            ) : null}
+            . Open it on this device to sign in. It works once and for 30 minutes.
           </p>
           <p className="mt-4 text-sm text-graphite-500">
             Nothing arrived? Check the spam folder, or{' '}

@@ -1,5 +1,5 @@
 import type { ButtonHTMLAttributes } from 'react';
-import { cx } from '../../lib/cx.ts';
+import { cx } from '#src/lib/cx.ts';
 
 const variants = {
   primary: 'bg-accent text-white hover:brightness-110 active:brightness-95 shadow-sm',
@@ -21,7 +21,16 @@ export type ButtonProps = ButtonHTMLAttributes<HTMLButtonElement> & {
 };
 
 /** A button; `busy` disables it and says so to screen readers while work is under way. */
-export function Button({ variant = 'primary', size = 'md', busy = false, className, children, disabled, type = 'button', ...rest }: ButtonProps) {
+export function Button({
+  variant = 'primary',
+  size = 'md',
+  busy = false,
+  className,
+  children,
+  disabled,
+  type = 'button',
+  ...rest
+}: ButtonProps) {
   return (
     <button
       type={type}

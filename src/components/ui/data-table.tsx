@@ -18,7 +18,7 @@ import {
   type RowData,
   type SortingState,
 } from '@tanstack/react-table';
-import { cx } from '../../lib/cx.ts';
+import { cx } from '#src/lib/cx.ts';
 import { controlClasses } from './field.tsx';
 
 /**
@@ -57,7 +57,16 @@ type DataTableProps<T extends RowData> = {
   caption: string;
 };
 
-export function DataTable<T extends RowData>({ data, columns, getRowId, searchLabel, filters = [], initialSorting = [], empty, caption }: DataTableProps<T>) {
+export function DataTable<T extends RowData>({
+  data,
+  columns,
+  getRowId,
+  searchLabel,
+  filters = [],
+  initialSorting = [],
+  empty,
+  caption,
+}: DataTableProps<T>) {
   const [sorting, setSorting] = useState<SortingState>(initialSorting);
   const [columnFilters, setColumnFilters] = useState<ColumnFiltersState>([]);
   const [globalFilter, setGlobalFilter] = useState('');
@@ -84,7 +93,13 @@ export function DataTable<T extends RowData>({ data, columns, getRowId, searchLa
           <label htmlFor={`${id}-search`} className="text-sm font-semibold text-graphite-800">
             {searchLabel}
           </label>
-          <input id={`${id}-search`} type="search" value={globalFilter} onChange={(e) => setGlobalFilter(e.target.value)} className={cx(controlClasses(), 'h-10')} />
+          <input
+            id={`${id}-search`}
+            type="search"
+            value={globalFilter}
+            onChange={(e) => setGlobalFilter(e.target.value)}
+            className={cx(controlClasses(), 'h-10')}
+          />
         </div>
         {filters.map((filter) => (
           <div key={filter.columnId} className="flex flex-col gap-1.5">
@@ -125,7 +140,11 @@ export function DataTable<T extends RowData>({ data, columns, getRowId, searchLa
                       className={cx('px-4 py-2.5 font-bold', header.column.id === 'actions' && 'text-right')}
                     >
                       {canSort ? (
-                        <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 uppercase tracking-wide hover:text-graphite-900">
+                        <button
+                          type="button"
+                          onClick={header.column.getToggleSortingHandler()}
+                          className="inline-flex items-center gap-1 uppercase tracking-wide hover:text-graphite-900"
+                        >
                           {content}
                           <span aria-hidden className="text-[0.7rem]">
                             {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '↕'}
@@ -144,7 +163,10 @@ export function DataTable<T extends RowData>({ data, columns, getRowId, searchLa
             {rows.map((row) => (
               <tr key={row.id} className="hover:bg-birch-50">
                 {row.getAllCells().map((cell) => (
-                  <td key={cell.id} className={cx('px-4 py-3 align-middle text-graphite-800', cell.column.id === 'actions' && 'text-right')}>
+                  <td
+                    key={cell.id}
+                    className={cx('px-4 py-3 align-middle text-graphite-800', cell.column.id === 'actions' && 'text-right')}
+                  >
                     <table.FlexRender cell={cell} />
                   </td>
                 ))}
@@ -152,7 +174,11 @@ export function DataTable<T extends RowData>({ data, columns, getRowId, searchLa
             ))}
           </tbody>
         </table>
-        {rows.length === 0 && <p className="px-4 py-6 text-center text-sm text-graphite-500">{data.length === 0 ? empty : 'Nothing matches the search and filters.'}</p>}
+        {rows.length === 0 && (
+          <p className="px-4 py-6 text-center text-sm text-graphite-500">
+            {data.length === 0 ? empty : 'Nothing matches the search and filters.'}
+          </p>
+        )}
       </div>
       <p className="text-xs text-graphite-500" aria-live="polite">
         {rows.length === data.length ? `${data.length} in all` : `${rows.length} of ${data.length} shown`}

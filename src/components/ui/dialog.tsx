@@ -1,5 +1,5 @@
 import { useEffect, useId, useRef, type FormEvent, type ReactNode } from 'react';
-import { cx } from '../../lib/cx.ts';
+import { cx } from '#src/lib/cx.ts';
 import { Button } from './button.tsx';
 
 type DialogProps = {
@@ -40,7 +40,12 @@ export function Dialog({ open, title, children, onClose, confirm, onSubmit, wide
           {confirm ? 'Cancel' : 'Close'}
         </Button>
         {confirm && (
-          <Button type={onSubmit ? 'submit' : 'button'} variant={confirm.danger ? 'danger' : 'primary'} busy={confirm.busy} onClick={onSubmit ? undefined : confirm.onConfirm}>
+          <Button
+            type={onSubmit ? 'submit' : 'button'}
+            variant={confirm.danger ? 'danger' : 'primary'}
+            busy={confirm.busy}
+            onClick={onSubmit ? undefined : confirm.onConfirm}
+          >
             {confirm.label}
           </Button>
         )}

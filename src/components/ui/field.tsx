@@ -1,7 +1,14 @@
 import { useId, type ReactNode, type SelectHTMLAttributes, type TextareaHTMLAttributes } from 'react';
-import { cx } from '../../lib/cx.ts';
+import { cx } from '#src/lib/cx.ts';
 
-type FieldFrameProps = { id?: string; label: string; hint?: string; error?: string; className?: string; children: (ids: { inputId: string; describedBy?: string; invalid?: true }) => ReactNode };
+type FieldFrameProps = {
+  id?: string;
+  label: string;
+  hint?: string;
+  error?: string;
+  className?: string;
+  children: (ids: { inputId: string; describedBy?: string; invalid?: true }) => ReactNode;
+};
 
 /**
  * A label, an optional hint and a field-level error, tied to the control for screen readers.
@@ -69,7 +76,16 @@ export type TextAreaFieldProps = TextareaHTMLAttributes<HTMLTextAreaElement> & {
 export function TextAreaField({ label, hint, error, className, rows = 3, ...rest }: TextAreaFieldProps) {
   return (
     <FieldFrame label={label} hint={hint} error={error} className={className}>
-      {({ inputId, describedBy, invalid }) => <textarea id={inputId} rows={rows} aria-invalid={invalid} aria-describedby={describedBy} className={cx(controlClasses(error), 'py-2')} {...rest} />}
+      {({ inputId, describedBy, invalid }) => (
+        <textarea
+          id={inputId}
+          rows={rows}
+          aria-invalid={invalid}
+          aria-describedby={describedBy}
+          className={cx(controlClasses(error), 'py-2')}
+          {...rest}
+        />
+      )}
     </FieldFrame>
   );
 }

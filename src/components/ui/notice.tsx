@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import { cx } from '../../lib/cx.ts';
+import { cx } from '#src/lib/cx.ts';
 
 const tones = {
   info: 'border-graphite-200 bg-white text-graphite-800',

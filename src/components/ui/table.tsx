@@ -1,5 +1,5 @@
 import type { HTMLAttributes, TableHTMLAttributes, TdHTMLAttributes, ThHTMLAttributes } from 'react';
-import { cx } from '../../lib/cx.ts';
+import { cx } from '#src/lib/cx.ts';
 
 /** Table parts with the design system's spacing and rules; use real <table> semantics. */
 export function Table({ className, ...rest }: TableHTMLAttributes<HTMLTableElement>) {

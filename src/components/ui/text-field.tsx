@@ -1,5 +1,5 @@
 import type { InputHTMLAttributes } from 'react';
-import { cx } from '../../lib/cx.ts';
+import { cx } from '#src/lib/cx.ts';
 import { controlClasses, FieldFrame } from './field.tsx';
 
 export type TextFieldProps = InputHTMLAttributes<HTMLInputElement> & {
@@ -15,7 +15,15 @@ export function TextField({ label, hint, error, className, id, suffix, ...rest }
   return (
     <FieldFrame id={id} label={label} hint={hint} error={error} className={className}>
       {({ inputId, describedBy, invalid }) => {
-        const input = <input id={inputId} aria-invalid={invalid} aria-describedby={describedBy} className={cx(controlClasses(error), 'h-10 w-full min-w-0')} {...rest} />;
+        const input = (
+          <input
+            id={inputId}
+            aria-invalid={invalid}
+            aria-describedby={describedBy}
+            className={cx(controlClasses(error), 'h-10 w-full min-w-0')}
+            {...rest}
+          />
+        );
         return suffix ? (
           <div className="flex items-center gap-2">
             {input}

@@ -1,5 +1,5 @@
 import { createContext, useCallback, useContext, useMemo, useState, type ReactNode } from 'react';
-import { cx } from '../../lib/cx.ts';
+import { cx } from '#src/lib/cx.ts';
 
 type Tone = 'info' | 'success' | 'error';
 type Toast = { id: number; tone: Tone; message: string };
@@ -30,7 +30,14 @@ export function ToastProvider({ children }: { children: ReactNode }) {
       {children}
       <div aria-live="polite" className="pointer-events-none fixed bottom-4 right-4 z-50 flex w-80 flex-col gap-2">
         {toasts.map((toast) => (
-          <div key={toast.id} role={toast.tone === 'error' ? 'alert' : 'status'} className={cx('pointer-events-auto flex items-start gap-3 rounded-lg border px-4 py-3 text-sm shadow-md', toneClasses[toast.tone])}>
+          <div
+            key={toast.id}
+            role={toast.tone === 'error' ? 'alert' : 'status'}
+            className={cx(
+              'pointer-events-auto flex items-start gap-3 rounded-lg border px-4 py-3 text-sm shadow-md',
+              toneClasses[toast.tone],
+            )}
+          >
             <p className="flex-1">{toast.message}</p>
             <button type="button" onClick={() => dismiss(toast.id)} className="font-bold opacity-60 hover:opacity-100" aria-label="Dismiss">
               ×

@@ -1,6 +1,6 @@
 import { useSyncExternalStore } from 'react';
 import { z } from 'zod';
-import { cartItemSchema } from '../../../shared/schemas/checkout.ts';
+import { cartItemSchema } from '#shared/schemas/checkout.ts';
 
 /**
  * A buyer's cart for one studio, kept in the browser (it survives a reload and needs no
@@ -25,7 +25,7 @@ function read(slug: string): CartLine[] {
   const raw = localStorage.getItem(key(slug));
   const cached = cache.get(slug);
   if (cached && cached.raw === raw) return cached.lines;
-  let lines: CartLine[] = [];
+  let lines: CartLine[];
   try {
     const parsed = z.array(cartLineSchema).safeParse(raw ? JSON.parse(raw) : []);
     lines = parsed.success ? (parsed.data as CartLine[]) : [];
@@ -57,8 +57,16 @@ export function useCart(slug: string) {
     lines,
     count: lines.reduce((n, l) => n + (l.quantity ?? 1), 0),
     add: (line: Omit<CartLine, 'lineId'>) => write(slug, [...read(slug), { ...line, lineId: crypto.randomUUID() }]),
-    setQuantity: (lineId: string, quantity: number) => write(slug, read(slug).map((l) => (l.lineId === lineId ? { ...l, quantity } : l))),
-    remove: (lineId: string) => write(slug, read(slug).filter((l) => l.lineId !== lineId)),
+    setQuantity: (lineId: string, quantity: number) =>
+      write(
+        slug,
+        read(slug).map((l) => (l.lineId === lineId ? { ...l, quantity } : l)),
+      ),
+    remove: (lineId: string) =>
+      write(
+        slug,
+        read(slug).filter((l) => l.lineId !== lineId),
+      ),
     clear: () => write(slug, []),
   };
 }

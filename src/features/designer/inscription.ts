@@ -1,11 +1,17 @@
-import type { Inscription } from '../../../shared/schemas/checkout.ts';
+import type { Inscription } from '#shared/schemas/checkout.ts';
 
 /**
  * Draws an inscription on a mock-up canvas: centred near the bottom of the engraving area, in
  * the bundled Nunito, letter height a share of the area's height. The same drawing is used in
  * the designer and wherever an ordered item is shown again.
  */
-export function drawInscription(ctx: CanvasRenderingContext2D, inscription: Pick<Inscription, 'lines' | 'font' | 'size'>, size: { width: number; height: number }, colour: string, onPhoto = false): void {
+export function drawInscription(
+  ctx: CanvasRenderingContext2D,
+  inscription: Pick<Inscription, 'lines' | 'font' | 'size'>,
+  size: { width: number; height: number },
+  colour: string,
+  onPhoto = false,
+): void {
   const lines = inscription.lines.filter((l) => l.trim());
   if (!lines.length) return;
   const px = Math.round(inscription.size * size.height);

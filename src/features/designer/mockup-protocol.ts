@@ -1,10 +1,17 @@
-import type { HalftoneMethod } from '../../../shared/imaging/halftone/halftone.ts';
-import type { BlankShape } from '../../../shared/schemas/catalog.ts';
-import type { Placement } from '../../../shared/schemas/checkout.ts';
-import type { PrepSettings } from '../../../shared/schemas/prep.ts';
+import type { HalftoneMethod } from '#shared/imaging/halftone/halftone.ts';
+import type { BlankShape } from '#shared/schemas/catalog.ts';
+import type { Placement } from '#shared/schemas/checkout.ts';
+import type { PrepSettings } from '#shared/schemas/prep.ts';
 
 /** Messages between the page and the mock-up worker. */
-export type MockupLook = { shape: BlankShape; surfaceColour: string; markColour: string; tone: 'positive' | 'negative'; halftoneMethod: HalftoneMethod; linesPerInch: number };
+export type MockupLook = {
+  shape: BlankShape;
+  surfaceColour: string;
+  markColour: string;
+  tone: 'positive' | 'negative';
+  halftoneMethod: HalftoneMethod;
+  linesPerInch: number;
+};
 
 export type MockupJob = {
   id: number;
@@ -24,4 +31,5 @@ export type MockupJob = {
 };
 
 export type MockupRequest = { type: 'photo'; bitmap: ImageBitmap; previewScale: number } | { type: 'render'; job: MockupJob };
-export type MockupReply = { type: 'rendered'; id: number; image: ImageBitmap; ms: number } | { type: 'failed'; id: number; message: string };
+export type MockupReply =
+  { type: 'rendered'; id: number; image: ImageBitmap; ms: number } | { type: 'failed'; id: number; message: string };

@@ -1,9 +1,9 @@
 /// <reference lib="webworker" />
-import { renderBitmap } from '../../../shared/imaging/pipeline.ts';
-import { renderMockup } from '../../../shared/imaging/mockup.ts';
-import { insideShape } from '../../../shared/imaging/shape.ts';
-import { cutoutMask, hasCutout, maskFromAlpha } from '../../../shared/imaging/mask.ts';
-import { pipelineSettings, prepAtWidth, recipePrep } from '../../../shared/orders/prep-pipeline.ts';
+import { renderBitmap } from '#shared/imaging/pipeline.ts';
+import { renderMockup } from '#shared/imaging/mockup.ts';
+import { insideShape } from '#shared/imaging/shape.ts';
+import { cutoutMask, hasCutout, maskFromAlpha } from '#shared/imaging/mask.ts';
+import { pipelineSettings, prepAtWidth, recipePrep } from '#shared/orders/prep-pipeline.ts';
 import type { MockupJob, MockupReply, MockupRequest } from './mockup-protocol.ts';
 
 /**

@@ -1,4 +1,4 @@
-import type { Placement } from '../../../shared/schemas/checkout.ts';
+import type { Placement } from '#shared/schemas/checkout.ts';
 
 /**
  * Where the photo sits in the engraving area, as the buyer moves it. The photo is turned by
@@ -11,7 +11,14 @@ export type Framing = { centreX: number; centreY: number; zoom: number; rotation
 export const MIN_ZOOM = 1;
 export const MAX_ZOOM = 8;
 
-export const startFraming = (photo: { width: number; height: number }, mode: Framing['mode'] = 'fill'): Framing => ({ centreX: photo.width / 2, centreY: photo.height / 2, zoom: 1, rotation: 0, flip: false, mode });
+export const startFraming = (photo: { width: number; height: number }, mode: Framing['mode'] = 'fill'): Framing => ({
+  centreX: photo.width / 2,
+  centreY: photo.height / 2,
+  zoom: 1,
+  rotation: 0,
+  flip: false,
+  mode,
+});
 
 /** The window's size in photo pixels for an area of this aspect (width / height). */
 export function windowSize(photo: { width: number; height: number }, aspect: number, framing: Framing): { width: number; height: number } {
@@ -33,14 +40,23 @@ export function clampFraming(photo: { width: number; height: number }, aspect: n
   const quarterTurn = Math.abs(Math.round(framing.rotation / 90)) % 2 === 1;
   const [halfW, halfH] = quarterTurn ? [win.height / 2, win.width / 2] : [win.width / 2, win.height / 2];
   const clamp = (v: number, lo: number, hi: number) => (lo > hi ? (lo + hi) / 2 : Math.min(hi, Math.max(lo, v)));
-  return { ...next, centreX: clamp(framing.centreX, halfW, photo.width - halfW), centreY: clamp(framing.centreY, halfH, photo.height - halfH) };
+  return {
+    ...next,
+    centreX: clamp(framing.centreX, halfW, photo.width - halfW),
+    centreY: clamp(framing.centreY, halfH, photo.height - halfH),
+  };
 }
 
 export function toPlacement(photo: { width: number; height: number }, aspect: number, framing: Framing): Placement {
   const win = windowSize(photo, aspect, framing);
   const round = (v: number) => Math.round(v * 100) / 100;
   return {
-    crop: { left: round(framing.centreX - win.width / 2), top: round(framing.centreY - win.height / 2), width: round(win.width), height: round(win.height) },
+    crop: {
+      left: round(framing.centreX - win.width / 2),
+      top: round(framing.centreY - win.height / 2),
+      width: round(win.width),
+      height: round(win.height),
+    },
     rotation: ((((framing.rotation + 180) % 360) + 360) % 360) - 180,
     flipHorizontal: framing.flip,
   };

@@ -1,4 +1,5 @@
 import { useCallback, useEffect, useRef, useState } from 'react';
+import { useSteadyValue } from '#src/lib/use-steady-value.ts';
 import type { MockupJob, MockupReply, MockupRequest } from './mockup-protocol.ts';
 
 /**
@@ -12,6 +13,7 @@ export function useMockup(photo: { previewUrl: string; previewWidth: number; wid
   const [ready, setReady] = useState(false);
   const [result, setResult] = useState<{ image: ImageBitmap; ms: number }>();
   const [error, setError] = useState<string>();
+  const source = useSteadyValue(photo && { previewUrl: photo.previewUrl, previewWidth: photo.previewWidth, width: photo.width });
 
   useEffect(() => {
     const w = new Worker(new URL('./mockup.worker.ts', import.meta.url), { type: 'module' });
@@ -37,21 +39,21 @@ export function useMockup(photo: { previewUrl: string; previewWidth: number; wid
 
   useEffect(() => {
     setReady(false);
-    if (!photo) return;
+    if (!source) return;
     let cancelled = false;
     (async () => {
-      const response = await fetch(photo.previewUrl, { credentials: 'same-origin' });
+      const response = await fetch(source.previewUrl, { credentials: 'same-origin' });
       if (!response.ok) throw new Error('The photo preview could not be loaded.');
       const bitmap = await createImageBitmap(await response.blob());
       if (cancelled) return bitmap.close();
-      const message: MockupRequest = { type: 'photo', bitmap, previewScale: photo.previewWidth / photo.width };
+      const message: MockupRequest = { type: 'photo', bitmap, previewScale: source.previewWidth / source.width };
       worker.current?.postMessage(message, [bitmap]);
       setReady(true);
     })().catch((e: Error) => setError(e.message));
     return () => {
       cancelled = true;
     };
-  }, [photo?.previewUrl, photo?.previewWidth, photo?.width]); // eslint-disable-line react-hooks/exhaustive-deps
+  }, [source]);
 
   const render = useCallback((job: Omit<MockupJob, 'id'>) => {
     latest.current += 1;

@@ -1,6 +1,6 @@
-import type { OrderView } from '../../../shared/schemas/checkout.ts';
-import type { PrepSettings } from '../../../shared/schemas/prep.ts';
-import type { MockupJob, MockupLook } from '../designer/mockup-protocol.ts';
+import type { OrderView } from '#shared/schemas/checkout.ts';
+import type { PrepSettings } from '#shared/schemas/prep.ts';
+import type { MockupJob, MockupLook } from '#src/features/designer/index.ts';
 
 type Item = OrderView['items'][number];
 
@@ -11,7 +11,12 @@ type Item = OrderView['items'][number];
  */
 export function prepMockup(item: Item, prep: PrepSettings): { look: MockupLook; job: Pick<MockupJob, 'prep' | 'areaWidthMm'> } {
   return {
-    look: { ...item.look, tone: prep.negative ? 'negative' : 'positive', halftoneMethod: prep.halftoneMethod, linesPerInch: prep.linesPerInch },
+    look: {
+      ...item.look,
+      tone: prep.negative ? 'negative' : 'positive',
+      halftoneMethod: prep.halftoneMethod,
+      linesPerInch: prep.linesPerInch,
+    },
     job: { prep, areaWidthMm: item.look.areaWidthMm },
   };
 }

@@ -1,9 +1,9 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startMailFake, type MailFake } from '../../../fakes/mail/server.ts';
-import type { StoredMessage } from '../../../fakes/mail/mailbox.ts';
-import { createMailer } from '../../../server/adapters/mailer.ts';
-import { loadEnv } from '../../../server/env.ts';
-import { settle, temporaryDataDir } from '../../support/fakes.ts';
+import { startMailFake, type MailFake } from '#fakes/mail/server.ts';
+import type { StoredMessage } from '#fakes/mail/mailbox.ts';
+import { createMailer } from '#server/adapters/mailer.ts';
+import { loadEnv } from '#server/env.ts';
+import { settle, temporaryDataDir } from '#tests/support/fakes.ts';
 
 // SMTP per RFC 5321, messages per RFC 5322 / MIME (RFC 2045–2049), sent with nodemailer and
 // parsed back with mailparser.

@@ -1,10 +1,10 @@
 import { createServer, type Server } from 'node:http';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import Stripe from 'stripe';
-import { startPaymentsFake, type PaymentsFake } from '../../../fakes/payments/server.ts';
-import { createPayments } from '../../../server/adapters/payments.ts';
-import { loadEnv } from '../../../server/env.ts';
-import { eventually, settle, temporaryDataDir } from '../../support/fakes.ts';
+import { startPaymentsFake, type PaymentsFake } from '#fakes/payments/server.ts';
+import { createPayments } from '#server/adapters/payments.ts';
+import { loadEnv } from '#server/env.ts';
+import { eventually, settle, temporaryDataDir } from '#tests/support/fakes.ts';
 
 // Behaviour follows the payments API reference (docs.stripe.com/api: Checkout Sessions,
 // PaymentIntents, Refunds, Events, Errors, Idempotent requests), its webhook guide
@@ -22,9 +22,17 @@ describe('payments stand-in, through the stripe SDK', () => {
   let hookUrl: string;
   let received: Received[] = [];
   let failNext = 0;
-  const payments = () => createPayments(loadEnv({ STRIPE_API_URL: fake.url, STRIPE_SECRET_KEY: SECRET_KEY, STRIPE_WEBHOOK_SECRET: WEBHOOK_SECRET }));
+  const payments = () =>
+    createPayments(loadEnv({ STRIPE_API_URL: fake.url, STRIPE_SECRET_KEY: SECRET_KEY, STRIPE_WEBHOOK_SECRET: WEBHOOK_SECRET }));
   const start = (port = 0) =>
-    startPaymentsFake({ port, dataDir: data.dir, secretKeys: [SECRET_KEY], webhooks: [{ url: hookUrl, secret: WEBHOOK_SECRET }], retryBaseMs: 40, merchantName: 'Test studio' });
+    startPaymentsFake({
+      port,
+      dataDir: data.dir,
+      secretKeys: [SECRET_KEY],
+      webhooks: [{ url: hookUrl, secret: WEBHOOK_SECRET }],
+      retryBaseMs: 40,
+      merchantName: 'Test studio',
+    });
 
   beforeAll(async () => {
     // The app side of the webhook: verifies each delivery with constructEvent, as the app will.
@@ -38,7 +46,11 @@ describe('payments stand-in, through the stripe SDK', () => {
         }
         const payload = Buffer.concat(chunks);
         try {
-          const event = new Stripe('sk_test_unused').webhooks.constructEvent(payload, String(req.headers['stripe-signature']), WEBHOOK_SECRET);
+          const event = new Stripe('sk_test_unused').webhooks.constructEvent(
+            payload,
+            String(req.headers['stripe-signature']),
+            WEBHOOK_SECRET,
+          );
           received.push({ event, verified: true });
           res.writeHead(200).end();
         } catch {
@@ -89,7 +101,16 @@ describe('payments stand-in, through the stripe SDK', () => {
   it('creates and retrieves a Checkout Session with its line items, in minor units', async () => {
     const expiresAt = Math.floor(Date.now() / 1000) + 3600;
     const session = await createSession({ expires_at: expiresAt });
-    expect(session).toMatchObject({ object: 'checkout.session', status: 'open', payment_status: 'unpaid', amount_total: 7000, currency: 'usd', customer_email: 'buyer@example.com', metadata: { order_id: 'order-1' }, expires_at: expiresAt });
+    expect(session).toMatchObject({
+      object: 'checkout.session',
+      status: 'open',
+      payment_status: 'unpaid',
+      amount_total: 7000,
+      currency: 'usd',
+      customer_email: 'buyer@example.com',
+      metadata: { order_id: 'order-1' },
+      expires_at: expiresAt,
+    });
     expect(session.id).toMatch(/^cs_test_/);
     expect(session.url).toBe(`${fake.url}/pay/${session.id}`);
     const again = await payments().stripe.checkout.sessions.retrieve(session.id);
@@ -128,7 +149,9 @@ describe('payments stand-in, through the stripe SDK', () => {
     expect(await declined.text()).toContain('Your card was declined.');
     const poor = await pay(session, '4000 0000 0000 9995');
     expect(await poor.text()).toContain('Your card has insufficient funds.');
-    const failed = await eventually(() => (received.filter((r) => r.event.type === 'payment_intent.payment_failed').length === 2 ? received : undefined));
+    const failed = await eventually(() =>
+      received.filter((r) => r.event.type === 'payment_intent.payment_failed').length === 2 ? received : undefined,
+    );
     const decline = (failed.at(-1)!.event.data.object as Stripe.PaymentIntent).last_payment_error;
     expect(decline).toMatchObject({ code: 'card_declined', decline_code: 'insufficient_funds' });
     await new Promise((resolve) => setTimeout(resolve, 150));
@@ -161,14 +184,20 @@ describe('payments stand-in, through the stripe SDK', () => {
     const intentId = (await payments().stripe.checkout.sessions.retrieve(session.id)).payment_intent as string;
     const part = await payments().stripe.refunds.create({ payment_intent: intentId, amount: 2000 });
     expect(part).toMatchObject({ object: 'refund', amount: 2000, status: 'succeeded' });
-    const tooMuch = await payments().stripe.refunds.create({ payment_intent: intentId, amount: 6000 }).catch((e: unknown) => e);
+    const tooMuch = await payments()
+      .stripe.refunds.create({ payment_intent: intentId, amount: 6000 })
+      .catch((e: unknown) => e);
     expect(tooMuch).toBeInstanceOf(Stripe.errors.StripeInvalidRequestError);
     expect((tooMuch as Stripe.errors.StripeInvalidRequestError).code).toBe('amount_too_large');
     const rest = await payments().stripe.refunds.create({ payment_intent: intentId });
     expect(rest.amount).toBe(5000);
-    const again = await payments().stripe.refunds.create({ payment_intent: intentId }).catch((e: unknown) => e);
+    const again = await payments()
+      .stripe.refunds.create({ payment_intent: intentId })
+      .catch((e: unknown) => e);
     expect((again as Stripe.errors.StripeInvalidRequestError).code).toBe('charge_already_refunded');
-    const refunded = await eventually(() => (received.filter((r) => r.event.type === 'charge.refunded').length === 2 ? received : undefined));
+    const refunded = await eventually(() =>
+      received.filter((r) => r.event.type === 'charge.refunded').length === 2 ? received : undefined,
+    );
     expect((refunded.at(-1)!.event.data.object as Stripe.Charge).refunded).toBe(true);
   });
 
@@ -186,13 +215,20 @@ describe('payments stand-in, through the stripe SDK', () => {
     const first = await createSession({}, { idempotencyKey: 'order-7-attempt-1' });
     const retry = await createSession({}, { idempotencyKey: 'order-7-attempt-1' });
     expect(retry.id).toBe(first.id);
-    const other = await createSession({ customer_email: 'other@example.com' }, { idempotencyKey: 'order-7-attempt-1' }).catch((e: unknown) => e);
+    const other = await createSession({ customer_email: 'other@example.com' }, { idempotencyKey: 'order-7-attempt-1' }).catch(
+      (e: unknown) => e,
+    );
     expect(other).toBeInstanceOf(Stripe.errors.StripeIdempotencyError);
   });
 
   it('requires a currency and integer amounts, naming the parameter', async () => {
     const noCurrency = await createSession({
-      line_items: [{ quantity: 1, price_data: { unit_amount: 100, product_data: { name: 'x' } } as Stripe.Checkout.SessionCreateParams.LineItem.PriceData }],
+      line_items: [
+        {
+          quantity: 1,
+          price_data: { unit_amount: 100, product_data: { name: 'x' } } as Stripe.Checkout.SessionCreateParams.LineItem.PriceData,
+        },
+      ],
     }).catch((e: unknown) => e);
     expect(noCurrency).toBeInstanceOf(Stripe.errors.StripeInvalidRequestError);
     expect((noCurrency as Stripe.errors.StripeInvalidRequestError).param).toBe('line_items[0][price_data][currency]');
@@ -206,9 +242,15 @@ describe('payments stand-in, through the stripe SDK', () => {
     const session = await createSession();
     const expired = await payments().stripe.checkout.sessions.expire(session.id);
     expect(expired).toMatchObject({ status: 'expired', url: null });
-    const twice = await payments().stripe.checkout.sessions.expire(session.id).catch((e: unknown) => e);
+    const twice = await payments()
+      .stripe.checkout.sessions.expire(session.id)
+      .catch((e: unknown) => e);
     expect(twice).toBeInstanceOf(Stripe.errors.StripeInvalidRequestError);
-    await eventually(() => received.find((r) => r.event.type === 'checkout.session.expired' && (r.event.data.object as Stripe.Checkout.Session).id === session.id));
+    await eventually(() =>
+      received.find(
+        (r) => r.event.type === 'checkout.session.expired' && (r.event.data.object as Stripe.Checkout.Session).id === session.id,
+      ),
+    );
     expect((await pay(session, '4242424242424242')).status).toBe(409);
   });
 

@@ -1,10 +1,10 @@
 import { createHash } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DeleteObjectCommand, GetObjectCommand, ListObjectsV2Command, S3ServiceException } from '@aws-sdk/client-s3';
-import { startStorageFake, type StorageFake } from '../../../fakes/storage/server.ts';
-import { createStorage } from '../../../server/adapters/storage.ts';
-import { loadEnv } from '../../../server/env.ts';
-import { settle, temporaryDataDir } from '../../support/fakes.ts';
+import { startStorageFake, type StorageFake } from '#fakes/storage/server.ts';
+import { createStorage } from '#server/adapters/storage.ts';
+import { loadEnv } from '#server/env.ts';
+import { settle, temporaryDataDir } from '#tests/support/fakes.ts';
 
 // Behaviour follows the Amazon S3 API Reference (PutObject, GetObject, HeadObject, DeleteObject,
 // ListObjectsV2, PutBucketCors, "Error responses") and the S3 User Guide ("Sharing objects with
@@ -17,7 +17,13 @@ describe('object storage stand-in, through the AWS SDK', () => {
   let fake: StorageFake;
   let clockOffsetMs = 0;
   const start = (port = 0) =>
-    startStorageFake({ port, dataDir: data.dir, credentials: { [KEYS.S3_ACCESS_KEY_ID]: KEYS.S3_SECRET_ACCESS_KEY }, maxObjectBytes: 64 * 1024, now: () => Date.now() + clockOffsetMs });
+    startStorageFake({
+      port,
+      dataDir: data.dir,
+      credentials: { [KEYS.S3_ACCESS_KEY_ID]: KEYS.S3_SECRET_ACCESS_KEY },
+      maxObjectBytes: 64 * 1024,
+      now: () => Date.now() + clockOffsetMs,
+    });
   const storageWith = (overrides: Record<string, string> = {}) =>
     createStorage(loadEnv({ S3_ENDPOINT: fake.url, S3_BUCKET: 'photos', ...KEYS, ...overrides }));
 
@@ -82,7 +88,9 @@ describe('object storage stand-in, through the AWS SDK', () => {
   });
 
   it('raises the SDK error for header-signed calls with a wrong secret', async () => {
-    const error = await storageWith({ S3_SECRET_ACCESS_KEY: 'nope' }).get('studios/s1/photos/p1/original').catch((e: unknown) => e);
+    const error = await storageWith({ S3_SECRET_ACCESS_KEY: 'nope' })
+      .get('studios/s1/photos/p1/original')
+      .catch((e: unknown) => e);
     expect(error).toBeInstanceOf(S3ServiceException);
     expect((error as S3ServiceException).name).toBe('SignatureDoesNotMatch');
     expect((error as S3ServiceException).$metadata.httpStatusCode).toBe(403);
@@ -130,7 +138,9 @@ describe('object storage stand-in, through the AWS SDK', () => {
     const first = await storage.client.send(new ListObjectsV2Command({ Bucket: 'photos', Prefix: 'list/', MaxKeys: 2 }));
     expect(first.Contents?.map((o) => o.Key)).toEqual(['list/a', 'list/b']);
     expect(first.IsTruncated).toBe(true);
-    const second = await storage.client.send(new ListObjectsV2Command({ Bucket: 'photos', Prefix: 'list/', ContinuationToken: first.NextContinuationToken }));
+    const second = await storage.client.send(
+      new ListObjectsV2Command({ Bucket: 'photos', Prefix: 'list/', ContinuationToken: first.NextContinuationToken }),
+    );
     expect(second.Contents?.map((o) => o.Key)).toEqual(['list/c']);
     expect(second.IsTruncated).toBe(false);
 

@@ -1,15 +1,23 @@
 import { describe, expect, it } from 'vitest';
-import { bayerMatrix, orderedDither } from '../../../shared/imaging/halftone/ordered.ts';
-import { grayF } from '../../../shared/imaging/image.ts';
-import { LUMA_WEIGHTS, linearToSrgb, rgbaToGray, srgbToLinear } from '../../../shared/imaging/luma.ts';
-import { inchesToMm, mmToInches, outputSize } from '../../../shared/imaging/sizing.ts';
-import { effectivePpi, largestFairOffered, largestFairSize, verdictFor } from '../../../shared/imaging/photo-checks.ts';
+import { bayerMatrix, orderedDither } from '#shared/imaging/halftone/ordered.ts';
+import { grayF } from '#shared/imaging/image.ts';
+import { LUMA_WEIGHTS, linearToSrgb, rgbaToGray, srgbToLinear } from '#shared/imaging/luma.ts';
+import { inchesToMm, mmToInches, outputSize } from '#shared/imaging/sizing.ts';
+import { effectivePpi, largestFairOffered, largestFairSize, verdictFor } from '#shared/imaging/photo-checks.ts';
 
 describe('Bayer ordered dither', () => {
   // B. E. Bayer, IEEE ICC 1973; matrices as tabulated in IMAGING-REFERENCES (recursion M2n).
   it('builds the published 2×2, 4×4 and 8×8 matrices', () => {
-    expect(bayerMatrix(2)).toEqual([[0, 2], [3, 1]]);
-    expect(bayerMatrix(4)).toEqual([[0, 8, 2, 10], [12, 4, 14, 6], [3, 11, 1, 9], [15, 7, 13, 5]]);
+    expect(bayerMatrix(2)).toEqual([
+      [0, 2],
+      [3, 1],
+    ]);
+    expect(bayerMatrix(4)).toEqual([
+      [0, 8, 2, 10],
+      [12, 4, 14, 6],
+      [3, 11, 1, 9],
+      [15, 7, 13, 5],
+    ]);
     const m8 = bayerMatrix(8);
     expect(m8[0]).toEqual([0, 32, 8, 40, 2, 34, 10, 42]);
     expect(m8[1]).toEqual([48, 16, 56, 24, 50, 18, 58, 26]);
@@ -21,7 +29,10 @@ describe('Bayer ordered dither', () => {
       const cells = size * size;
       for (const v of [0, 10, 64, 127.5, 128, 200, 255]) {
         const bits = orderedDither(grayF(size * 4, size * 4, v), size).data;
-        const expected = bayerMatrix(size).flat().filter((m) => v > (255 * (m + 0.5)) / cells).length / cells;
+        const expected =
+          bayerMatrix(size)
+            .flat()
+            .filter((m) => v > (255 * (m + 0.5)) / cells).length / cells;
         expect(bits.reduce((n, b) => n + b, 0) / bits.length, `${size}×${size} at ${v}`).toBe(expected);
       }
     }
@@ -29,7 +40,8 @@ describe('Bayer ordered dither', () => {
 });
 
 describe('grayscale', () => {
-  const pixel = (r: number, g: number, b: number, mode?: Parameters<typeof rgbaToGray>[1]) => rgbaToGray({ width: 1, height: 1, data: new Uint8Array([r, g, b, 255]) }, mode).data[0]!;
+  const pixel = (r: number, g: number, b: number, mode?: Parameters<typeof rgbaToGray>[1]) =>
+    rgbaToGray({ width: 1, height: 1, data: new Uint8Array([r, g, b, 255]) }, mode).data[0]!;
 
   it('uses BT.709-6 and BT.601-7 weights on primaries and random colours', () => {
     // ITU-R BT.709-6: 0.2126 R' + 0.7152 G' + 0.0722 B'; ITU-R BT.601-7: 0.299, 0.587, 0.114.

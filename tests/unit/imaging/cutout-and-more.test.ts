@@ -1,16 +1,16 @@
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { featherMask, fullMask, paintStrokes, plainBackgroundMask } from '../../../shared/imaging/mask.ts';
-import { clusteredDot } from '../../../shared/imaging/halftone/clustered.ts';
-import { grayF, toGrayF } from '../../../shared/imaging/image.ts';
-import { renderMockup } from '../../../shared/imaging/mockup.ts';
-import { insideShape } from '../../../shared/imaging/shape.ts';
-import { estimateBurnSeconds } from '../../../shared/imaging/burn-time.ts';
-import { pixelsFor } from '../../../shared/imaging/sizing.ts';
-import { exposure, laplacianVariance } from '../../../shared/imaging/photo-checks.ts';
-import { gaussianBlur } from '../../../shared/imaging/blur.ts';
-import { renderBitmap } from '../../../shared/imaging/pipeline.ts';
-import { pillowReadGray, referencePhotoDir } from '../../support/pillow.ts';
+import { featherMask, fullMask, paintStrokes, plainBackgroundMask } from '#shared/imaging/mask.ts';
+import { clusteredDot } from '#shared/imaging/halftone/clustered.ts';
+import { grayF, toGrayF } from '#shared/imaging/image.ts';
+import { renderMockup } from '#shared/imaging/mockup.ts';
+import { insideShape } from '#shared/imaging/shape.ts';
+import { estimateBurnSeconds } from '#shared/imaging/burn-time.ts';
+import { pixelsFor } from '#shared/imaging/sizing.ts';
+import { exposure, laplacianVariance } from '#shared/imaging/photo-checks.ts';
+import { gaussianBlur } from '#shared/imaging/blur.ts';
+import { renderBitmap } from '#shared/imaging/pipeline.ts';
+import { pillowReadGray, referencePhotoDir } from '#tests/support/pillow.ts';
 
 const rgba = (width: number, height: number, at: (x: number, y: number) => [number, number, number]) => {
   const data = new Uint8ClampedArray(width * height * 4);
@@ -24,7 +24,16 @@ const rgba = (width: number, height: number, at: (x: number, y: number) => [numb
 
 describe('cut-out mask', () => {
   it('paints keep and remove strokes of the given width', () => {
-    const removed = paintStrokes(fullMask(40, 40), [{ mode: 'remove', width: 10, points: [[0, 20], [40, 20]] }]);
+    const removed = paintStrokes(fullMask(40, 40), [
+      {
+        mode: 'remove',
+        width: 10,
+        points: [
+          [0, 20],
+          [40, 20],
+        ],
+      },
+    ]);
     // A 10-pixel-wide band through the middle rows 15–24 is removed, the rest kept.
     expect(removed.data[20 * 40 + 20]).toBe(0);
     expect(removed.data[14 * 40 + 20]).toBe(1);
@@ -84,7 +93,10 @@ describe('clustered dots, mock-up, burn time, photo checks', () => {
     // placement rounds to 100 pixel rows; counting 101 would add a row that never burns.
     const rows = pixelsFor(25.5, 100);
     expect(rows).toBe(100);
-    expect(estimateBurnSeconds({ widthMm: 100, heightMm: 25.5, linesPerInch: 100, speedMmPerSecond: 500, passes: 1 })).toBeCloseTo(rows * 0.27, 6);
+    expect(estimateBurnSeconds({ widthMm: 100, heightMm: 25.5, linesPerInch: 100, speedMmPerSecond: 500, passes: 1 })).toBeCloseTo(
+      rows * 0.27,
+      6,
+    );
   });
 
   it('scores a blurred photo as less sharp and reports clipped tones (scikit-image "camera", CC0)', () => {
@@ -105,7 +117,19 @@ describe('clustered dots, mock-up, burn time, photo checks', () => {
     const bitmap = renderBitmap(photo, {
       negative: true,
       sharpen: { amount: 200, radius: 1.5, threshold: 2 },
-      cutout: { strokes: [{ mode: 'remove', width: 100, points: [[0, 0], [511, 0]] }], featherRadius: 6 },
+      cutout: {
+        strokes: [
+          {
+            mode: 'remove',
+            width: 100,
+            points: [
+              [0, 0],
+              [511, 0],
+            ],
+          },
+        ],
+        featherRadius: 6,
+      },
       halftone: { method: 'jarvis-judice-ninke' },
     });
     expect([bitmap.width, bitmap.height]).toEqual([512, 512]);

@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import * as fontkit from 'fontkit';
 import { describe, expect, it } from 'vitest';
-import { burnInscription, inscriptionCoverage } from '../../../server/imaging/inscription.ts';
+import { burnInscription, inscriptionCoverage } from '#server/imaging/inscription.ts';
 
 /**
  * The inscription burned into the engrave file: laid out as the storefront draws it, in the same
@@ -43,8 +43,16 @@ describe('inscriptions in the engrave file', () => {
 
   it('puts a second line 1.2 letter sizes above the last, and burns every covered pixel', async () => {
     const [width, height] = [800, 600];
-    const one = box((await inscriptionCoverage({ lines: ['EVER'], font: 'rounded-bold', size: 0.08 }, width, height, 'rectangle'))!, width, height);
-    const two = box((await inscriptionCoverage({ lines: ['EVER', 'EVER'], font: 'rounded-bold', size: 0.08 }, width, height, 'rectangle'))!, width, height);
+    const one = box(
+      (await inscriptionCoverage({ lines: ['EVER'], font: 'rounded-bold', size: 0.08 }, width, height, 'rectangle'))!,
+      width,
+      height,
+    );
+    const two = box(
+      (await inscriptionCoverage({ lines: ['EVER', 'EVER'], font: 'rounded-bold', size: 0.08 }, width, height, 'rectangle'))!,
+      width,
+      height,
+    );
     // 0.08 × 600 = 48 px letters; the line above starts 1.2 × 48 = 57.6 px higher.
     expect(one.top - two.top).toBeGreaterThanOrEqual(57);
     expect(one.top - two.top).toBeLessThanOrEqual(58);

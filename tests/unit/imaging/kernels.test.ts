@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { DIFFUSION_KERNELS, type DiffusionKernelId } from '../../../shared/imaging/halftone/kernels.ts';
-import { errorDiffuse, errorDiffuseAnyKernel } from '../../../shared/imaging/halftone/error-diffusion.ts';
-import { grayF, type GrayF } from '../../../shared/imaging/image.ts';
+import { DIFFUSION_KERNELS, type DiffusionKernelId } from '#shared/imaging/halftone/kernels.ts';
+import { errorDiffuse, errorDiffuseAnyKernel } from '#shared/imaging/halftone/error-diffusion.ts';
+import { grayF, type GrayF } from '#shared/imaging/image.ts';
 
 /** Rows of each kernel as published, `*` the current pixel (see each source beside the kernel). */
 const PUBLISHED: Record<DiffusionKernelId, { divisor: number; rows: string[] }> = {
@@ -81,7 +81,7 @@ describe('the Jarvis–Judice–Ninke loop of its own', () => {
   // Our own check, no outside source: the faster loop must give exactly what the general one does.
   const image = grayF(301, 97);
   for (let i = 0; i < image.data.length; i++) image.data[i] = ((i % 301) / 300) * 255 * 0.7 + ((i * 7919) % 97);
-  const mask = new Uint8Array(image.data.length).map((_, i) => ((i % 301) > 40 && (i % 301) < 260 ? 1 : 0));
+  const mask = new Uint8Array(image.data.length).map((_, i) => (i % 301 > 40 && i % 301 < 260 ? 1 : 0));
   it.each([
     ['raster', undefined],
     ['serpentine', undefined],

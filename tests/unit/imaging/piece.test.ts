@@ -2,14 +2,14 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import sharp from 'sharp';
 import { describe, expect, it } from 'vitest';
-import { readPngFacts } from '../../../server/imaging/png-1bit.ts';
-import { burnPiece, writePieceMaster, type Piece } from '../../../server/imaging/piece.ts';
-import { placePhoto } from '../../../server/imaging/placement.ts';
-import { applyMask } from '../../../shared/imaging/mask.ts';
-import { prepareGray } from '../../../shared/imaging/pipeline.ts';
-import { largestFittingArea, type BlankShape } from '../../../shared/imaging/shape.ts';
-import { gradeSettings, pipelineSettings, prepAtWidth, recipePrep } from '../../../shared/orders/prep-pipeline.ts';
-import { pillowOpen, referencePhotoDir } from '../../support/pillow.ts';
+import { readPngFacts } from '#server/imaging/png-1bit.ts';
+import { burnPiece, writePieceMaster, type Piece } from '#server/imaging/piece.ts';
+import { placePhoto } from '#server/imaging/placement.ts';
+import { applyMask } from '#shared/imaging/mask.ts';
+import { prepareGray } from '#shared/imaging/pipeline.ts';
+import { largestFittingArea, type BlankShape } from '#shared/imaging/shape.ts';
+import { gradeSettings, pipelineSettings, prepAtWidth, recipePrep } from '#shared/orders/prep-pipeline.ts';
+import { pillowOpen, referencePhotoDir } from '#tests/support/pillow.ts';
 
 /**
  * The one pipeline behind every picture of a piece, checked from outside: geometry written out
@@ -47,7 +47,12 @@ describe('the blank’s shape clips every burn', () => {
     ['rectangle', wide, { widthMm: 60, heightMm: 40 }],
   ])('fires no dot outside a %s, lettering included', async (shape, placement, area) => {
     // A long inscription near the bottom edge: on a round piece its ends lie outside the circle.
-    const piece: Piece = { placement, area, shape, inscription: { lines: ['Nell and Bram, summer by the harbour'], font: 'rounded-bold', size: 0.09 } };
+    const piece: Piece = {
+      placement,
+      area,
+      shape,
+      inscription: { lines: ['Nell and Bram, summer by the harbour'], font: 'rounded-bold', size: 0.09 },
+    };
     const { bitmap } = await burnPiece(photo(), piece, slate);
     let firedOutside = 0;
     let firedInside = 0;
@@ -101,7 +106,10 @@ describe('the blank’s shape clips every burn', () => {
   });
 
   it('offers the largest area that fits: a square in a circle has side d / √2, in an ellipse the corner lies on it', () => {
-    expect(largestFittingArea('circle', { widthMm: 100, heightMm: 100 }, { widthMm: 1, heightMm: 1 })).toEqual({ widthMm: 70.7, heightMm: 70.7 });
+    expect(largestFittingArea('circle', { widthMm: 100, heightMm: 100 }, { widthMm: 1, heightMm: 1 })).toEqual({
+      widthMm: 70.7,
+      heightMm: 70.7,
+    });
     const oval = largestFittingArea('oval', { widthMm: 120, heightMm: 80 }, { widthMm: 5, heightMm: 3 });
     // (w / 120)² + (h / 80)² = 1/4 · … at the corner (w/2, h/2): ((w/2)/60)² + ((h/2)/40)² ≤ 1.
     expect((oval.widthMm / 2 / 60) ** 2 + (oval.heightMm / 2 / 40) ** 2).toBeLessThanOrEqual(1);
@@ -140,7 +148,11 @@ describe('the grayscale master', () => {
     const { data, info } = await sharp(master.png).raw().toBuffer({ resolveWithObject: true });
     const c = info.channels;
     const placed = await placePhoto(photo(), piece.placement, piece.area, 400);
-    const whole = prepareGray(placed, { ...gradeSettings(prepAtWidth(slate, 60, placed.width), 'oval'), autoLevelsClip: undefined, levels: burned.levels });
+    const whole = prepareGray(placed, {
+      ...gradeSettings(prepAtWidth(slate, 60, placed.width), 'oval'),
+      autoLevelsClip: undefined,
+      levels: burned.levels,
+    });
     let worst = 0;
     let worstAlpha = 0;
     for (let i = 0; i < placed.width * placed.height; i++) {
@@ -159,7 +171,9 @@ describe('one look from the storefront to the laser', () => {
   const boxReduce = (data: ArrayLike<number>, width: number, height: number, factor: number, stride = 1) => {
     const [w, h] = [Math.floor(width / factor), Math.floor(height / factor)];
     const out = new Float64Array(w * h);
-    for (let y = 0; y < h * factor; y++) for (let x = 0; x < w * factor; x++) out[Math.floor(y / factor) * w + Math.floor(x / factor)]! += data[(y * width + x) * stride]! / (factor * factor);
+    for (let y = 0; y < h * factor; y++)
+      for (let x = 0; x < w * factor; x++)
+        out[Math.floor(y / factor) * w + Math.floor(x / factor)]! += data[(y * width + x) * stride]! / (factor * factor);
     return out;
   };
   const meanAbsoluteDifference = (a: ArrayLike<number>, b: ArrayLike<number>, side: number) => {
@@ -202,16 +216,29 @@ describe('one look from the storefront to the laser', () => {
 });
 
 describe('quarter turns', () => {
-  it.each([-90, 90, 180])('a %i° turn of a window that covers the photo leaves no transparent pixel (odd and even sides)', async (rotation) => {
-    for (const [pw, ph] of [[640, 427], [601, 400]] as const) {
-      const bytes = await sharp({ create: { width: pw, height: ph, channels: 3, background: '#808080' } }).png().toBuffer();
-      const [w, h] = Math.abs(rotation) === 90 ? [ph, pw] : [pw, ph];
-      // At 100 lines per inch and an area of w × h hundredths of an inch, one window pixel is one output pixel.
-      const placed = await placePhoto(bytes, { crop: { left: (pw - w) / 2, top: (ph - h) / 2, width: w, height: h }, rotation }, { widthMm: (w * 25.4) / 100, heightMm: (h * 25.4) / 100 }, 100);
-      expect([placed.width, placed.height]).toEqual([w, h]);
-      let clear = 0;
-      for (let i = 3; i < placed.data.length; i += 4) clear += placed.data[i] === 255 ? 0 : 1;
-      expect(clear, `${pw} × ${ph}`).toBe(0);
-    }
-  });
+  it.each([-90, 90, 180])(
+    'a %i° turn of a window that covers the photo leaves no transparent pixel (odd and even sides)',
+    async (rotation) => {
+      for (const [pw, ph] of [
+        [640, 427],
+        [601, 400],
+      ] as const) {
+        const bytes = await sharp({ create: { width: pw, height: ph, channels: 3, background: '#808080' } })
+          .png()
+          .toBuffer();
+        const [w, h] = Math.abs(rotation) === 90 ? [ph, pw] : [pw, ph];
+        // At 100 lines per inch and an area of w × h hundredths of an inch, one window pixel is one output pixel.
+        const placed = await placePhoto(
+          bytes,
+          { crop: { left: (pw - w) / 2, top: (ph - h) / 2, width: w, height: h }, rotation },
+          { widthMm: (w * 25.4) / 100, heightMm: (h * 25.4) / 100 },
+          100,
+        );
+        expect([placed.width, placed.height]).toEqual([w, h]);
+        let clear = 0;
+        for (let i = 3; i < placed.data.length; i += 4) clear += placed.data[i] === 255 ? 0 : 1;
+        expect(clear, `${pw} × ${ph}`).toBe(0);
+      }
+    },
+  );
 });

@@ -1,9 +1,9 @@
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { floydSteinbergPillow } from '../../../shared/imaging/halftone/error-diffusion.ts';
-import { unsharpMask, applyUnsharp } from '../../../shared/imaging/unsharp.ts';
-import { toGrayF } from '../../../shared/imaging/image.ts';
-import { pillowReadGray, referencePhotoDir, runPillow, unpackBits } from '../../support/pillow.ts';
+import { floydSteinbergPillow } from '#shared/imaging/halftone/error-diffusion.ts';
+import { unsharpMask, applyUnsharp } from '#shared/imaging/unsharp.ts';
+import { toGrayF } from '#shared/imaging/image.ts';
+import { pillowReadGray, referencePhotoDir, runPillow, unpackBits } from '#tests/support/pillow.ts';
 
 // Reference: Debian's Pillow (python3-pil). Image.convert('1') is Floyd–Steinberg in raster
 // order with integer error terms, truncation toward zero, clamping and a > 128 threshold

@@ -2,13 +2,13 @@ import { join } from 'node:path';
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import sharp, { type Sharp } from 'sharp';
-import { AppError } from '../../../shared/errors.ts';
-import { encodeBitmapPng, readPngFacts } from '../../../server/imaging/png-1bit.ts';
-import { GrayAlphaPngWriter } from '../../../server/imaging/grayscale-master.ts';
-import { decodePhoto, inspectPhoto } from '../../../server/imaging/photo-decode.ts';
-import { placePhoto } from '../../../server/imaging/placement.ts';
-import { prepareGray, renderBitmap } from '../../../shared/imaging/pipeline.ts';
-import { pillowOpen, referencePhotoDir } from '../../support/pillow.ts';
+import { AppError } from '#shared/errors.ts';
+import { encodeBitmapPng, readPngFacts } from '#server/imaging/png-1bit.ts';
+import { GrayAlphaPngWriter } from '#server/imaging/grayscale-master.ts';
+import { decodePhoto, inspectPhoto } from '#server/imaging/photo-decode.ts';
+import { placePhoto } from '#server/imaging/placement.ts';
+import { renderBitmap } from '#shared/imaging/pipeline.ts';
+import { pillowOpen, referencePhotoDir } from '#tests/support/pillow.ts';
 
 describe('engrave file and grayscale master (PNG bytes)', () => {
   // PNG specification (ISO/IEC 15948:2004) §11.3.5.3: pixels per metre = round(dpi / 0.0254).
@@ -19,7 +19,7 @@ describe('engrave file and grayscale master (PNG bytes)', () => {
     [600, 23622],
     [1000, 39370],
   ])('writes a true 1-bit gray PNG at %i dpi with pHYs %i, read back by Pillow', (dpi, ppm) => {
-    const bitmap = { width: 37, height: 11, data: Uint8Array.from({ length: 37 * 11 }, (_, i) => (i * 7) % 3 === 0 ? 1 : 0) };
+    const bitmap = { width: 37, height: 11, data: Uint8Array.from({ length: 37 * 11 }, (_, i) => ((i * 7) % 3 === 0 ? 1 : 0)) };
     const png = encodeBitmapPng(bitmap, dpi);
     const facts = readPngFacts(png);
     expect(facts).toMatchObject({ width: 37, height: 11, bitDepth: 1, colourType: 0, pixelsPerMetre: ppm });
@@ -30,7 +30,8 @@ describe('engrave file and grayscale master (PNG bytes)', () => {
     // Readers round on the way back (300 dpi reads as 299.9994): compare with a tolerance.
     expect(Math.abs(read.dpi[0] - dpi)).toBeLessThan(0.01);
     const stride = Math.ceil(37 / 8);
-    for (let y = 0; y < 11; y++) for (let x = 0; x < 37; x++) expect((read.bytes[y * stride + (x >> 3)]! >> (7 - (x & 7))) & 1).toBe(bitmap.data[y * 37 + x]);
+    for (let y = 0; y < 11; y++)
+      for (let x = 0; x < 37; x++) expect((read.bytes[y * stride + (x >> 3)]! >> (7 - (x & 7))) & 1).toBe(bitmap.data[y * 37 + x]);
   });
 
   it('writes the grayscale master as 8-bit gray with alpha (transparent outside the subject) at 1000 dpi', async () => {
@@ -80,18 +81,27 @@ describe('reading buyers’ photos', () => {
   it.each([1, 2, 3, 4, 5, 6, 7, 8])('shows EXIF orientation %i upright', async (orientation) => {
     const { data, w, h } = await card();
     // Turn first, then tag and encode in a second pipeline.
-    const turned = await storedFor[orientation]!(sharp(data, { raw: { width: w, height: h, channels: 3 } })).png().toBuffer();
+    const turned = await storedFor[orientation]!(sharp(data, { raw: { width: w, height: h, channels: 3 } }))
+      .png()
+      .toBuffer();
     const jpeg = await sharp(turned).jpeg({ quality: 95 }).withMetadata({ orientation }).toBuffer();
     const upright = await decodePhoto(jpeg);
     expect([upright.width, upright.height]).toEqual([w, h]);
     expect(await inspectPhoto(jpeg)).toMatchObject({ width: w, height: h, orientation });
     let diff = 0;
-    for (let i = 0, p = 0; i < w * h; i++, p += 4) diff += Math.abs(upright.data[p]! - data[i * 3]!) + Math.abs(upright.data[p + 1]! - data[i * 3 + 1]!) + Math.abs(upright.data[p + 2]! - data[i * 3 + 2]!);
+    for (let i = 0, p = 0; i < w * h; i++, p += 4)
+      diff +=
+        Math.abs(upright.data[p]! - data[i * 3]!) +
+        Math.abs(upright.data[p + 1]! - data[i * 3 + 1]!) +
+        Math.abs(upright.data[p + 2]! - data[i * 3 + 2]!);
     expect(diff / (w * h * 3)).toBeLessThan(6);
   });
 
   const refuses = async (bytes: Buffer, code: string, message: RegExp) => {
-    const error = await inspectPhoto(bytes).then(() => undefined, (e: unknown) => e);
+    const error = await inspectPhoto(bytes).then(
+      () => undefined,
+      (e: unknown) => e,
+    );
     expect(error).toBeInstanceOf(AppError);
     expect((error as AppError).code).toBe(code);
     expect((error as AppError).message).toMatch(message);
@@ -99,7 +109,11 @@ describe('reading buyers’ photos', () => {
 
   it('refuses text, HTML and SVG renamed as photos, with a plain message', async () => {
     await refuses(Buffer.from('just some text, not a photo'), 'UNSUPPORTED_MEDIA_TYPE', /not a photo we can use/);
-    await refuses(Buffer.from('<svg xmlns="http://www.w3.org/2000/svg"><script>alert(1)</script></svg>'), 'UNSUPPORTED_MEDIA_TYPE', /JPEG, PNG, WebP/);
+    await refuses(
+      Buffer.from('<svg xmlns="http://www.w3.org/2000/svg"><script>alert(1)</script></svg>'),
+      'UNSUPPORTED_MEDIA_TYPE',
+      /JPEG, PNG, WebP/,
+    );
   });
 
   it('refuses HEIC and says what to do', async () => {
@@ -108,7 +122,9 @@ describe('reading buyers’ photos', () => {
   });
 
   it('refuses a PNG that declares 100000 × 100000 pixels before decoding it', async () => {
-    const small = await sharp({ create: { width: 8, height: 8, channels: 3, background: '#000000' } }).png().toBuffer();
+    const small = await sharp({ create: { width: 8, height: 8, channels: 3, background: '#000000' } })
+      .png()
+      .toBuffer();
     const bomb = Buffer.from(small);
     bomb.writeUInt32BE(100_000, 16);
     bomb.writeUInt32BE(100_000, 20);
@@ -119,17 +135,34 @@ describe('reading buyers’ photos', () => {
   });
 
   it('refuses a truncated JPEG as damaged and a thumbnail as too small', async () => {
-    const jpeg = await sharp({ create: { width: 200, height: 200, channels: 3, background: '#808080' } }).jpeg().toBuffer();
-    const error = await decodePhoto(jpeg.subarray(0, Math.floor(jpeg.length / 2))).then(() => undefined, (e: unknown) => e);
+    const jpeg = await sharp({ create: { width: 200, height: 200, channels: 3, background: '#808080' } })
+      .jpeg()
+      .toBuffer();
+    const error = await decodePhoto(jpeg.subarray(0, Math.floor(jpeg.length / 2))).then(
+      () => undefined,
+      (e: unknown) => e,
+    );
     expect((error as AppError).message).toMatch(/damaged/);
-    await refuses(await sharp({ create: { width: 40, height: 30, channels: 3, background: '#808080' } }).png().toBuffer(), 'BAD_REQUEST', /only 40 × 30 pixels/);
+    await refuses(
+      await sharp({ create: { width: 40, height: 30, channels: 3, background: '#808080' } })
+        .png()
+        .toBuffer(),
+      'BAD_REQUEST',
+      /only 40 × 30 pixels/,
+    );
   });
 
   it('reads CMYK JPEGs and 16-bit PNGs into sRGB', async () => {
-    const cmyk = await sharp({ create: { width: 80, height: 80, channels: 3, background: '#c03020' } }).toColourspace('cmyk').jpeg().toBuffer();
+    const cmyk = await sharp({ create: { width: 80, height: 80, channels: 3, background: '#c03020' } })
+      .toColourspace('cmyk')
+      .jpeg()
+      .toBuffer();
     const fromCmyk = await decodePhoto(cmyk);
     expect(fromCmyk.data[0]!).toBeGreaterThan(150); // still red after the round trip
-    const deep = await sharp({ create: { width: 80, height: 80, channels: 3, background: '#336699' } }).toColourspace('rgb16').png().toBuffer();
+    const deep = await sharp({ create: { width: 80, height: 80, channels: 3, background: '#336699' } })
+      .toColourspace('rgb16')
+      .png()
+      .toBuffer();
     expect(readPngFacts(deep).bitDepth).toBe(16);
     expect([...(await decodePhoto(deep)).data.slice(0, 3)]).toEqual([0x33, 0x66, 0x99]);
   });
@@ -140,7 +173,11 @@ describe('placement and the whole server pipeline', () => {
     const bytes = readFileSync(join(referencePhotoDir, 'astronaut.png'));
     const placed = await placePhoto(bytes, { crop: { left: 96, top: 0, width: 409, height: 512 } }, { widthMm: 203.2, heightMm: 254 }, 360);
     expect([placed.width, placed.height]).toEqual([2880, 3600]);
-    const bitmap = renderBitmap(placed, { negative: true, sharpen: { amount: 150, radius: 2, threshold: 2 }, halftone: { method: 'jarvis-judice-ninke' } });
+    const bitmap = renderBitmap(placed, {
+      negative: true,
+      sharpen: { amount: 150, radius: 2, threshold: 2 },
+      halftone: { method: 'jarvis-judice-ninke' },
+    });
     const png = encodeBitmapPng(bitmap, 360);
     expect(readPngFacts(png)).toMatchObject({ width: 2880, height: 3600, bitDepth: 1, colourType: 0, pixelsPerMetre: 14173 });
   });
@@ -148,7 +185,12 @@ describe('placement and the whole server pipeline', () => {
   it('leaves what the turned photo does not cover transparent, so it never burns', async () => {
     const bytes = readFileSync(join(referencePhotoDir, 'coffee.png'));
     // The whole 600 × 400 photo as the window, turned 15°: its corners fall outside the photo.
-    const placed = await placePhoto(bytes, { crop: { left: 0, top: 0, width: 600, height: 400 }, rotation: 15 }, { widthMm: 76.2, heightMm: 50.8 }, 100);
+    const placed = await placePhoto(
+      bytes,
+      { crop: { left: 0, top: 0, width: 600, height: 400 }, rotation: 15 },
+      { widthMm: 76.2, heightMm: 50.8 },
+      100,
+    );
     expect([placed.width, placed.height]).toEqual([300, 200]);
     expect(placed.data[3]).toBe(0); // top-left corner alpha
     const centre = (100 * placed.width + 150) * 4;
@@ -160,11 +202,20 @@ describe('placement and the whole server pipeline', () => {
   it('turns clockwise about the window’s centre and mirrors, as the storefront mock-up draws it', async () => {
     // A grey 200 × 200 photo with a red mark left of centre (at 40–60, 90–110).
     const photo = await sharp({ create: { width: 200, height: 200, channels: 3, background: '#808080' } })
-      .composite([{ input: await sharp({ create: { width: 20, height: 20, channels: 3, background: '#ff0000' } }).png().toBuffer(), left: 40, top: 90 }])
+      .composite([
+        {
+          input: await sharp({ create: { width: 20, height: 20, channels: 3, background: '#ff0000' } })
+            .png()
+            .toBuffer(),
+          left: 40,
+          top: 90,
+        },
+      ])
       .png()
       .toBuffer();
     const area = { widthMm: 50.8, heightMm: 50.8 }; // 200 × 200 at 100 lines per inch
-    const red = (img: { width: number; data: ArrayLike<number> }, x: number, y: number) => img.data[(y * img.width + x) * 4]! > 200 && img.data[(y * img.width + x) * 4 + 1]! < 80;
+    const red = (img: { width: number; data: ArrayLike<number> }, x: number, y: number) =>
+      img.data[(y * img.width + x) * 4]! > 200 && img.data[(y * img.width + x) * 4 + 1]! < 80;
     const window = { left: 0, top: 0, width: 200, height: 200 };
     expect(red(await placePhoto(photo, { crop: window }, area, 100), 50, 100)).toBe(true);
     // Clockwise on screen (y down): a point left of the centre goes above it.

@@ -1,9 +1,9 @@
 import { Link, useParams } from 'react-router-dom';
-import { formatSize } from '../../../../shared/units.ts';
-import { StorefrontLayout } from '../../../components/layouts/storefront-layout.tsx';
-import { Notice } from '../../../components/ui/notice.tsx';
-import { Designer } from '../../../features/designer/components/designer.tsx';
-import { useStorefrontCatalog } from '../../../features/storefront/api/get-catalog.ts';
+import { formatSize } from '#shared/units.ts';
+import { StorefrontLayout } from '#src/app/layouts/storefront-layout.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { Designer } from '#src/features/designer/components/designer.tsx';
+import { useStorefrontCatalog } from '#src/features/storefront/api/get-catalog.ts';
 
 /** One blank: what it is, its sizes and prices, and the designer to order it with a photo. */
 export function BlankPage() {
@@ -18,7 +18,11 @@ export function BlankPage() {
         if (!blank)
           return (
             <Notice tone="caution" title="This piece is not for sale">
-              It may have sold out or been withdrawn. <Link to={`/s/${studioSlug}`} className="font-semibold underline">See what {studio.name} makes</Link>.
+              It may have sold out or been withdrawn.{' '}
+              <Link to={`/s/${studioSlug}`} className="font-semibold underline">
+                See what {studio.name} makes
+              </Link>
+              .
             </Notice>
           );
         return (

@@ -3,17 +3,17 @@ import { Link, useParams } from 'react-router-dom';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import { AppError } from '../../../../shared/errors.ts';
-import { formatMoney } from '../../../../shared/money.ts';
-import { checkoutInputSchema } from '../../../../shared/schemas/checkout.ts';
-import type { PublicStudio } from '../../../../shared/studio.ts';
-import { StorefrontLayout } from '../../../components/layouts/storefront-layout.tsx';
-import { Button, buttonClasses } from '../../../components/ui/button.tsx';
-import { Card, CardTitle } from '../../../components/ui/card.tsx';
-import { Notice } from '../../../components/ui/notice.tsx';
-import { TextField } from '../../../components/ui/text-field.tsx';
-import { useCart, type CartLine } from '../../../features/cart/cart-store.ts';
-import { placeOrder, useDeliveryOptions } from '../../../features/storefront/api/checkout.ts';
+import { AppError } from '#shared/errors.ts';
+import { formatMoney } from '#shared/money.ts';
+import { checkoutInputSchema } from '#shared/schemas/checkout.ts';
+import type { PublicStudio } from '#shared/studio.ts';
+import { StorefrontLayout } from '#src/app/layouts/storefront-layout.tsx';
+import { Button, buttonClasses } from '#src/components/ui/button.tsx';
+import { Card, CardTitle } from '#src/components/ui/card.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { TextField } from '#src/components/ui/text-field.tsx';
+import { useCart, type CartLine } from '#src/features/cart/cart-store.ts';
+import { placeOrder, useDeliveryOptions } from '#src/features/storefront/api/checkout.ts';
 
 export function CartPage() {
   return <StorefrontLayout>{(studio) => <Cart studio={studio} />}</StorefrontLayout>;
@@ -21,7 +21,10 @@ export function CartPage() {
 
 const detailsSchema = checkoutInputSchema.omit({ items: true });
 type Details = z.input<typeof detailsSchema>;
-type DetailErrors = { buyer?: { email?: { message?: string }; name?: { message?: string } }; delivery?: { rateId?: { message?: string }; method?: { message?: string }; address?: Record<string, { message?: string } | undefined> } };
+type DetailErrors = {
+  buyer?: { email?: { message?: string }; name?: { message?: string } };
+  delivery?: { rateId?: { message?: string }; method?: { message?: string }; address?: Record<string, { message?: string } | undefined> };
+};
 
 function Cart({ studio }: { studio: PublicStudio }) {
   const { studioSlug = '' } = useParams();
@@ -30,7 +33,10 @@ function Cart({ studio }: { studio: PublicStudio }) {
   const [failure, setFailure] = useState<{ message: string; line?: number }>();
   const form = useForm<Details, unknown, z.output<typeof detailsSchema>>({
     resolver: zodResolver(detailsSchema),
-    defaultValues: { buyer: { email: '', name: '' }, delivery: { method: 'ship', rateId: '', address: { line1: '', line2: '', city: '', region: '', postalCode: '', country: '' } } },
+    defaultValues: {
+      buyer: { email: '', name: '' },
+      delivery: { method: 'ship', rateId: '', address: { line1: '', line2: '', city: '', region: '', postalCode: '', country: '' } },
+    },
   });
   const method = form.watch('delivery.method');
   const rateId = form.watch('delivery.rateId' as 'delivery.method') as unknown as string;
@@ -42,7 +48,9 @@ function Cart({ studio }: { studio: PublicStudio }) {
   const onSubmit = form.handleSubmit(async (details) => {
     setFailure(undefined);
     try {
-      const items = cart.lines.map(({ lineId: _l, blankName: _b, sizeLabel: _s, priceMinor: _p, thumbUrl: _t, verdict: _v, ...item }) => item);
+      const items = cart.lines.map(
+        ({ lineId: _l, blankName: _b, sizeLabel: _s, priceMinor: _p, thumbUrl: _t, verdict: _v, ...item }) => item,
+      );
       const { paymentUrl } = await placeOrder(studioSlug, { ...details, items });
       window.location.assign(paymentUrl);
     } catch (error) {
@@ -68,7 +76,14 @@ function Cart({ studio }: { studio: PublicStudio }) {
         <h1 className="text-3xl font-extrabold">Your cart</h1>
         <ul className="flex flex-col gap-3">
           {cart.lines.map((line, index) => (
-            <CartRow key={line.lineId} line={line} money={money} highlighted={failure?.line === index} onQuantity={(q) => cart.setQuantity(line.lineId, q)} onRemove={() => cart.remove(line.lineId)} />
+            <CartRow
+              key={line.lineId}
+              line={line}
+              money={money}
+              highlighted={failure?.line === index}
+              onQuantity={(q) => cart.setQuantity(line.lineId, q)}
+              onRemove={() => cart.remove(line.lineId)}
+            />
           ))}
         </ul>
       </div>
@@ -76,12 +91,22 @@ function Cart({ studio }: { studio: PublicStudio }) {
         <CardTitle>Checkout</CardTitle>
         <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
           {failure && <Notice tone="error">{failure.message}</Notice>}
-          <TextField label="E-mail address" type="email" autoComplete="email" {...form.register('buyer.email')} error={errors.buyer?.email?.message} hint="We send your receipt and the link to follow your order here." />
+          <TextField
+            label="E-mail address"
+            type="email"
+            autoComplete="email"
+            {...form.register('buyer.email')}
+            error={errors.buyer?.email?.message}
+            hint="We send your receipt and the link to follow your order here."
+          />
           <TextField label="Your name" autoComplete="name" {...form.register('buyer.name')} error={errors.buyer?.name?.message} />
           <fieldset className="flex flex-col gap-2">
             <legend className="mb-1 text-sm font-semibold text-graphite-800">Delivery</legend>
             {delivery.data?.rates.map((rate) => (
-              <label key={rate.id} className="flex items-center justify-between gap-2 rounded-lg border border-graphite-200 px-3 py-2 text-sm">
+              <label
+                key={rate.id}
+                className="flex items-center justify-between gap-2 rounded-lg border border-graphite-200 px-3 py-2 text-sm"
+              >
                 <span className="flex items-center gap-2">
                   <input
                     type="radio"
@@ -99,24 +124,63 @@ function Cart({ studio }: { studio: PublicStudio }) {
             ))}
             {delivery.data?.pickup && (
               <label className="flex items-start gap-2 rounded-lg border border-graphite-200 px-3 py-2 text-sm">
-                <input type="radio" checked={method === 'pickup'} onChange={() => form.setValue('delivery.method', 'pickup')} className="mt-1 accent-[var(--color-accent)]" />
+                <input
+                  type="radio"
+                  checked={method === 'pickup'}
+                  onChange={() => form.setValue('delivery.method', 'pickup')}
+                  className="mt-1 accent-[var(--color-accent)]"
+                />
                 <span>
                   Pick it up at the studio (free)
                   <span className="block text-xs text-graphite-500">{delivery.data.pickup.note}</span>
                 </span>
               </label>
             )}
-            {(errors.delivery?.rateId?.message ?? errors.delivery?.method?.message) && <p className="text-xs font-semibold text-rust-600">{errors.delivery?.rateId?.message ?? errors.delivery?.method?.message}</p>}
+            {(errors.delivery?.rateId?.message ?? errors.delivery?.method?.message) && (
+              <p className="text-xs font-semibold text-rust-600">{errors.delivery?.rateId?.message ?? errors.delivery?.method?.message}</p>
+            )}
           </fieldset>
           {method === 'ship' && (
             <fieldset className="grid gap-3 sm:grid-cols-2">
               <legend className="mb-1 text-sm font-semibold text-graphite-800">Shipping address</legend>
-              <TextField label="Street and number" autoComplete="address-line1" {...form.register('delivery.address.line1' as 'delivery.method')} error={errors.delivery?.address?.line1?.message} className="sm:col-span-2" />
-              <TextField label="Flat, building (optional)" autoComplete="address-line2" {...form.register('delivery.address.line2' as 'delivery.method')} className="sm:col-span-2" />
-              <TextField label="Town or city" autoComplete="address-level2" {...form.register('delivery.address.city' as 'delivery.method')} error={errors.delivery?.address?.city?.message} />
-              <TextField label="County, state (optional)" autoComplete="address-level1" {...form.register('delivery.address.region' as 'delivery.method')} />
-              <TextField label="Postcode" autoComplete="postal-code" {...form.register('delivery.address.postalCode' as 'delivery.method')} error={errors.delivery?.address?.postalCode?.message} />
-              <TextField label="Country code" autoComplete="country" maxLength={2} placeholder="US" {...form.register('delivery.address.country' as 'delivery.method')} error={errors.delivery?.address?.country?.message} />
+              <TextField
+                label="Street and number"
+                autoComplete="address-line1"
+                {...form.register('delivery.address.line1' as 'delivery.method')}
+                error={errors.delivery?.address?.line1?.message}
+                className="sm:col-span-2"
+              />
+              <TextField
+                label="Flat, building (optional)"
+                autoComplete="address-line2"
+                {...form.register('delivery.address.line2' as 'delivery.method')}
+                className="sm:col-span-2"
+              />
+              <TextField
+                label="Town or city"
+                autoComplete="address-level2"
+                {...form.register('delivery.address.city' as 'delivery.method')}
+                error={errors.delivery?.address?.city?.message}
+              />
+              <TextField
+                label="County, state (optional)"
+                autoComplete="address-level1"
+                {...form.register('delivery.address.region' as 'delivery.method')}
+              />
+              <TextField
+                label="Postcode"
+                autoComplete="postal-code"
+                {...form.register('delivery.address.postalCode' as 'delivery.method')}
+                error={errors.delivery?.address?.postalCode?.message}
+              />
+              <TextField
+                label="Country code"
+                autoComplete="country"
+                maxLength={2}
+                placeholder="US"
+                {...form.register('delivery.address.country' as 'delivery.method')}
+                error={errors.delivery?.address?.country?.message}
+              />
             </fieldset>
           )}
           <dl className="grid grid-cols-[1fr_auto] gap-y-1 border-t border-graphite-100 pt-3 text-sm">
@@ -137,7 +201,19 @@ function Cart({ studio }: { studio: PublicStudio }) {
   );
 }
 
-function CartRow({ line, money, highlighted, onQuantity, onRemove }: { line: CartLine; money: (minor: number) => string; highlighted: boolean; onQuantity(q: number): void; onRemove(): void }) {
+function CartRow({
+  line,
+  money,
+  highlighted,
+  onQuantity,
+  onRemove,
+}: {
+  line: CartLine;
+  money: (minor: number) => string;
+  highlighted: boolean;
+  onQuantity(q: number): void;
+  onRemove(): void;
+}) {
   const quantity = line.quantity ?? 1;
   return (
     <li className={`flex items-center gap-4 rounded-card border bg-white p-4 ${highlighted ? 'border-rust-600' : 'border-graphite-100'}`}>
@@ -152,7 +228,14 @@ function CartRow({ line, money, highlighted, onQuantity, onRemove }: { line: Car
       </div>
       <label className="flex flex-col text-xs font-semibold">
         Quantity
-        <input type="number" min={1} max={20} value={quantity} onChange={(e) => onQuantity(Math.min(20, Math.max(1, Number(e.target.value) || 1)))} className="h-9 w-16 rounded-lg border border-graphite-200 px-2 text-sm font-normal" />
+        <input
+          type="number"
+          min={1}
+          max={20}
+          value={quantity}
+          onChange={(e) => onQuantity(Math.min(20, Math.max(1, Number(e.target.value) || 1)))}
+          className="h-9 w-16 rounded-lg border border-graphite-200 px-2 text-sm font-normal"
+        />
       </label>
       <p className="w-24 text-right font-bold">{money(line.priceMinor * quantity)}</p>
       <Button size="sm" variant="quiet" onClick={onRemove} aria-label={`Remove ${line.blankName}, ${line.sizeLabel}`}>

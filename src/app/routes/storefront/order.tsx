@@ -1,16 +1,16 @@
-import { handoverLine } from '../../../features/orders/handover-line.ts';
+import { handoverLine } from '#src/features/orders/handover-line.ts';
 import { useEffect } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
-import { ITEM_STAGE_LABELS, ORDER_STATUS_LABELS } from '../../../../shared/orders/stages.ts';
-import { AppError } from '../../../../shared/errors.ts';
-import { StorefrontLayout } from '../../../components/layouts/storefront-layout.tsx';
-import { Card, CardTitle } from '../../../components/ui/card.tsx';
-import { Notice } from '../../../components/ui/notice.tsx';
-import { useCart } from '../../../features/cart/cart-store.ts';
-import { OrderMoney, OrderTimeline } from '../../../features/orders/components/order-timeline.tsx';
-import { ItemMockup } from '../../../features/designer/components/item-mockup.tsx';
-import { useOrder } from '../../../features/storefront/api/checkout.ts';
-import { cx } from '../../../lib/cx.ts';
+import { ITEM_STAGE_LABELS, ORDER_STATUS_LABELS } from '#shared/orders/stages.ts';
+import { AppError } from '#shared/errors.ts';
+import { StorefrontLayout } from '#src/app/layouts/storefront-layout.tsx';
+import { Card, CardTitle } from '#src/components/ui/card.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { useCart } from '#src/features/cart/cart-store.ts';
+import { OrderMoney, OrderTimeline } from '#src/features/orders/components/order-timeline.tsx';
+import { ItemMockup } from '#src/features/designer/components/item-mockup.tsx';
+import { useOrder } from '#src/features/storefront/api/checkout.ts';
+import { cx } from '#src/lib/cx.ts';
 
 /** The buyer's order, opened by its private link: items as they will burn, stage and history. */
 export function OrderPage() {
@@ -19,10 +19,13 @@ export function OrderPage() {
   const order = useOrder(studioSlug, orderId, search.get('key') ?? '');
   const cart = useCart(studioSlug);
   const justPaid = search.get('paid') === '1';
+  const status = order.data?.status;
+  const { clear: clearCart } = cart;
+  const cartFilled = cart.lines.length > 0;
   useEffect(() => {
     // Back from the pay page: the cart has become this order.
-    if (justPaid && order.data && order.data.status !== 'awaiting_payment' && order.data.status !== 'cancelled' && cart.lines.length) cart.clear();
-  }, [justPaid, order.data?.status]); // eslint-disable-line react-hooks/exhaustive-deps
+    if (justPaid && status && status !== 'awaiting_payment' && status !== 'cancelled' && cartFilled) clearCart();
+  }, [justPaid, status, cartFilled, clearCart]);
 
   return (
     <StorefrontLayout>
@@ -31,7 +34,9 @@ export function OrderPage() {
         if (order.error)
           return (
             <Notice tone="error" title="This order could not be opened">
-              {order.error instanceof AppError && order.error.code === 'NOT_FOUND' ? 'There is no order at this link. Check that you used the whole link from the e-mail.' : order.error.message}
+              {order.error instanceof AppError && order.error.code === 'NOT_FOUND'
+                ? 'There is no order at this link. Check that you used the whole link from the e-mail.'
+                : order.error.message}
             </Notice>
           );
         const o = order.data;
@@ -39,12 +44,25 @@ export function OrderPage() {
           <div className="flex flex-col gap-6">
             <div className="flex flex-wrap items-center gap-3">
               <h1 className="text-3xl font-extrabold">Order {o.number}</h1>
-              <span className={cx('rounded-full px-3 py-1 text-sm font-bold', o.status === 'paid' || o.status === 'fulfilled' ? 'bg-moss-100 text-moss-800' : o.status === 'awaiting_payment' ? 'bg-ember-50 text-ember-800' : 'bg-graphite-100 text-graphite-700')}>
+              <span
+                className={cx(
+                  'rounded-full px-3 py-1 text-sm font-bold',
+                  o.status === 'paid' || o.status === 'fulfilled'
+                    ? 'bg-moss-100 text-moss-800'
+                    : o.status === 'awaiting_payment'
+                      ? 'bg-ember-50 text-ember-800'
+                      : 'bg-graphite-100 text-graphite-700',
+                )}
+              >
                 {ORDER_STATUS_LABELS[o.status]}
               </span>
             </div>
             {o.status === 'awaiting_payment' && justPaid && <Notice>Your payment is being confirmed; this page updates by itself.</Notice>}
-            {o.status === 'paid' && justPaid && <Notice title="Thank you!">Your payment is in. We have sent a receipt to {o.buyer.email}; keep it, its link opens this page.</Notice>}
+            {o.status === 'paid' && justPaid && (
+              <Notice title="Thank you!">
+                Your payment is in. We have sent a receipt to {o.buyer.email}; keep it, its link opens this page.
+              </Notice>
+            )}
             {o.note && <Notice tone="caution">{o.note}</Notice>}
             <div className="grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
               <Card>
@@ -65,10 +83,14 @@ export function OrderPage() {
                         </p>
                         {item.handover && <p className="mt-1 text-sm">{handoverLine(item.handover)}</p>}
                         {item.stage === 'needs_new_photo' && (
-                          <p className="mt-1 max-w-sm text-sm font-semibold text-rust-600">The studio needs a new photo for this piece: we sent you an e-mail with the reason and a link to send it.</p>
+                          <p className="mt-1 max-w-sm text-sm font-semibold text-rust-600">
+                            The studio needs a new photo for this piece: we sent you an e-mail with the reason and a link to send it.
+                          </p>
                         )}
                         {item.stage === 'proof_sent' && (
-                          <p className="mt-1 max-w-sm text-sm font-semibold text-ember-700">Your proof is ready: the e-mail we sent has the link to approve it or ask for changes.</p>
+                          <p className="mt-1 max-w-sm text-sm font-semibold text-ember-700">
+                            Your proof is ready: the e-mail we sent has the link to approve it or ask for changes.
+                          </p>
                         )}
                       </div>
                     </li>

@@ -1,27 +1,43 @@
 import { useState } from 'react';
 import { useParams } from 'react-router-dom';
 import { useMutation, useQuery } from '@tanstack/react-query';
-import { proofViewSchema } from '../../../../shared/schemas/workspace-orders.ts';
-import { StorefrontLayout } from '../../../components/layouts/storefront-layout.tsx';
-import { Button } from '../../../components/ui/button.tsx';
-import { Card, CardTitle } from '../../../components/ui/card.tsx';
-import { TextAreaField } from '../../../components/ui/field.tsx';
-import { Notice } from '../../../components/ui/notice.tsx';
-import { apiFetch } from '../../../lib/api-client.ts';
+import { proofViewSchema } from '#shared/schemas/workspace-orders.ts';
+import { StorefrontLayout } from '#src/app/layouts/storefront-layout.tsx';
+import { Button } from '#src/components/ui/button.tsx';
+import { Card, CardTitle } from '#src/components/ui/card.tsx';
+import { TextAreaField } from '#src/components/ui/field.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { apiFetch } from '#src/lib/api-client.ts';
 
 /** The buyer's proof: how the piece will burn, to approve or to ask for changes (the link works once). */
 export function ProofPage() {
   const { studioSlug = '', token = '' } = useParams();
   const url = `/api/storefront/${encodeURIComponent(studioSlug)}/proofs/${encodeURIComponent(token)}`;
-  const proof = useQuery({ queryKey: ['proof', studioSlug, token], queryFn: ({ signal }) => apiFetch(url, { schema: proofViewSchema, signal }), retry: false });
+  const proof = useQuery({
+    queryKey: ['proof', studioSlug, token],
+    queryFn: ({ signal }) => apiFetch(url, { schema: proofViewSchema, signal }),
+    retry: false,
+  });
   const [message, setMessage] = useState('');
   const answer = useMutation({ mutationFn: (body: unknown) => apiFetch(url, { method: 'POST', body }) });
   return (
     <StorefrontLayout>
       {(studio) => {
-        if (answer.isSuccess) return <Notice title="Thank you!">{(answer.variables as { decision: string }).decision === 'approve' ? `${studio.name} will engrave it as shown.` : `${studio.name} has your note and will send a new proof.`}</Notice>;
+        if (answer.isSuccess)
+          return (
+            <Notice title="Thank you!">
+              {(answer.variables as { decision: string }).decision === 'approve'
+                ? `${studio.name} will engrave it as shown.`
+                : `${studio.name} has your note and will send a new proof.`}
+            </Notice>
+          );
         if (proof.isPending) return <p className="text-graphite-500">Opening your proof…</p>;
-        if (proof.error) return <Notice tone="error" title="This proof cannot be opened">{proof.error.message}</Notice>;
+        if (proof.error)
+          return (
+            <Notice tone="error" title="This proof cannot be opened">
+              {proof.error.message}
+            </Notice>
+          );
         const { item, orderNumber, imageUrl } = proof.data;
         const width = 420;
         return (
@@ -33,7 +49,13 @@ export function ProofPage() {
                   {item.blankName}, {item.sizeLabel}
                 </CardTitle>
                 <div className="inline-flex rounded-lg bg-graphite-100 p-3">
-                  <img src={imageUrl} alt="Your proof, as it will burn" width={width} height={Math.round((width * item.look.areaHeightMm) / item.look.areaWidthMm)} className="max-w-full" />
+                  <img
+                    src={imageUrl}
+                    alt="Your proof, as it will burn"
+                    width={width}
+                    height={Math.round((width * item.look.areaHeightMm) / item.look.areaWidthMm)}
+                    className="max-w-full"
+                  />
                 </div>
                 <p className="mt-2 text-xs text-graphite-500">The dots are drawn at screen size; the laser burns them far finer.</p>
               </Card>
@@ -44,8 +66,18 @@ export function ProofPage() {
                   <Button size="lg" busy={answer.isPending} onClick={() => answer.mutate({ decision: 'approve' })}>
                     Approve and engrave
                   </Button>
-                  <TextAreaField label="Or tell us what to change" value={message} onChange={(e) => setMessage(e.target.value)} maxLength={1000} />
-                  <Button variant="secondary" disabled={!message.trim()} busy={answer.isPending} onClick={() => answer.mutate({ decision: 'changes', message })}>
+                  <TextAreaField
+                    label="Or tell us what to change"
+                    value={message}
+                    onChange={(e) => setMessage(e.target.value)}
+                    maxLength={1000}
+                  />
+                  <Button
+                    variant="secondary"
+                    disabled={!message.trim()}
+                    busy={answer.isPending}
+                    onClick={() => answer.mutate({ decision: 'changes', message })}
+                  >
                     Ask for changes
                   </Button>
                 </div>

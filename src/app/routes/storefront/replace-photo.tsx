@@ -1,25 +1,29 @@
 import { useState } from 'react';
 import { useParams } from 'react-router-dom';
 import { useMutation, useQuery } from '@tanstack/react-query';
-import { effectivePpi, verdictFor } from '../../../../shared/imaging/photo-checks.ts';
-import type { BuyerPhotoView } from '../../../../shared/schemas/photos.ts';
-import { replacementViewSchema } from '../../../../shared/schemas/workspace-orders.ts';
-import { formatSize } from '../../../../shared/units.ts';
-import { StorefrontLayout } from '../../../components/layouts/storefront-layout.tsx';
-import { Button } from '../../../components/ui/button.tsx';
-import { Card, CardTitle } from '../../../components/ui/card.tsx';
-import { Notice } from '../../../components/ui/notice.tsx';
-import { ItemMockup } from '../../../features/designer/components/item-mockup.tsx';
-import { PhotoDrop } from '../../../features/designer/components/photo-drop.tsx';
-import { PlacedPhoto } from '../../../features/designer/components/placed-photo.tsx';
-import { startFraming, toPlacement } from '../../../features/designer/placement.ts';
-import { apiFetch } from '../../../lib/api-client.ts';
+import { effectivePpi, verdictFor } from '#shared/imaging/photo-checks.ts';
+import type { BuyerPhotoView } from '#shared/schemas/photos.ts';
+import { replacementViewSchema } from '#shared/schemas/workspace-orders.ts';
+import { formatSize } from '#shared/units.ts';
+import { StorefrontLayout } from '#src/app/layouts/storefront-layout.tsx';
+import { Button } from '#src/components/ui/button.tsx';
+import { Card, CardTitle } from '#src/components/ui/card.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { ItemMockup } from '#src/features/designer/components/item-mockup.tsx';
+import { PhotoDrop } from '#src/features/designer/components/photo-drop.tsx';
+import { PlacedPhoto } from '#src/features/designer/components/placed-photo.tsx';
+import { startFraming, toPlacement } from '#src/features/designer/placement.ts';
+import { apiFetch } from '#src/lib/api-client.ts';
 
 /** The buyer's answer to "please send a new photo", by the private link from the e-mail. */
 export function ReplacePhotoPage() {
   const { studioSlug = '', token = '' } = useParams();
   const url = `/api/storefront/${encodeURIComponent(studioSlug)}/replacements/${encodeURIComponent(token)}`;
-  const asked = useQuery({ queryKey: ['replacement', studioSlug, token], queryFn: ({ signal }) => apiFetch(url, { schema: replacementViewSchema, signal }), retry: false });
+  const asked = useQuery({
+    queryKey: ['replacement', studioSlug, token],
+    queryFn: ({ signal }) => apiFetch(url, { schema: replacementViewSchema, signal }),
+    retry: false,
+  });
   const [photo, setPhoto] = useState<BuyerPhotoView>();
   const [rights, setRights] = useState(false);
   const send = useMutation({ mutationFn: (body: unknown) => apiFetch(url, { method: 'POST', body }) });
@@ -34,7 +38,12 @@ export function ReplacePhotoPage() {
               {studio.name} has your new photo and will check it. You will hear from us if anything else is needed.
             </Notice>
           );
-        if (asked.error) return <Notice tone="error" title="This link cannot be used">{asked.error.message}</Notice>;
+        if (asked.error)
+          return (
+            <Notice tone="error" title="This link cannot be used">
+              {asked.error.message}
+            </Notice>
+          );
         const { item } = asked.data;
         const area = { widthMm: item.look.areaWidthMm, heightMm: item.look.areaHeightMm };
         const placement = photo ? toPlacement(photo, area.widthMm / area.heightMm, startFraming(photo)) : undefined;
@@ -62,17 +71,31 @@ export function ReplacePhotoPage() {
                   {photo && placement && (
                     <>
                       <div className="inline-flex self-start rounded-lg bg-graphite-100 p-3">
-                        <PlacedPhoto photo={photo} placement={placement} look={item.look} areaWidthMm={item.look.areaWidthMm} size={size} view="burn" label="Your new photo as it will burn" />
+                        <PlacedPhoto
+                          photo={photo}
+                          placement={placement}
+                          look={item.look}
+                          areaWidthMm={item.look.areaWidthMm}
+                          size={size}
+                          view="burn"
+                          label="Your new photo as it will burn"
+                        />
                       </div>
                       <p role="status" className={verdict === 'too-low' ? 'font-semibold text-rust-600' : 'font-semibold text-moss-800'}>
-                        {verdict === 'too-low' ? 'Still too low' : verdict === 'fair' ? 'Fair' : 'Good'}: {Math.floor(ppi!)} pixels per inch at {formatSize(area.widthMm, area.heightMm, studio.units)}.
+                        {verdict === 'too-low' ? 'Still too low' : verdict === 'fair' ? 'Fair' : 'Good'}: {Math.floor(ppi!)} pixels per inch
+                        at {formatSize(area.widthMm, area.heightMm, studio.units)}.
                       </p>
                       <label className="flex items-start gap-2 text-sm">
-                        <input type="checkbox" checked={rights} onChange={(e) => setRights(e.target.checked)} className="mt-1" />
-                        I took this photo or have permission to use it.
+                        <input type="checkbox" checked={rights} onChange={(e) => setRights(e.target.checked)} className="mt-1" />I took this
+                        photo or have permission to use it.
                       </label>
                       {send.error && <Notice tone="error">{send.error.message}</Notice>}
-                      <Button size="lg" disabled={!rights} busy={send.isPending} onClick={() => send.mutate({ photoId: photo.id, placement, rightsConfirmed: true })}>
+                      <Button
+                        size="lg"
+                        disabled={!rights}
+                        busy={send.isPending}
+                        onClick={() => send.mutate({ photoId: photo.id, placement, rightsConfirmed: true })}
+                      >
                         Send this photo
                       </Button>
                     </>

@@ -1,13 +1,13 @@
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
-import { can } from '../../../../shared/permissions.ts';
-import { AUDIT_ACTION_LABELS, AUDIT_GROUPS, type AuditGroup } from '../../../../shared/schemas/audit.ts';
-import { WorkspaceLayout } from '../../../components/layouts/workspace-layout.tsx';
-import { Button } from '../../../components/ui/button.tsx';
-import { SelectField } from '../../../components/ui/field.tsx';
-import { Notice } from '../../../components/ui/notice.tsx';
-import { Table, TBody, TD, TH, THead, TR } from '../../../components/ui/table.tsx';
-import { useAuditLog } from '../../../features/audit/api/audit.ts';
+import { can } from '#shared/permissions.ts';
+import { AUDIT_ACTION_LABELS, AUDIT_GROUPS, type AuditGroup } from '#shared/schemas/audit.ts';
+import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { Button } from '#src/components/ui/button.tsx';
+import { SelectField } from '#src/components/ui/field.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { Table, TBody, TD, TH, THead, TR } from '#src/components/ui/table.tsx';
+import { useAuditLog } from '#src/features/audit/api/audit.ts';
 
 export function AuditLogPage() {
   return (
@@ -39,8 +39,8 @@ function AuditLog({ slug }: { slug: string }) {
         <div>
           <h1 className="text-3xl font-extrabold">Audit log</h1>
           <p className="mt-1 max-w-2xl text-graphite-600">
-            Refunds and cancellations, team and role changes, price and recipe changes, and every time a member opened a buyer’s original photo or downloaded a render.
-            Lines are written with the change itself and cannot be edited.
+            Refunds and cancellations, team and role changes, price and recipe changes, and every time a member opened a buyer’s original
+            photo or downloaded a render. Lines are written with the change itself and cannot be edited.
           </p>
         </div>
         <SelectField
@@ -54,7 +54,9 @@ function AuditLog({ slug }: { slug: string }) {
       </div>
       {log.error && <Notice tone="error">{log.error.message}</Notice>}
       {log.isPending && <p className="text-graphite-500">Loading the audit log…</p>}
-      {log.data && entries.length === 0 && <p className="text-center text-graphite-500">Nothing recorded{group ? ' of this kind' : ''} yet.</p>}
+      {log.data && entries.length === 0 && (
+        <p className="text-center text-graphite-500">Nothing recorded{group ? ' of this kind' : ''} yet.</p>
+      )}
       {entries.length > 0 && (
         <Table>
           <THead>

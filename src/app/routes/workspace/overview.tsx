@@ -1,13 +1,13 @@
 import { Link, useNavigate } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
-import { Button } from '../../../components/ui/button.tsx';
-import { useToast } from '../../../components/ui/toast.tsx';
-import { signOutEverywhere } from '../../../features/auth/api/sign-in.ts';
-import { WorkspaceLayout } from '../../../components/layouts/workspace-layout.tsx';
-import { Card, CardTitle } from '../../../components/ui/card.tsx';
-import { Notice } from '../../../components/ui/notice.tsx';
-import { TodayPanel } from '../../../features/orders/components/today.tsx';
-import { can } from '../../../../shared/permissions.ts';
+import { Button } from '#src/components/ui/button.tsx';
+import { useToast } from '#src/components/ui/toast.tsx';
+import { signOutEverywhere } from '#src/features/auth/api/sign-in.ts';
+import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { Card, CardTitle } from '#src/components/ui/card.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { TodayPanel } from '#src/features/orders/components/today.tsx';
+import { can } from '#shared/permissions.ts';
 
 const roleText = {
   owner: 'As an owner you manage the team, the catalog, prices and refunds, and everything on orders.',
@@ -51,7 +51,8 @@ export function WorkspaceOverviewPage() {
             </Card>
           </div>
           <Notice tone="caution" title="Laser safety">
-            Never leave a running laser unattended, keep fire suppression at hand, run fume extraction and wear eye protection rated for the wavelength. Never burn PVC or vinyl. Follow your machine maker’s manual and local codes.
+            Never leave a running laser unattended, keep fire suppression at hand, run fume extraction and wear eye protection rated for the
+            wavelength. Never burn PVC or vinyl. Follow your machine maker’s manual and local codes.
           </Notice>
         </div>
       )}

@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import { Navigate, useLocation } from 'react-router-dom';
-import { useMe } from '../../../features/auth/api/get-me.ts';
+import { useMe } from '#src/features/auth/api/get-me.ts';
 
 /**
  * Pages for signed-in people. Anyone else goes to the sign-in page, which brings them back here

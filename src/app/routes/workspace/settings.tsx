@@ -1,17 +1,17 @@
 import { useState, type FormEvent } from 'react';
-import { can } from '../../../../shared/permissions.ts';
-import { studioSettingsInputSchema } from '../../../../shared/studio.ts';
-import { WorkspaceLayout } from '../../../components/layouts/workspace-layout.tsx';
-import { Card, CardTitle } from '../../../components/ui/card.tsx';
-import { TextField } from '../../../components/ui/text-field.tsx';
-import { Button } from '../../../components/ui/button.tsx';
-import { Notice } from '../../../components/ui/notice.tsx';
-import { useToast } from '../../../components/ui/toast.tsx';
-import type { Workspace } from '../../../features/workspace/api/get-workspace.ts';
-import { useUpdateSettings } from '../../../features/workspace/api/update-settings.ts';
-import { useFieldErrors } from '../../../lib/use-field-errors.ts';
-import { OrderSettingsCard, ShippingRatesCard } from '../../../features/workspace/components/order-settings.tsx';
-import { LogoCard } from '../../../features/workspace/components/logo-card.tsx';
+import { can } from '#shared/permissions.ts';
+import { studioSettingsInputSchema } from '#shared/studio.ts';
+import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { Card, CardTitle } from '#src/components/ui/card.tsx';
+import { TextField } from '#src/components/ui/text-field.tsx';
+import { Button } from '#src/components/ui/button.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { useToast } from '#src/components/ui/toast.tsx';
+import type { Workspace } from '#src/features/workspace/api/get-workspace.ts';
+import { useUpdateSettings } from '#src/features/workspace/api/update-settings.ts';
+import { useFieldErrors } from '#src/lib/use-field-errors.ts';
+import { OrderSettingsCard, ShippingRatesCard } from '#src/features/workspace/components/order-settings.tsx';
+import { LogoCard } from '#src/features/workspace/components/logo-card.tsx';
 
 export function SettingsPage() {
   return (
@@ -44,7 +44,10 @@ function SettingsForm({ workspace }: { workspace: Workspace }) {
 
   async function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
-    const values = form.check(studioSettingsInputSchema, { ...Object.fromEntries(new FormData(event.currentTarget)), accentColour: accent });
+    const values = form.check(studioSettingsInputSchema, {
+      ...Object.fromEntries(new FormData(event.currentTarget)),
+      accentColour: accent,
+    });
     if (!values) return;
     try {
       await save.mutateAsync(values);
@@ -62,23 +65,53 @@ function SettingsForm({ workspace }: { workspace: Workspace }) {
           {form.formError && <Notice tone="error">{form.formError}</Notice>}
           <TextField label="Studio name" name="name" defaultValue={studio.name} error={form.errors.name} />
           <div className="flex items-end gap-3">
-            <TextField label="Storefront colour" name="accentText" value={accent} onChange={(e) => setAccent(e.target.value)} error={form.errors.accentColour} className="flex-1" />
+            <TextField
+              label="Storefront colour"
+              name="accentText"
+              value={accent}
+              onChange={(e) => setAccent(e.target.value)}
+              error={form.errors.accentColour}
+              className="flex-1"
+            />
             <label className="sr-only" htmlFor="accent-picker">
               Pick the storefront colour
             </label>
-            <input id="accent-picker" type="color" value={/^#[0-9a-f]{6}$/i.test(accent) ? accent : '#000000'} onChange={(e) => setAccent(e.target.value)} className="h-10 w-14 rounded-lg border border-graphite-200" />
+            <input
+              id="accent-picker"
+              type="color"
+              value={/^#[0-9a-f]{6}$/i.test(accent) ? accent : '#000000'}
+              onChange={(e) => setAccent(e.target.value)}
+              className="h-10 w-14 rounded-lg border border-graphite-200"
+            />
           </div>
-          <TextField label="Currency" name="currency" defaultValue={studio.currency} hint="Three letters, such as USD, EUR or GBP. Prices are kept in its smallest unit." error={form.errors.currency} />
+          <TextField
+            label="Currency"
+            name="currency"
+            defaultValue={studio.currency}
+            hint="Three letters, such as USD, EUR or GBP. Prices are kept in its smallest unit."
+            error={form.errors.currency}
+          />
           <div className="flex flex-col gap-1.5">
             <label htmlFor="units" className="text-sm font-semibold text-graphite-800">
               Show sizes in
             </label>
-            <select id="units" name="units" defaultValue={studio.units} className="h-10 rounded-lg border border-graphite-200 bg-white px-3">
+            <select
+              id="units"
+              name="units"
+              defaultValue={studio.units}
+              className="h-10 rounded-lg border border-graphite-200 bg-white px-3"
+            >
               <option value="in">inches</option>
               <option value="mm">millimetres</option>
             </select>
           </div>
-          <TextField label="Contact e-mail for buyers" name="contactEmail" type="email" defaultValue={studio.contactEmail ?? ''} error={form.errors.contactEmail} />
+          <TextField
+            label="Contact e-mail for buyers"
+            name="contactEmail"
+            type="email"
+            defaultValue={studio.contactEmail ?? ''}
+            error={form.errors.contactEmail}
+          />
           <Button type="submit" busy={save.isPending} className="self-start">
             Save settings
           </Button>

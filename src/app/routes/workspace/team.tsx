@@ -1,18 +1,18 @@
 import { useState, type FormEvent } from 'react';
-import { createInviteInputSchema } from '../../../../shared/schemas/team.ts';
-import { can, ROLES, type Role } from '../../../../shared/permissions.ts';
-import type { Member } from '../../../../shared/schemas/team.ts';
-import { WorkspaceLayout } from '../../../components/layouts/workspace-layout.tsx';
-import { Card, CardTitle } from '../../../components/ui/card.tsx';
-import { TextField } from '../../../components/ui/text-field.tsx';
-import { Button } from '../../../components/ui/button.tsx';
-import { Notice } from '../../../components/ui/notice.tsx';
-import { Dialog } from '../../../components/ui/dialog.tsx';
-import { Table, TBody, TD, TH, THActions, THead, TR } from '../../../components/ui/table.tsx';
-import { useToast } from '../../../components/ui/toast.tsx';
-import { useChangeRole, useInvite, useRemoveMember, useTeam, useWithdrawInvite } from '../../../features/team/api/team.ts';
-import { useFieldErrors } from '../../../lib/use-field-errors.ts';
-import { useMe } from '../../../features/auth/api/get-me.ts';
+import { createInviteInputSchema } from '#shared/schemas/team.ts';
+import { can, ROLES, type Role } from '#shared/permissions.ts';
+import type { Member } from '#shared/schemas/team.ts';
+import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { Card, CardTitle } from '#src/components/ui/card.tsx';
+import { TextField } from '#src/components/ui/text-field.tsx';
+import { Button } from '#src/components/ui/button.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { Dialog } from '#src/components/ui/dialog.tsx';
+import { Table, TBody, TD, TH, THActions, THead, TR } from '#src/components/ui/table.tsx';
+import { useToast } from '#src/components/ui/toast.tsx';
+import { useChangeRole, useInvite, useRemoveMember, useTeam, useWithdrawInvite } from '#src/features/team/api/team.ts';
+import { useFieldErrors } from '#src/lib/use-field-errors.ts';
+import { useMe } from '#src/features/auth/api/get-me.ts';
 
 const roleLabel: Record<Role, string> = { owner: 'Owner', staff: 'Team member' };
 
@@ -121,7 +121,12 @@ function Team({ slug }: { slug: string }) {
                         id={`role-${member.id}`}
                         value={member.role}
                         disabled={changeRole.isPending}
-                        onChange={(e) => changeRole.mutate({ memberId: member.id, role: e.target.value as Role }, { onError, onSuccess: () => toast.show('Role changed.', 'success') })}
+                        onChange={(e) =>
+                          changeRole.mutate(
+                            { memberId: member.id, role: e.target.value as Role },
+                            { onError, onSuccess: () => toast.show('Role changed.', 'success') },
+                          )
+                        }
                         className="h-9 rounded-lg border border-graphite-200 bg-white px-2"
                       >
                         {ROLES.map((r) => (
@@ -165,7 +170,13 @@ function Team({ slug }: { slug: string }) {
                       <TD>{roleLabel[i.role]}</TD>
                       <TD>{new Date(i.expiresAt).toLocaleDateString()}</TD>
                       <TD className="text-right">
-                        <Button variant="quiet" size="sm" onClick={() => withdraw.mutate(i.id, { onError, onSuccess: () => toast.show('Invitation withdrawn.', 'success') })}>
+                        <Button
+                          variant="quiet"
+                          size="sm"
+                          onClick={() =>
+                            withdraw.mutate(i.id, { onError, onSuccess: () => toast.show('Invitation withdrawn.', 'success') })
+                          }
+                        >
                           Withdraw
                         </Button>
                       </TD>

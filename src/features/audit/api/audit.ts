@@ -1,6 +1,6 @@
 import { infiniteQueryOptions, useInfiniteQuery } from '@tanstack/react-query';
-import { auditPageSchema, type AuditGroup } from '../../../../shared/schemas/audit.ts';
-import { apiFetch } from '../../../lib/api-client.ts';
+import { auditPageSchema, type AuditGroup } from '#shared/schemas/audit.ts';
+import { apiFetch } from '#src/lib/api-client.ts';
 
 const PAGE_SIZE = 50;
 

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { meSchema } from '../../../../shared/schemas/accounts.ts';
-import { apiFetch } from '../../../lib/api-client.ts';
+import { meSchema } from '#shared/schemas/accounts.ts';
+import { apiFetch } from '#src/lib/api-client.ts';
 
 export const getMe = (signal?: AbortSignal) => apiFetch('/api/me', { schema: meSchema, signal });
 

@@ -1,6 +1,6 @@
 import { z } from 'zod';
-import { AppError, errorBodySchema } from '../../../../shared/errors.ts';
-import { apiFetch } from '../../../lib/api-client.ts';
+import { AppError, errorBodySchema } from '#shared/errors.ts';
+import { apiFetch } from '#src/lib/api-client.ts';
 
 const csrfSchema = z.object({ csrfToken: z.string() });
 const redirectSchema = z.object({ url: z.string() });
@@ -36,7 +36,8 @@ export async function signInWithPassword(email: string, password: string): Promi
 /** Sends a sign-in link; after opening it, the browser lands on `next`. */
 export async function requestSignInLink(email: string, next: string): Promise<void> {
   const target = await postAuthForm('/api/auth/signin/nodemailer', { email, callbackUrl: next });
-  if (target.searchParams.has('error')) throw new AppError('SERVICE_UNAVAILABLE', 'The sign-in link could not be sent. Please try again in a moment.');
+  if (target.searchParams.has('error'))
+    throw new AppError('SERVICE_UNAVAILABLE', 'The sign-in link could not be sent. Please try again in a moment.');
 }
 
 export async function signOut(): Promise<void> {

@@ -2,7 +2,7 @@ import { Link, useNavigate } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
 import { useMe } from '../api/get-me.ts';
 import { signOut } from '../api/sign-in.ts';
-import { useToast } from '../../../components/ui/toast.tsx';
+import { useToast } from '#src/components/ui/toast.tsx';
 
 /** The header's sign-in link, or who is signed in with their studios and a sign-out button. */
 export function UserMenu() {
@@ -35,7 +35,11 @@ export function UserMenu() {
   return (
     <nav aria-label="Account" className="flex flex-wrap items-center gap-1 text-sm">
       {me.data!.memberships.map((m) => (
-        <Link key={m.studioSlug} to={`/studio/${m.studioSlug}`} className="rounded-lg px-3 py-2 font-semibold text-graphite-700 hover:bg-graphite-100">
+        <Link
+          key={m.studioSlug}
+          to={`/studio/${m.studioSlug}`}
+          className="rounded-lg px-3 py-2 font-semibold text-graphite-700 hover:bg-graphite-100"
+        >
           {m.studioName}
         </Link>
       ))}

@@ -14,10 +14,10 @@ import {
   type MaterialInput,
   type RecipeInput,
   type SizeInput,
-} from '../../../../shared/schemas/catalog.ts';
-import { uploadTicketSchema } from '../../../../shared/schemas/uploads.ts';
-import { AppError } from '../../../../shared/errors.ts';
-import { apiFetch } from '../../../lib/api-client.ts';
+} from '#shared/schemas/catalog.ts';
+import { uploadTicketSchema } from '#shared/schemas/uploads.ts';
+import { AppError } from '#shared/errors.ts';
+import { apiFetch } from '#src/lib/api-client.ts';
 
 const base = (slug: string) => `/api/studios/${encodeURIComponent(slug)}/catalog`;
 const list = <S extends z.ZodType>(slug: string, name: string, schema: S) =>
@@ -30,7 +30,10 @@ export const catalogQueries = {
   recipes: (slug: string) => list(slug, 'recipes', catalogListSchemas.recipes),
   blanks: (slug: string) => list(slug, 'blanks', catalogListSchemas.blanks),
   blank: (slug: string, blankId: string) =>
-    queryOptions({ queryKey: ['catalog', slug, 'blanks', blankId], queryFn: ({ signal }) => apiFetch(`${base(slug)}/blanks/${blankId}`, { schema: blankSchema, signal }) }),
+    queryOptions({
+      queryKey: ['catalog', slug, 'blanks', blankId],
+      queryFn: ({ signal }) => apiFetch(`${base(slug)}/blanks/${blankId}`, { schema: blankSchema, signal }),
+    }),
 };
 
 export const useMaterials = (slug: string) => useQuery(catalogQueries.materials(slug));
@@ -45,7 +48,11 @@ type Optimistic<TInput> = { queryKey: QueryKey; update(old: never, input: TInput
  * A catalog change. With `optimistic`, the cached list shows the change at once and is put back
  * if the server refuses it; either way the studio's catalog (and its storefront) is refetched.
  */
-function useCatalogMutation<TInput, TResult>(slug: string, mutationFn: (input: TInput) => Promise<TResult>, optimistic?: (input: TInput) => Optimistic<TInput>) {
+function useCatalogMutation<TInput, TResult>(
+  slug: string,
+  mutationFn: (input: TInput) => Promise<TResult>,
+  optimistic?: (input: TInput) => Optimistic<TInput>,
+) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn,
@@ -61,7 +68,10 @@ function useCatalogMutation<TInput, TResult>(slug: string, mutationFn: (input: T
       if (context?.previous !== undefined) queryClient.setQueryData(context.queryKey, context.previous);
     },
     onSettled: () =>
-      Promise.all([queryClient.invalidateQueries({ queryKey: catalogQueries.all(slug) }), queryClient.invalidateQueries({ queryKey: ['storefront', slug] })]),
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: catalogQueries.all(slug) }),
+        queryClient.invalidateQueries({ queryKey: ['storefront', slug] }),
+      ]),
   });
 }
 
@@ -74,12 +84,18 @@ const removeFrom =
   (old: Listed<K, T>) => ({ ...old, [key]: old[key].filter((item) => item.id !== id) });
 
 export const useCreateMaterial = (slug: string) =>
-  useCatalogMutation(slug, (input: MaterialInput) => apiFetch(`${base(slug)}/materials`, { method: 'POST', body: input, schema: materialSchema }));
+  useCatalogMutation(slug, (input: MaterialInput) =>
+    apiFetch(`${base(slug)}/materials`, { method: 'POST', body: input, schema: materialSchema }),
+  );
 export const useUpdateMaterial = (slug: string) =>
   useCatalogMutation(
     slug,
-    ({ id, input }: { id: string; input: MaterialInput }) => apiFetch(`${base(slug)}/materials/${id}`, { method: 'PUT', body: input, schema: materialSchema }),
-    ({ id, input }) => ({ queryKey: catalogQueries.materials(slug).queryKey, update: replaceIn('materials', id, (m: z.infer<typeof materialSchema>) => ({ ...m, ...input })) as never }),
+    ({ id, input }: { id: string; input: MaterialInput }) =>
+      apiFetch(`${base(slug)}/materials/${id}`, { method: 'PUT', body: input, schema: materialSchema }),
+    ({ id, input }) => ({
+      queryKey: catalogQueries.materials(slug).queryKey,
+      update: replaceIn('materials', id, (m: z.infer<typeof materialSchema>) => ({ ...m, ...input })) as never,
+    }),
   );
 export const useDeleteMaterial = (slug: string) =>
   useCatalogMutation(
@@ -89,12 +105,18 @@ export const useDeleteMaterial = (slug: string) =>
   );
 
 export const useCreateMachine = (slug: string) =>
-  useCatalogMutation(slug, (input: MachineInput) => apiFetch(`${base(slug)}/machines`, { method: 'POST', body: input, schema: machineSchema }));
+  useCatalogMutation(slug, (input: MachineInput) =>
+    apiFetch(`${base(slug)}/machines`, { method: 'POST', body: input, schema: machineSchema }),
+  );
 export const useUpdateMachine = (slug: string) =>
   useCatalogMutation(
     slug,
-    ({ id, input }: { id: string; input: MachineInput }) => apiFetch(`${base(slug)}/machines/${id}`, { method: 'PUT', body: input, schema: machineSchema }),
-    ({ id, input }) => ({ queryKey: catalogQueries.machines(slug).queryKey, update: replaceIn('machines', id, (m: z.infer<typeof machineSchema>) => ({ ...m, ...input })) as never }),
+    ({ id, input }: { id: string; input: MachineInput }) =>
+      apiFetch(`${base(slug)}/machines/${id}`, { method: 'PUT', body: input, schema: machineSchema }),
+    ({ id, input }) => ({
+      queryKey: catalogQueries.machines(slug).queryKey,
+      update: replaceIn('machines', id, (m: z.infer<typeof machineSchema>) => ({ ...m, ...input })) as never,
+    }),
   );
 export const useDeleteMachine = (slug: string) =>
   useCatalogMutation(
@@ -104,12 +126,18 @@ export const useDeleteMachine = (slug: string) =>
   );
 
 export const useCreateRecipe = (slug: string) =>
-  useCatalogMutation(slug, (input: RecipeInput) => apiFetch(`${base(slug)}/recipes`, { method: 'POST', body: input, schema: recipeSchema }));
+  useCatalogMutation(slug, (input: RecipeInput) =>
+    apiFetch(`${base(slug)}/recipes`, { method: 'POST', body: input, schema: recipeSchema }),
+  );
 export const useUpdateRecipe = (slug: string) =>
   useCatalogMutation(
     slug,
-    ({ id, input }: { id: string; input: RecipeInput }) => apiFetch(`${base(slug)}/recipes/${id}`, { method: 'PUT', body: input, schema: recipeSchema }),
-    ({ id, input }) => ({ queryKey: catalogQueries.recipes(slug).queryKey, update: replaceIn('recipes', id, (r: z.infer<typeof recipeSchema>) => ({ ...r, ...input })) as never }),
+    ({ id, input }: { id: string; input: RecipeInput }) =>
+      apiFetch(`${base(slug)}/recipes/${id}`, { method: 'PUT', body: input, schema: recipeSchema }),
+    ({ id, input }) => ({
+      queryKey: catalogQueries.recipes(slug).queryKey,
+      update: replaceIn('recipes', id, (r: z.infer<typeof recipeSchema>) => ({ ...r, ...input })) as never,
+    }),
   );
 export const useDeleteRecipe = (slug: string) =>
   useCatalogMutation(
@@ -133,11 +161,14 @@ const onBlank = (slug: string, blankId: string, change: (sizes: BlankView['sizes
   update: ((old: BlankView) => ({ ...old, sizes: change(old.sizes) })) as never,
 });
 export const useAddSize = (slug: string, blankId: string) =>
-  useCatalogMutation(slug, (input: SizeInput) => apiFetch(`${base(slug)}/blanks/${blankId}/sizes`, { method: 'POST', body: input, schema: sizeSchema }));
+  useCatalogMutation(slug, (input: SizeInput) =>
+    apiFetch(`${base(slug)}/blanks/${blankId}/sizes`, { method: 'POST', body: input, schema: sizeSchema }),
+  );
 export const useUpdateSize = (slug: string, blankId: string) =>
   useCatalogMutation(
     slug,
-    ({ id, input }: { id: string; input: SizeInput }) => apiFetch(`${base(slug)}/sizes/${id}`, { method: 'PUT', body: input, schema: sizeSchema }),
+    ({ id, input }: { id: string; input: SizeInput }) =>
+      apiFetch(`${base(slug)}/sizes/${id}`, { method: 'PUT', body: input, schema: sizeSchema }),
     ({ id, input }) => onBlank(slug, blankId, (sizes) => sizes.map((s) => (s.id === id ? { ...s, ...input } : s))),
   );
 export const useRemoveSize = (slug: string, blankId: string) =>
@@ -153,7 +184,11 @@ export const useRemoveSize = (slug: string, blankId: string) =>
  */
 export const useAddPhoto = (slug: string, blankId: string) =>
   useCatalogMutation(slug, async (file: File) => {
-    const ticket = await apiFetch(`${base(slug)}/blanks/${blankId}/photo-uploads`, { method: 'POST', body: { contentType: file.type, contentLength: file.size }, schema: uploadTicketSchema });
+    const ticket = await apiFetch(`${base(slug)}/blanks/${blankId}/photo-uploads`, {
+      method: 'POST',
+      body: { contentType: file.type, contentLength: file.size },
+      schema: uploadTicketSchema,
+    });
     let put: Response;
     try {
       put = await fetch(ticket.url, { method: 'PUT', headers: ticket.headers, body: file });
@@ -167,5 +202,8 @@ export const useRemovePhoto = (slug: string, blankId: string) =>
   useCatalogMutation(
     slug,
     (id: string) => apiFetch(`${base(slug)}/photos/${id}`, { method: 'DELETE' }),
-    (id) => ({ queryKey: catalogQueries.blank(slug, blankId).queryKey, update: ((old: BlankView) => ({ ...old, photos: old.photos.filter((p) => p.id !== id) })) as never }),
+    (id) => ({
+      queryKey: catalogQueries.blank(slug, blankId).queryKey,
+      update: ((old: BlankView) => ({ ...old, photos: old.photos.filter((p) => p.id !== id) })) as never,
+    }),
   );

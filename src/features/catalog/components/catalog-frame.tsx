@@ -1,10 +1,22 @@
 import type { ReactNode } from 'react';
 import { NavLink } from 'react-router-dom';
-import { cx } from '../../../lib/cx.ts';
-import { Notice } from '../../../components/ui/notice.tsx';
+import { cx } from '#src/lib/cx.ts';
+import { Notice } from '#src/components/ui/notice.tsx';
 
 /** The catalog's own tabs, its page title and, for those who may only look, a note saying so. */
-export function CatalogFrame({ slug, title, canEdit, actions, children }: { slug: string; title: string; canEdit: boolean; actions?: ReactNode; children: ReactNode }) {
+export function CatalogFrame({
+  slug,
+  title,
+  canEdit,
+  actions,
+  children,
+}: {
+  slug: string;
+  title: string;
+  canEdit: boolean;
+  actions?: ReactNode;
+  children: ReactNode;
+}) {
   const tabs = [
     { to: `/studio/${slug}/catalog/blanks`, label: 'Blanks' },
     { to: `/studio/${slug}/catalog/materials`, label: 'Materials' },
@@ -19,7 +31,12 @@ export function CatalogFrame({ slug, title, canEdit, actions, children }: { slug
             key={tab.to}
             to={tab.to}
             className={({ isActive }) =>
-              cx('rounded-full px-4 py-1.5 text-sm font-bold', isActive ? 'bg-graphite-900 text-white' : 'bg-white text-graphite-700 ring-1 ring-inset ring-graphite-200 hover:bg-birch-100')
+              cx(
+                'rounded-full px-4 py-1.5 text-sm font-bold',
+                isActive
+                  ? 'bg-graphite-900 text-white'
+                  : 'bg-white text-graphite-700 ring-1 ring-inset ring-graphite-200 hover:bg-birch-100',
+              )
             }
           >
             {tab.label}
@@ -38,7 +55,12 @@ export function CatalogFrame({ slug, title, canEdit, actions, children }: { slug
 
 /** What a list shows while it loads or when it failed. */
 export function QueryState({ isPending, error }: { isPending: boolean; error: Error | null }) {
-  if (error) return <Notice tone="error" title="This list could not be loaded">{error.message}</Notice>;
+  if (error)
+    return (
+      <Notice tone="error" title="This list could not be loaded">
+        {error.message}
+      </Notice>
+    );
   if (isPending) return <p className="text-graphite-500">Loading…</p>;
   return null;
 }

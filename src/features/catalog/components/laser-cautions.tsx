@@ -1,5 +1,5 @@
-import { LASER_CAUTIONS } from '../../../../shared/safety.ts';
-import { Notice } from '../../../components/ui/notice.tsx';
+import { LASER_CAUTIONS } from '#shared/safety.ts';
+import { Notice } from '#src/components/ui/notice.tsx';
 
 /** The cautions shown wherever recipes are set or run (the job sheet prints the same words). */
 export function LaserCautions() {

@@ -1,10 +1,10 @@
 import { useState } from 'react';
 import { useDropzone, type FileRejection } from 'react-dropzone';
-import { IMAGE_UPLOAD_TYPES, MAX_IMAGE_UPLOAD_BYTES } from '../../../../shared/schemas/uploads.ts';
-import type { BlankPhotoView } from '../../../../shared/schemas/catalog.ts';
-import { Button } from '../../../components/ui/button.tsx';
-import { useToast } from '../../../components/ui/toast.tsx';
-import { cx } from '../../../lib/cx.ts';
+import { IMAGE_UPLOAD_TYPES, MAX_IMAGE_UPLOAD_BYTES } from '#shared/schemas/uploads.ts';
+import type { BlankPhotoView } from '#shared/schemas/catalog.ts';
+import { Button } from '#src/components/ui/button.tsx';
+import { useToast } from '#src/components/ui/toast.tsx';
+import { cx } from '#src/lib/cx.ts';
 import { useAddPhoto, useRemovePhoto } from '../api/catalog.ts';
 
 const MAX_PHOTOS = 8;
@@ -18,7 +18,17 @@ function rejectionMessage({ file, errors }: FileRejection): string {
 }
 
 /** A blank's product photos: drop or choose files to add them, remove any. Owners only change them. */
-export function PhotoPanel({ slug, blankId, photos, canEdit }: { slug: string; blankId: string; photos: BlankPhotoView[]; canEdit: boolean }) {
+export function PhotoPanel({
+  slug,
+  blankId,
+  photos,
+  canEdit,
+}: {
+  slug: string;
+  blankId: string;
+  photos: BlankPhotoView[];
+  canEdit: boolean;
+}) {
   const add = useAddPhoto(slug, blankId);
   const remove = useRemovePhoto(slug, blankId);
   const toast = useToast();
@@ -27,7 +37,8 @@ export function PhotoPanel({ slug, blankId, photos, canEdit }: { slug: string; b
   async function upload(files: File[], rejections: FileRejection[]) {
     for (const rejection of rejections) toast.show(rejectionMessage(rejection), 'error');
     const room = MAX_PHOTOS - photos.length;
-    if (files.length > room) toast.show(`A blank shows at most ${MAX_PHOTOS} photos; only the first ${Math.max(room, 0)} are added.`, 'error');
+    if (files.length > room)
+      toast.show(`A blank shows at most ${MAX_PHOTOS} photos; only the first ${Math.max(room, 0)} are added.`, 'error');
     const taken = files.slice(0, Math.max(room, 0));
     for (const [index, file] of taken.entries()) {
       setProgress({ done: index, total: taken.length });
@@ -41,7 +52,12 @@ export function PhotoPanel({ slug, blankId, photos, canEdit }: { slug: string; b
     if (taken.length) toast.show(taken.length === 1 ? 'Photo added.' : `${taken.length} photos processed.`, 'success');
   }
 
-  const dropzone = useDropzone({ accept, maxSize: MAX_IMAGE_UPLOAD_BYTES, onDrop: (files, rejections) => void upload(files, rejections), disabled: !canEdit || Boolean(progress) });
+  const dropzone = useDropzone({
+    accept,
+    maxSize: MAX_IMAGE_UPLOAD_BYTES,
+    onDrop: (files, rejections) => void upload(files, rejections),
+    disabled: !canEdit || Boolean(progress),
+  });
 
   async function onRemove(photo: BlankPhotoView) {
     try {
@@ -58,9 +74,22 @@ export function PhotoPanel({ slug, blankId, photos, canEdit }: { slug: string; b
         <ul className="grid grid-cols-2 gap-3 sm:grid-cols-4">
           {photos.map((photo, index) => (
             <li key={photo.id} className="group relative overflow-hidden rounded-lg border border-graphite-100 bg-birch-50">
-              <img src={photo.url} alt={`Product photo ${index + 1}`} width={photo.width} height={photo.height} className="aspect-square w-full object-cover" loading="lazy" />
+              <img
+                src={photo.url}
+                alt={`Product photo ${index + 1}`}
+                width={photo.width}
+                height={photo.height}
+                className="aspect-square w-full object-cover"
+                loading="lazy"
+              />
               {canEdit && (
-                <Button size="sm" variant="secondary" className="absolute right-2 top-2" onClick={() => void onRemove(photo)} aria-label={`Remove product photo ${index + 1}`}>
+                <Button
+                  size="sm"
+                  variant="secondary"
+                  className="absolute right-2 top-2"
+                  onClick={() => void onRemove(photo)}
+                  aria-label={`Remove product photo ${index + 1}`}
+                >
                   Remove
                 </Button>
               )}
@@ -85,7 +114,9 @@ export function PhotoPanel({ slug, blankId, photos, canEdit }: { slug: string; b
           ) : (
             <>
               <p className="font-semibold text-graphite-800">Drop product photos here, or click to choose</p>
-              <p className="text-graphite-500">JPEG, PNG or WebP, up to {MAX_IMAGE_UPLOAD_BYTES / 1024 / 1024} MB each; at most {MAX_PHOTOS} per blank.</p>
+              <p className="text-graphite-500">
+                JPEG, PNG or WebP, up to {MAX_IMAGE_UPLOAD_BYTES / 1024 / 1024} MB each; at most {MAX_PHOTOS} per blank.
+              </p>
             </>
           )}
         </div>

@@ -1,15 +1,36 @@
 import { useState } from 'react';
-import { Button } from '../../../components/ui/button.tsx';
-import { useToast } from '../../../components/ui/toast.tsx';
+import { Button } from '#src/components/ui/button.tsx';
+import { useToast } from '#src/components/ui/toast.tsx';
 
 /** A table row's Edit and Delete (or Remove) buttons, named for screen readers by the row. */
-export function RowActions({ name, onEdit, onDelete, deleteWord = 'Delete', deleteDisabled, deleteTitle }: { name: string; onEdit(): void; onDelete(): void; deleteWord?: string; deleteDisabled?: boolean; deleteTitle?: string }) {
+export function RowActions({
+  name,
+  onEdit,
+  onDelete,
+  deleteWord = 'Delete',
+  deleteDisabled,
+  deleteTitle,
+}: {
+  name: string;
+  onEdit(): void;
+  onDelete(): void;
+  deleteWord?: string;
+  deleteDisabled?: boolean;
+  deleteTitle?: string;
+}) {
   return (
     <span className="inline-flex gap-1">
       <Button size="sm" variant="quiet" onClick={onEdit} aria-label={`Edit ${name}`}>
         Edit
       </Button>
-      <Button size="sm" variant="quiet" onClick={onDelete} disabled={deleteDisabled} title={deleteTitle} aria-label={`${deleteWord} ${name}`}>
+      <Button
+        size="sm"
+        variant="quiet"
+        onClick={onDelete}
+        disabled={deleteDisabled}
+        title={deleteTitle}
+        aria-label={`${deleteWord} ${name}`}
+      >
         {deleteWord}
       </Button>
     </span>

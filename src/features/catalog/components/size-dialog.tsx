@@ -1,16 +1,16 @@
 import { useForm } from 'react-hook-form';
-import { sizeInputSchema, type BlankShape, type SizeInput, type SizeView } from '../../../../shared/schemas/catalog.ts';
-import { sizeFit } from '../../../../shared/imaging/shape.ts';
-import { Button } from '../../../components/ui/button.tsx';
-import { moneyInputValue, parseMoneyInput } from '../../../../shared/money.ts';
-import { mmToUnit, mmToUnitDown, unitToMm, type LengthUnit } from '../../../../shared/units.ts';
-import { Dialog } from '../../../components/ui/dialog.tsx';
-import { SelectField } from '../../../components/ui/field.tsx';
-import { TextField } from '../../../components/ui/text-field.tsx';
-import { Notice } from '../../../components/ui/notice.tsx';
-import { useToast } from '../../../components/ui/toast.tsx';
-import { convertingResolver } from '../../../lib/converting-resolver.ts';
-import { serverErrorOf, showServerError } from '../../../lib/form-errors.ts';
+import { sizeInputSchema, type BlankShape, type SizeInput, type SizeView } from '#shared/schemas/catalog.ts';
+import { sizeFit } from '#shared/imaging/shape.ts';
+import { Button } from '#src/components/ui/button.tsx';
+import { moneyInputValue, parseMoneyInput } from '#shared/money.ts';
+import { mmToUnit, mmToUnitDown, unitToMm, type LengthUnit } from '#shared/units.ts';
+import { Dialog } from '#src/components/ui/dialog.tsx';
+import { SelectField } from '#src/components/ui/field.tsx';
+import { TextField } from '#src/components/ui/text-field.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { useToast } from '#src/components/ui/toast.tsx';
+import { convertingResolver } from '#src/lib/converting-resolver.ts';
+import { serverErrorOf, showServerError } from '#src/lib/form-errors.ts';
 import { useAddSize, useUpdateSize } from '../api/catalog.ts';
 import { orientationOptions } from '../labels.ts';
 
@@ -28,7 +28,23 @@ type FormValues = {
   sku: string;
 };
 
-export function SizeDialog({ slug, blankId, shape, units, currency, size, onClose }: { slug: string; blankId: string; shape: BlankShape; units: LengthUnit; currency: string; size?: SizeView; onClose(): void }) {
+export function SizeDialog({
+  slug,
+  blankId,
+  shape,
+  units,
+  currency,
+  size,
+  onClose,
+}: {
+  slug: string;
+  blankId: string;
+  shape: BlankShape;
+  units: LengthUnit;
+  currency: string;
+  size?: SizeView;
+  onClose(): void;
+}) {
   const add = useAddSize(slug, blankId);
   const update = useUpdateSize(slug, blankId);
   const toast = useToast();
@@ -58,7 +74,18 @@ export function SizeDialog({ slug, blankId, shape, units, currency, size, onClos
           stock: size.stock ?? 0,
           sku: size.sku,
         }
-      : { label: '', orientation: 'either', priceMinor: '', unlimited: true, stock: 0, sku: '', outerWidthMm: Number.NaN, outerHeightMm: Number.NaN, areaWidthMm: Number.NaN, areaHeightMm: Number.NaN },
+      : {
+          label: '',
+          orientation: 'either',
+          priceMinor: '',
+          unlimited: true,
+          stock: 0,
+          sku: '',
+          outerWidthMm: Number.NaN,
+          outerHeightMm: Number.NaN,
+          areaWidthMm: Number.NaN,
+          areaHeightMm: Number.NaN,
+        },
   });
   const { register, formState, watch } = form;
   const errors = formState.errors;
@@ -66,7 +93,9 @@ export function SizeDialog({ slug, blankId, shape, units, currency, size, onClos
   // The area checked against the blank's outline as it is typed (the server checks it again):
   // when it reaches past the edge, the largest area of its proportions is offered, rounded down.
   const typed = watch(['outerWidthMm', 'outerHeightMm', 'areaWidthMm', 'areaHeightMm']).map((v) => unitToMm(v, units));
-  const fit = typed.every((v) => Number.isFinite(v) && v > 0) ? sizeFit(shape, { outerWidthMm: typed[0]!, outerHeightMm: typed[1]!, areaWidthMm: typed[2]!, areaHeightMm: typed[3]! }) : undefined;
+  const fit = typed.every((v) => Number.isFinite(v) && v > 0)
+    ? sizeFit(shape, { outerWidthMm: typed[0]!, outerHeightMm: typed[1]!, areaWidthMm: typed[2]!, areaHeightMm: typed[3]! })
+    : undefined;
   const down = (mm: number) => mmToUnitDown(mm, units);
   const useLargest = () => {
     if (!fit) return;
@@ -86,25 +115,60 @@ export function SizeDialog({ slug, blankId, shape, units, currency, size, onClos
   });
 
   return (
-    <Dialog open title={size ? `Edit size ${size.label}` : 'New size'} onClose={onClose} onSubmit={onSubmit} confirm={{ label: 'Save size', busy: formState.isSubmitting }} wide>
+    <Dialog
+      open
+      title={size ? `Edit size ${size.label}` : 'New size'}
+      onClose={onClose}
+      onSubmit={onSubmit}
+      confirm={{ label: 'Save size', busy: formState.isSubmitting }}
+      wide
+    >
       <div className="grid gap-4 sm:grid-cols-2">
         {serverErrorOf(form) && (
           <div className="sm:col-span-2">
             <Notice tone="error">{serverErrorOf(form)}</Notice>
           </div>
         )}
-        <TextField label="Label" {...register('label')} error={errors.label?.message} hint={units === 'in' ? 'Such as 8 × 10 in.' : 'Such as 200 × 250 mm.'} />
+        <TextField
+          label="Label"
+          {...register('label')}
+          error={errors.label?.message}
+          hint={units === 'in' ? 'Such as 8 × 10 in.' : 'Such as 200 × 250 mm.'}
+        />
         <SelectField label="Orientation" options={orientationOptions} {...register('orientation')} error={errors.orientation?.message} />
-        <TextField label="Blank width" {...length} {...register('outerWidthMm', { valueAsNumber: true })} error={errors.outerWidthMm?.message} />
-        <TextField label="Blank height" {...length} {...register('outerHeightMm', { valueAsNumber: true })} error={errors.outerHeightMm?.message} />
-        <TextField label="Engraving area width" {...length} {...register('areaWidthMm', { valueAsNumber: true })} error={errors.areaWidthMm?.message} hint="The part the photo is burned on." />
-        <TextField label="Engraving area height" {...length} {...register('areaHeightMm', { valueAsNumber: true })} error={errors.areaHeightMm?.message} />
+        <TextField
+          label="Blank width"
+          {...length}
+          {...register('outerWidthMm', { valueAsNumber: true })}
+          error={errors.outerWidthMm?.message}
+        />
+        <TextField
+          label="Blank height"
+          {...length}
+          {...register('outerHeightMm', { valueAsNumber: true })}
+          error={errors.outerHeightMm?.message}
+        />
+        <TextField
+          label="Engraving area width"
+          {...length}
+          {...register('areaWidthMm', { valueAsNumber: true })}
+          error={errors.areaWidthMm?.message}
+          hint="The part the photo is burned on."
+        />
+        <TextField
+          label="Engraving area height"
+          {...length}
+          {...register('areaHeightMm', { valueAsNumber: true })}
+          error={errors.areaHeightMm?.message}
+        />
         {fit && !fit.fits && shape !== 'rectangle' && (
           <div className="sm:col-span-2">
             <Notice tone="caution" title="The area reaches past the blank’s edge">
               <span className="flex flex-wrap items-center gap-3">
                 <span>
-                  The largest area of these proportions that fits this {shape === 'circle' ? 'round' : shape === 'oval' ? 'oval' : 'rounded'} blank is {down(fit.largest.widthMm)} × {down(fit.largest.heightMm)} {units}.
+                  The largest area of these proportions that fits this{' '}
+                  {shape === 'circle' ? 'round' : shape === 'oval' ? 'oval' : 'rounded'} blank is {down(fit.largest.widthMm)} ×{' '}
+                  {down(fit.largest.heightMm)} {units}.
                 </span>
                 <Button size="sm" variant="secondary" onClick={useLargest}>
                   Use {down(fit.largest.widthMm)} × {down(fit.largest.heightMm)} {units}
@@ -121,7 +185,16 @@ export function SizeDialog({ slug, blankId, shape, units, currency, size, onClos
             <input type="checkbox" {...register('unlimited')} className="size-4 accent-ember-500" />
             Unlimited (made to order)
           </label>
-          {!watch('unlimited') && <TextField label="Blanks in stock" type="number" inputMode="numeric" {...register('stock', { valueAsNumber: true })} error={errors.stock?.message} className="max-w-48" />}
+          {!watch('unlimited') && (
+            <TextField
+              label="Blanks in stock"
+              type="number"
+              inputMode="numeric"
+              {...register('stock', { valueAsNumber: true })}
+              error={errors.stock?.message}
+              className="max-w-48"
+            />
+          )}
         </fieldset>
       </div>
     </Dialog>

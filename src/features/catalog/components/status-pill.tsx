@@ -1,8 +1,12 @@
-import type { BlankStatus } from '../../../../shared/schemas/catalog.ts';
-import { cx } from '../../../lib/cx.ts';
+import type { BlankStatus } from '#shared/schemas/catalog.ts';
+import { cx } from '#src/lib/cx.ts';
 import { STATUS_LABELS } from '../labels.ts';
 
-const tones: Record<BlankStatus, string> = { draft: 'bg-graphite-100 text-graphite-700', active: 'bg-moss-100 text-moss-800', archived: 'bg-birch-200 text-graphite-600' };
+const tones: Record<BlankStatus, string> = {
+  draft: 'bg-graphite-100 text-graphite-700',
+  active: 'bg-moss-100 text-moss-800',
+  archived: 'bg-birch-200 text-graphite-600',
+};
 
 /** A blank's status; one on sale without sizes is flagged, since buyers cannot see it. */
 export function StatusPill({ status, sizes }: { status: BlankStatus; sizes: number }) {

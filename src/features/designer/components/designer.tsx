@@ -1,18 +1,19 @@
 import { useEffect, useMemo, useRef, useState, type KeyboardEvent, type PointerEvent, type RefObject } from 'react';
 import { useNavigate } from 'react-router-dom';
-import { effectivePpi, largestFairOffered, verdictFor } from '../../../../shared/imaging/photo-checks.ts';
-import { orientedArea } from '../../../../shared/imaging/sizing.ts';
-import { formatMoney } from '../../../../shared/money.ts';
-import type { StorefrontCatalog } from '../../../../shared/schemas/catalog.ts';
-import { INSCRIPTION_FONTS, type Inscription } from '../../../../shared/schemas/checkout.ts';
-import type { BuyerPhotoView } from '../../../../shared/schemas/photos.ts';
-import type { PublicStudio } from '../../../../shared/studio.ts';
-import { formatSize } from '../../../../shared/units.ts';
-import { Button } from '../../../components/ui/button.tsx';
-import { Notice } from '../../../components/ui/notice.tsx';
-import { useToast } from '../../../components/ui/toast.tsx';
-import { cx } from '../../../lib/cx.ts';
-import { useCart } from '../../cart/cart-store.ts';
+import { effectivePpi, largestFairOffered, verdictFor } from '#shared/imaging/photo-checks.ts';
+import { orientedArea } from '#shared/imaging/sizing.ts';
+import { formatMoney } from '#shared/money.ts';
+import type { StorefrontCatalog } from '#shared/schemas/catalog.ts';
+import { INSCRIPTION_FONTS, type Inscription } from '#shared/schemas/checkout.ts';
+import type { BuyerPhotoView } from '#shared/schemas/photos.ts';
+import type { PublicStudio } from '#shared/studio.ts';
+import { formatSize } from '#shared/units.ts';
+import { Button } from '#src/components/ui/button.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { useToast } from '#src/components/ui/toast.tsx';
+import { cx } from '#src/lib/cx.ts';
+import { useSteadyValue } from '#src/lib/use-steady-value.ts';
+import { useCart } from '#src/features/cart/index.ts';
 import { clampFraming, MAX_ZOOM, startFraming, toPlacement, type Framing } from '../placement.ts';
 import { useMockup } from '../use-mockup.ts';
 import { drawInscription } from '../inscription.ts';
@@ -22,7 +23,14 @@ type Blank = StorefrontCatalog['blanks'][number];
 type Size = Blank['sizes'][number];
 type Orientation = 'portrait' | 'landscape';
 
-const naturalOrientation = (size: Size): Orientation => (size.orientation === 'landscape' ? 'landscape' : size.orientation === 'portrait' ? 'portrait' : size.areaWidthMm > size.areaHeightMm ? 'landscape' : 'portrait');
+const naturalOrientation = (size: Size): Orientation =>
+  size.orientation === 'landscape'
+    ? 'landscape'
+    : size.orientation === 'portrait'
+      ? 'portrait'
+      : size.areaWidthMm > size.areaHeightMm
+        ? 'landscape'
+        : 'portrait';
 const shapeRadius = { rectangle: '4px', 'rounded-rectangle': '7%', oval: '50%', circle: '50%' } as const;
 const STAGE = { width: 460, height: 520 };
 /** The stage's padding (p-6 on both sides) and the blank's 18-pixel rim around the canvas, both sides. */
@@ -77,18 +85,22 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
   const stage = useRef<HTMLDivElement>(null);
   const stageWidth = useAvailableWidth(stage, STAGE.width, STAGE_PADDING);
   const pxPerMm = Math.min(stageWidth / area.widthMm, STAGE.height / area.heightMm);
-  const canvasSize = { width: Math.round(area.widthMm * pxPerMm), height: Math.round(area.heightMm * pxPerMm) };
-  const placement = photo && framing ? toPlacement(photo, aspect, framing) : undefined;
+  const canvasSize = useSteadyValue({ width: Math.round(area.widthMm * pxPerMm), height: Math.round(area.heightMm * pxPerMm) });
+  const placement = useSteadyValue(photo && framing ? toPlacement(photo, aspect, framing) : undefined);
 
   const mockup = useMockup(photo);
   const canvas = useRef<HTMLCanvasElement>(null);
-  const look = useMemo(() => ({ shape: blank.shape, surfaceColour: blank.material.surfaceColour, markColour: blank.material.markColour, ...blank.look }), [blank]);
+  const look = useMemo(
+    () => ({ shape: blank.shape, surfaceColour: blank.material.surfaceColour, markColour: blank.material.markColour, ...blank.look }),
+    [blank],
+  );
 
+  const { ready: mockupReady, render: renderMockup } = mockup;
   useEffect(() => {
-    if (!placement || !mockup.ready) return;
+    if (!placement || !mockupReady) return;
     // No prep given: the worker uses the recipe's own (`recipePrep`), as the burn will.
-    mockup.render({ size: canvasSize, placement, look, areaWidthMm: area.widthMm, view });
-  }, [mockup.ready, mockup.render, JSON.stringify(placement), canvasSize.width, canvasSize.height, look, view, area.widthMm]); // eslint-disable-line react-hooks/exhaustive-deps
+    renderMockup({ size: canvasSize, placement, look, areaWidthMm: area.widthMm, view });
+  }, [mockupReady, renderMockup, placement, canvasSize, look, view, area.widthMm]);
 
   useEffect(() => {
     const ctx = canvas.current?.getContext('2d');
@@ -96,7 +108,7 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
     ctx.clearRect(0, 0, canvasSize.width, canvasSize.height);
     if (mockup.result) ctx.drawImage(mockup.result.image, 0, 0, canvasSize.width, canvasSize.height);
     if (inscription.on) drawInscription(ctx, inscription, canvasSize, view === 'burn' ? look.markColour : '#ffffff', view === 'photo');
-  }, [mockup.result, inscription, view, look.markColour, canvasSize.width, canvasSize.height]);
+  }, [mockup.result, inscription, view, look.markColour, canvasSize]);
 
   function choosePhoto(next: BuyerPhotoView) {
     setPhoto(next);
@@ -104,7 +116,10 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
     setLowConfirmed(false);
   }
   const frame = (change: (f: Framing) => Framing) => photo && framing && setFraming(clampFraming(photo, aspect, change(framing)));
-  useEffect(() => frame((f) => f), [aspect]); // eslint-disable-line react-hooks/exhaustive-deps
+  // A new aspect (another size or turn) can leave the window outside the photo: pull it back in.
+  useEffect(() => {
+    if (photo) setFraming((f) => f && clampFraming(photo, aspect, f));
+  }, [photo, aspect]);
 
   // Dragging moves the photo under the window: screen pixels → photo pixels at the window's scale.
   const drag = useRef<{ x: number; y: number } | undefined>(undefined);
@@ -120,7 +135,11 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
     drag.current = { x: e.clientX, y: e.clientY };
     const angle = (-framing.rotation * Math.PI) / 180;
     const [rx, ry] = [dx * Math.cos(angle) - dy * Math.sin(angle), dx * Math.sin(angle) + dy * Math.cos(angle)];
-    frame((f) => ({ ...f, centreX: f.centreX - (f.flip ? -rx : rx) * photoPixelsPerScreenPixel, centreY: f.centreY - ry * photoPixelsPerScreenPixel }));
+    frame((f) => ({
+      ...f,
+      centreX: f.centreX - (f.flip ? -rx : rx) * photoPixelsPerScreenPixel,
+      centreY: f.centreY - ry * photoPixelsPerScreenPixel,
+    }));
   };
   const onKeyDown = (e: KeyboardEvent<HTMLCanvasElement>) => {
     const step = 10 * photoPixelsPerScreenPixel;
@@ -141,7 +160,13 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
 
   const ppi = placement ? effectivePpi(placement.crop, area) : undefined;
   const verdict = ppi === undefined ? undefined : verdictFor(ppi);
-  const fairer = placement && verdict === 'too-low' ? largestFairOffered(placement.crop, blank.sizes.map((s) => ({ ...orientedArea(s, orientation), label: s.label, id: s.id }))) : undefined;
+  const fairer =
+    placement && verdict === 'too-low'
+      ? largestFairOffered(
+          placement.crop,
+          blank.sizes.map((s) => ({ ...orientedArea(s, orientation), label: s.label, id: s.id })),
+        )
+      : undefined;
   const refused = verdict === 'too-low' && studio.lowResolutionPolicy === 'refuse';
   const inscriptionLines = inscription.lines.filter((l) => l.trim());
   const problems = [
@@ -162,7 +187,8 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
       quantity,
       photoId: photo.id,
       placement,
-      inscription: inscription.on && inscriptionLines.length ? { lines: inscriptionLines, font: inscription.font, size: inscription.size } : null,
+      inscription:
+        inscription.on && inscriptionLines.length ? { lines: inscriptionLines, font: inscription.font, size: inscription.size } : null,
       rightsConfirmed: true,
       lowResolutionConfirmed: verdict === 'too-low' && lowConfirmed,
       blankName: blank.name,
@@ -184,7 +210,12 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
         <div ref={stage} className="flex w-full items-center justify-center rounded-card bg-graphite-100 p-6 sm:min-h-[560px]">
           <div
             className="relative flex items-center justify-center shadow-lg"
-            style={{ width: canvasSize.width + 36, height: canvasSize.height + 36, background: blank.material.surfaceColour, borderRadius: shapeRadius[blank.shape] }}
+            style={{
+              width: canvasSize.width + 36,
+              height: canvasSize.height + 36,
+              background: blank.material.surfaceColour,
+              borderRadius: shapeRadius[blank.shape],
+            }}
           >
             <canvas
               ref={canvas}
@@ -192,7 +223,11 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
               height={canvasSize.height}
               tabIndex={photo ? 0 : -1}
               role="img"
-              aria-label={photo ? `Mock-up of your photo ${view === 'burn' ? 'as it will burn' : 'as uploaded'}. Drag or use the arrow keys to move it, + and − to zoom.` : 'The engraving area; upload a photo to see it here.'}
+              aria-label={
+                photo
+                  ? `Mock-up of your photo ${view === 'burn' ? 'as it will burn' : 'as uploaded'}. Drag or use the arrow keys to move it, + and − to zoom.`
+                  : 'The engraving area; upload a photo to see it here.'
+              }
               onPointerDown={onPointerDown}
               onPointerMove={onPointerMove}
               onPointerUp={() => (drag.current = undefined)}
@@ -206,16 +241,27 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
         <div className="flex items-center gap-3 text-sm">
           <div role="group" aria-label="Show" className="inline-flex rounded-full bg-white p-1 ring-1 ring-graphite-200">
             {(['burn', 'photo'] as const).map((v) => (
-              <button key={v} type="button" aria-pressed={view === v} onClick={() => setView(v)} className={cx('rounded-full px-3 py-1 font-semibold', view === v ? 'bg-graphite-900 text-white' : 'text-graphite-700')}>
+              <button
+                key={v}
+                type="button"
+                aria-pressed={view === v}
+                onClick={() => setView(v)}
+                className={cx('rounded-full px-3 py-1 font-semibold', view === v ? 'bg-graphite-900 text-white' : 'text-graphite-700')}
+              >
                 {v === 'burn' ? 'As it will burn' : 'Your photo'}
               </button>
             ))}
           </div>
-          {mockup.result && <span className="text-graphite-500" data-testid="render-time">drawn in {Math.round(mockup.result.ms)} ms</span>}
+          {mockup.result && (
+            <span className="text-graphite-500" data-testid="render-time">
+              drawn in {Math.round(mockup.result.ms)} ms
+            </span>
+          )}
         </div>
         {mockup.error && <Notice tone="error">{mockup.error}</Notice>}
         <p className="text-center text-xs text-graphite-500">
-          Engraving area {formatSize(area.widthMm, area.heightMm, studio.units)}. The mock-up shows the dot pattern at screen size; the laser burns it far finer.
+          Engraving area {formatSize(area.widthMm, area.heightMm, studio.units)}. The mock-up shows the dot pattern at screen size; the
+          laser burns it far finer.
         </p>
       </div>
 
@@ -223,7 +269,14 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
         <fieldset className="flex flex-col gap-2">
           <legend className="mb-2 text-sm font-bold uppercase tracking-wide text-graphite-600">1. Size</legend>
           {blank.sizes.map((s) => (
-            <label key={s.id} className={cx('flex items-center justify-between gap-3 rounded-lg border px-4 py-2.5', s.id === size.id ? 'border-accent bg-ember-50' : 'border-graphite-200 bg-white', s.stock === 'sold-out' && 'opacity-50')}>
+            <label
+              key={s.id}
+              className={cx(
+                'flex items-center justify-between gap-3 rounded-lg border px-4 py-2.5',
+                s.id === size.id ? 'border-accent bg-ember-50' : 'border-graphite-200 bg-white',
+                s.stock === 'sold-out' && 'opacity-50',
+              )}
+            >
               <span className="flex items-center gap-3">
                 <input
                   type="radio"
@@ -239,7 +292,9 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
                 />
                 <span>
                   <span className="font-semibold">{s.label}</span>
-                  <span className="block text-xs text-graphite-500">{s.stock === 'sold-out' ? 'Sold out' : s.stock === 'few-left' ? 'Only a few left' : 'In stock'}</span>
+                  <span className="block text-xs text-graphite-500">
+                    {s.stock === 'sold-out' ? 'Sold out' : s.stock === 'few-left' ? 'Only a few left' : 'In stock'}
+                  </span>
                 </span>
               </span>
               <span className="font-bold">{s.price}</span>
@@ -247,9 +302,22 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
           ))}
           {/* A square area reads the same either way round: no choice to offer. */}
           {size.orientation === 'either' && size.areaWidthMm !== size.areaHeightMm && (
-            <div role="group" aria-label="Orientation" className="mt-1 inline-flex self-start rounded-full bg-white p-1 ring-1 ring-graphite-200">
+            <div
+              role="group"
+              aria-label="Orientation"
+              className="mt-1 inline-flex self-start rounded-full bg-white p-1 ring-1 ring-graphite-200"
+            >
               {(['portrait', 'landscape'] as const).map((o) => (
-                <button key={o} type="button" aria-pressed={orientation === o} onClick={() => setOrientation(o)} className={cx('rounded-full px-3 py-1 text-sm font-semibold', orientation === o ? 'bg-graphite-900 text-white' : 'text-graphite-700')}>
+                <button
+                  key={o}
+                  type="button"
+                  aria-pressed={orientation === o}
+                  onClick={() => setOrientation(o)}
+                  className={cx(
+                    'rounded-full px-3 py-1 text-sm font-semibold',
+                    orientation === o ? 'bg-graphite-900 text-white' : 'text-graphite-700',
+                  )}
+                >
                   {o === 'portrait' ? 'Portrait' : 'Landscape'}
                 </button>
               ))}
@@ -261,22 +329,49 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
           <legend className="mb-2 text-sm font-bold uppercase tracking-wide text-graphite-600">2. Photo</legend>
           <PhotoDrop studioSlug={studio.slug} hasPhoto={Boolean(photo)} onPhoto={choosePhoto} />
           {verdict && ppi !== undefined && (
-            <div role="status" className={cx('rounded-lg border px-4 py-3 text-sm', verdict === 'good' ? 'border-moss-600 bg-moss-100 text-moss-800' : verdict === 'fair' ? 'border-ember-300 bg-ember-50 text-ember-800' : 'border-rust-600 bg-rust-100 text-rust-800')}>
+            <div
+              role="status"
+              className={cx(
+                'rounded-lg border px-4 py-3 text-sm',
+                verdict === 'good'
+                  ? 'border-moss-600 bg-moss-100 text-moss-800'
+                  : verdict === 'fair'
+                    ? 'border-ember-300 bg-ember-50 text-ember-800'
+                    : 'border-rust-600 bg-rust-100 text-rust-800',
+              )}
+            >
               <p className="font-bold">
-                {verdict === 'good' ? 'Good resolution' : verdict === 'fair' ? 'Fair resolution' : 'Resolution too low'}: {Math.floor(ppi)} pixels per inch at {formatSize(area.widthMm, area.heightMm, studio.units)}
+                {verdict === 'good' ? 'Good resolution' : verdict === 'fair' ? 'Fair resolution' : 'Resolution too low'}: {Math.floor(ppi)}{' '}
+                pixels per inch at {formatSize(area.widthMm, area.heightMm, studio.units)}
               </p>
               <p>
                 {verdict === 'good' && 'Plenty of detail for a crisp engraving.'}
                 {verdict === 'fair' && 'It will engrave well; a larger photo would be sharper still.'}
-                {verdict === 'too-low' && (fairer ? `Choose ${fairer.label} or upload a larger photo.` : 'Please upload a larger photo: this one has too few pixels for any size offered.')}
+                {verdict === 'too-low' &&
+                  (fairer
+                    ? `Choose ${fairer.label} or upload a larger photo.`
+                    : 'Please upload a larger photo: this one has too few pixels for any size offered.')}
               </p>
             </div>
           )}
-          {photo?.quality.blurry && <Notice tone="caution">This photo looks blurred: the engraving will look soft. A sharper photo gives a better result.</Notice>}
-          {photo && photo.quality.exposure !== 'ok' && <Notice tone="caution">{photo.quality.exposure === 'dark' ? 'Much of this photo is very dark; detail in the shadows will be lost.' : 'Much of this photo is very bright; detail in the highlights will be lost.'}</Notice>}
+          {photo?.quality.blurry && (
+            <Notice tone="caution">This photo looks blurred: the engraving will look soft. A sharper photo gives a better result.</Notice>
+          )}
+          {photo && photo.quality.exposure !== 'ok' && (
+            <Notice tone="caution">
+              {photo.quality.exposure === 'dark'
+                ? 'Much of this photo is very dark; detail in the shadows will be lost.'
+                : 'Much of this photo is very bright; detail in the highlights will be lost.'}
+            </Notice>
+          )}
           {verdict === 'too-low' && !refused && (
             <label className="flex items-start gap-2 text-sm">
-              <input type="checkbox" checked={lowConfirmed} onChange={(e) => setLowConfirmed(e.target.checked)} className="mt-1 accent-[var(--color-accent)]" />
+              <input
+                type="checkbox"
+                checked={lowConfirmed}
+                onChange={(e) => setLowConfirmed(e.target.checked)}
+                className="mt-1 accent-[var(--color-accent)]"
+              />
               Engrave it at this size anyway: I understand it will look soft.
             </label>
           )}
@@ -291,7 +386,16 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
                 <span>Zoom</span>
                 <span className="font-normal text-graphite-600">{framing.zoom.toFixed(2)}×</span>
               </span>
-              <input type="range" aria-label="Zoom" min={1} max={MAX_ZOOM} step={0.01} value={framing.zoom} onChange={(e) => frame((f) => ({ ...f, zoom: Number(e.target.value) }))} className="accent-[var(--color-accent)]" />
+              <input
+                type="range"
+                aria-label="Zoom"
+                min={1}
+                max={MAX_ZOOM}
+                step={0.01}
+                value={framing.zoom}
+                onChange={(e) => frame((f) => ({ ...f, zoom: Number(e.target.value) }))}
+                className="accent-[var(--color-accent)]"
+              />
             </label>
             {/* Quarter turns and fine straightening are kept apart: the slider moves only the last ±15°. */}
             <label className="flex flex-col gap-1 text-sm font-semibold">
@@ -299,7 +403,16 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
                 <span>Straighten</span>
                 <span className="font-normal text-graphite-600">{formatDegrees(straightening(framing.rotation))}</span>
               </span>
-              <input type="range" aria-label="Straighten" min={-MAX_STRAIGHTEN} max={MAX_STRAIGHTEN} step={0.5} value={straightening(framing.rotation)} onChange={(e) => frame((f) => ({ ...f, rotation: quarterTurnsOf(f.rotation) * 90 + Number(e.target.value) }))} className="accent-[var(--color-accent)]" />
+              <input
+                type="range"
+                aria-label="Straighten"
+                min={-MAX_STRAIGHTEN}
+                max={MAX_STRAIGHTEN}
+                step={0.5}
+                value={straightening(framing.rotation)}
+                onChange={(e) => frame((f) => ({ ...f, rotation: quarterTurnsOf(f.rotation) * 90 + Number(e.target.value) }))}
+                className="accent-[var(--color-accent)]"
+              />
             </label>
             <div className="flex flex-wrap gap-2">
               <Button size="sm" variant="secondary" onClick={() => frame((f) => ({ ...f, rotation: turned(f.rotation, -90) }))}>
@@ -311,10 +424,20 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
               <Button size="sm" variant="secondary" aria-pressed={framing.flip} onClick={() => frame((f) => ({ ...f, flip: !f.flip }))}>
                 Mirror
               </Button>
-              <Button size="sm" variant="secondary" aria-pressed={framing.mode === 'fill'} onClick={() => frame((f) => ({ ...startFraming(photo, 'fill'), rotation: f.rotation, flip: f.flip }))}>
+              <Button
+                size="sm"
+                variant="secondary"
+                aria-pressed={framing.mode === 'fill'}
+                onClick={() => frame((f) => ({ ...startFraming(photo, 'fill'), rotation: f.rotation, flip: f.flip }))}
+              >
                 Fill the area
               </Button>
-              <Button size="sm" variant="secondary" aria-pressed={framing.mode === 'fit'} onClick={() => frame((f) => ({ ...startFraming(photo, 'fit'), rotation: f.rotation, flip: f.flip }))}>
+              <Button
+                size="sm"
+                variant="secondary"
+                aria-pressed={framing.mode === 'fit'}
+                onClick={() => frame((f) => ({ ...startFraming(photo, 'fit'), rotation: f.rotation, flip: f.flip }))}
+              >
                 Show it all
               </Button>
             </div>
@@ -331,7 +454,12 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
         <fieldset className="flex flex-col gap-3">
           <legend className="mb-2 text-sm font-bold uppercase tracking-wide text-graphite-600">4. Words (optional)</legend>
           <label className="flex items-center gap-2 text-sm">
-            <input type="checkbox" checked={inscription.on} onChange={(e) => setInscription({ ...inscription, on: e.target.checked })} className="accent-[var(--color-accent)]" />
+            <input
+              type="checkbox"
+              checked={inscription.on}
+              onChange={(e) => setInscription({ ...inscription, on: e.target.checked })}
+              className="accent-[var(--color-accent)]"
+            />
             Add a line of text under the photo
           </label>
           {inscription.on && (
@@ -354,7 +482,11 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
               <div className="flex gap-3">
                 <label className="flex flex-1 flex-col gap-1 text-sm font-semibold">
                   Lettering
-                  <select value={inscription.font} onChange={(e) => setInscription({ ...inscription, font: e.target.value as Inscription['font'] })} className="h-10 rounded-lg border border-graphite-200 px-2 font-normal">
+                  <select
+                    value={inscription.font}
+                    onChange={(e) => setInscription({ ...inscription, font: e.target.value as Inscription['font'] })}
+                    className="h-10 rounded-lg border border-graphite-200 px-2 font-normal"
+                  >
                     {Object.entries(INSCRIPTION_FONTS).map(([value, label]) => (
                       <option key={value} value={value}>
                         {label}
@@ -364,7 +496,15 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
                 </label>
                 <label className="flex flex-1 flex-col gap-1 text-sm font-semibold">
                   Size
-                  <input type="range" min={0.04} max={0.2} step={0.005} value={inscription.size} onChange={(e) => setInscription({ ...inscription, size: Number(e.target.value) })} className="accent-[var(--color-accent)]" />
+                  <input
+                    type="range"
+                    min={0.04}
+                    max={0.2}
+                    step={0.005}
+                    value={inscription.size}
+                    onChange={(e) => setInscription({ ...inscription, size: Number(e.target.value) })}
+                    className="accent-[var(--color-accent)]"
+                  />
                 </label>
               </div>
             </div>
@@ -373,13 +513,25 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
 
         <div className="flex flex-col gap-3 border-t border-graphite-100 pt-4">
           <label className="flex items-start gap-2 text-sm">
-            <input type="checkbox" checked={rights} onChange={(e) => setRights(e.target.checked)} className="mt-1 accent-[var(--color-accent)]" />
+            <input
+              type="checkbox"
+              checked={rights}
+              onChange={(e) => setRights(e.target.checked)}
+              className="mt-1 accent-[var(--color-accent)]"
+            />
             I took this photo or have permission to use it.
           </label>
           <div className="flex items-end gap-3">
             <label className="flex w-24 flex-col gap-1 text-sm font-semibold">
               Quantity
-              <input type="number" min={1} max={20} value={quantity} onChange={(e) => setQuantity(Math.min(20, Math.max(1, Number(e.target.value) || 1)))} className="h-10 rounded-lg border border-graphite-200 px-3 font-normal" />
+              <input
+                type="number"
+                min={1}
+                max={20}
+                value={quantity}
+                onChange={(e) => setQuantity(Math.min(20, Math.max(1, Number(e.target.value) || 1)))}
+                className="h-10 rounded-lg border border-graphite-200 px-3 font-normal"
+              />
             </label>
             <Button size="lg" className="flex-1" onClick={addToCart} disabled={size.stock === 'sold-out' || refused}>
               Add to cart · {formatMoney(size.priceMinor * quantity, studio.currency)}

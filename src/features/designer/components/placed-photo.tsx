@@ -1,7 +1,8 @@
 import { useEffect, useRef } from 'react';
-import type { Placement } from '../../../../shared/schemas/checkout.ts';
-import type { PrepSettings } from '../../../../shared/schemas/prep.ts';
+import type { Placement } from '#shared/schemas/checkout.ts';
+import type { PrepSettings } from '#shared/schemas/prep.ts';
 import type { MockupLook } from '../mockup-protocol.ts';
+import { useSteadyValue } from '#src/lib/use-steady-value.ts';
 import { useMockup } from '../use-mockup.ts';
 
 /**
@@ -9,12 +10,32 @@ import { useMockup } from '../use-mockup.ts';
  * will burn, inside the blank's shape. Drawn by the mock-up worker from the same placement the
  * engrave file uses, with `prep` (at the burn's resolution; the recipe's own when absent).
  */
-export function PlacedPhoto({ photo, placement, look, areaWidthMm, size, view, label, prep }: { photo: { previewUrl: string; previewWidth: number; width: number }; placement: Placement; look: MockupLook; areaWidthMm: number; size: { width: number; height: number }; view: 'photo' | 'burn'; label: string; prep?: PrepSettings }) {
+export function PlacedPhoto({
+  photo,
+  placement,
+  look,
+  areaWidthMm,
+  size,
+  view,
+  label,
+  prep,
+}: {
+  photo: { previewUrl: string; previewWidth: number; width: number };
+  placement: Placement;
+  look: MockupLook;
+  areaWidthMm: number;
+  size: { width: number; height: number };
+  view: 'photo' | 'burn';
+  label: string;
+  prep?: PrepSettings;
+}) {
   const mockup = useMockup(photo);
   const canvas = useRef<HTMLCanvasElement>(null);
+  const job = useSteadyValue({ size, placement, look, areaWidthMm, view, prep });
+  const { ready, render } = mockup;
   useEffect(() => {
-    if (mockup.ready) mockup.render({ size, placement, look, areaWidthMm, view, prep });
-  }, [mockup.ready, JSON.stringify(placement), JSON.stringify(prep), JSON.stringify(look), areaWidthMm, size.width, size.height, view]); // eslint-disable-line react-hooks/exhaustive-deps
+    if (ready) render(job);
+  }, [ready, render, job]);
   useEffect(() => {
     const ctx = canvas.current?.getContext('2d');
     if (!ctx || !mockup.result) return;

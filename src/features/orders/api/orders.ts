@@ -1,6 +1,13 @@
 import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { orderListSchema, reviewQueueSchema, staffOrderSchema, type AskNewPhotoInput, type OrderListQuery, type ReviewItem } from '../../../../shared/schemas/workspace-orders.ts';
-import { apiFetch } from '../../../lib/api-client.ts';
+import {
+  orderListSchema,
+  reviewQueueSchema,
+  staffOrderSchema,
+  type AskNewPhotoInput,
+  type OrderListQuery,
+  type ReviewItem,
+} from '#shared/schemas/workspace-orders.ts';
+import { apiFetch } from '#src/lib/api-client.ts';
 
 const base = (slug: string) => `/api/studios/${encodeURIComponent(slug)}`;
 
@@ -8,10 +15,22 @@ export const orderQueries = {
   all: (slug: string) => ['orders', slug] as const,
   list: (slug: string, query: OrderListQuery) => {
     const params = new URLSearchParams(Object.entries(query).flatMap(([k, v]) => (v === undefined || v === '' ? [] : [[k, String(v)]])));
-    return queryOptions({ queryKey: ['orders', slug, 'list', query], queryFn: ({ signal }) => apiFetch(`${base(slug)}/orders?${params}`, { schema: orderListSchema, signal }), placeholderData: keepPreviousData });
+    return queryOptions({
+      queryKey: ['orders', slug, 'list', query],
+      queryFn: ({ signal }) => apiFetch(`${base(slug)}/orders?${params}`, { schema: orderListSchema, signal }),
+      placeholderData: keepPreviousData,
+    });
   },
-  detail: (slug: string, orderId: string) => queryOptions({ queryKey: ['orders', slug, 'detail', orderId], queryFn: ({ signal }) => apiFetch(`${base(slug)}/orders/${orderId}`, { schema: staffOrderSchema, signal }) }),
-  review: (slug: string) => queryOptions({ queryKey: ['orders', slug, 'review'], queryFn: ({ signal }) => apiFetch(`${base(slug)}/review-queue`, { schema: reviewQueueSchema, signal }) }),
+  detail: (slug: string, orderId: string) =>
+    queryOptions({
+      queryKey: ['orders', slug, 'detail', orderId],
+      queryFn: ({ signal }) => apiFetch(`${base(slug)}/orders/${orderId}`, { schema: staffOrderSchema, signal }),
+    }),
+  review: (slug: string) =>
+    queryOptions({
+      queryKey: ['orders', slug, 'review'],
+      queryFn: ({ signal }) => apiFetch(`${base(slug)}/review-queue`, { schema: reviewQueueSchema, signal }),
+    }),
 };
 
 export const useOrderList = (slug: string, query: OrderListQuery) => useQuery(orderQueries.list(slug, query));
@@ -35,9 +54,12 @@ function useReviewMove<T extends { itemId: string }>(slug: string, run: (input: 
   });
 }
 
-export const useApprovePhoto = (slug: string) => useReviewMove(slug, ({ itemId }: { itemId: string }) => apiFetch(`${base(slug)}/items/${itemId}/approve-photo`, { method: 'POST' }));
+export const useApprovePhoto = (slug: string) =>
+  useReviewMove(slug, ({ itemId }: { itemId: string }) => apiFetch(`${base(slug)}/items/${itemId}/approve-photo`, { method: 'POST' }));
 export const useAskNewPhoto = (slug: string) =>
-  useReviewMove(slug, ({ itemId, ...input }: { itemId: string } & AskNewPhotoInput) => apiFetch(`${base(slug)}/items/${itemId}/ask-new-photo`, { method: 'POST', body: input }));
+  useReviewMove(slug, ({ itemId, ...input }: { itemId: string } & AskNewPhotoInput) =>
+    apiFetch(`${base(slug)}/items/${itemId}/ask-new-photo`, { method: 'POST', body: input }),
+  );
 
 /** Refunds and cancellations refresh the order and the lists. */
 function useOrderMoney<T>(slug: string, run: (input: T) => Promise<unknown>) {
@@ -45,5 +67,8 @@ function useOrderMoney<T>(slug: string, run: (input: T) => Promise<unknown>) {
   return useMutation({ mutationFn: run, onSettled: () => queryClient.invalidateQueries({ queryKey: orderQueries.all(slug) }) });
 }
 export const useRefund = (slug: string, orderId: string) =>
-  useOrderMoney(slug, (input: { amountMinor?: number; reason: string }) => apiFetch(`${base(slug)}/orders/${orderId}/refunds`, { method: 'POST', body: input }));
-export const useCancelOrder = (slug: string, orderId: string) => useOrderMoney(slug, (input: { reason: string }) => apiFetch(`${base(slug)}/orders/${orderId}/cancel`, { method: 'POST', body: input }));
+  useOrderMoney(slug, (input: { amountMinor?: number; reason: string }) =>
+    apiFetch(`${base(slug)}/orders/${orderId}/refunds`, { method: 'POST', body: input }),
+  );
+export const useCancelOrder = (slug: string, orderId: string) =>
+  useOrderMoney(slug, (input: { reason: string }) => apiFetch(`${base(slug)}/orders/${orderId}/cancel`, { method: 'POST', body: input }));

@@ -1,7 +1,7 @@
 import { useEffect, useRef, useState, type PointerEvent as ReactPointerEvent } from 'react';
-import type { Cutout, CutoutStroke } from '../../../../shared/schemas/prep.ts';
-import { Button } from '../../../components/ui/button.tsx';
-import { cx } from '../../../lib/cx.ts';
+import type { Cutout, CutoutStroke } from '#shared/schemas/prep.ts';
+import { Button } from '#src/components/ui/button.tsx';
+import { cx } from '#src/lib/cx.ts';
 
 export type Brush = { mode: CutoutStroke['mode']; size: number };
 
@@ -10,7 +10,17 @@ export type Brush = { mode: CutoutStroke['mode']; size: number };
  * 0–1 coordinates, so a stroke means the same on screen and at the machine's resolution. The
  * stroke shows while it is drawn; once let go, it is handed over and the preview redraws with it.
  */
-export function BrushOverlay({ size, brush, onStroke, label }: { size: { width: number; height: number }; brush: Brush; onStroke: (stroke: CutoutStroke) => void; label: string }) {
+export function BrushOverlay({
+  size,
+  brush,
+  onStroke,
+  label,
+}: {
+  size: { width: number; height: number };
+  brush: Brush;
+  onStroke: (stroke: CutoutStroke) => void;
+  label: string;
+}) {
   const canvas = useRef<HTMLCanvasElement>(null);
   const points = useRef<Array<[number, number]>>([]);
   const [drawing, setDrawing] = useState(false);
@@ -82,7 +92,16 @@ export function BrushOverlay({ size, brush, onStroke, label }: { size: { width: 
 }
 
 /** The cut-out's controls: where it starts, the brush, and undo / redo over the strokes. */
-export function CutoutControls({ cutout, brush, redo, disabled, onChange, onBrush, onUndo, onRedo }: {
+export function CutoutControls({
+  cutout,
+  brush,
+  redo,
+  disabled,
+  onChange,
+  onBrush,
+  onUndo,
+  onRedo,
+}: {
   cutout: Cutout;
   brush: Brush;
   redo: number;
@@ -112,15 +131,35 @@ export function CutoutControls({ cutout, brush, redo, disabled, onChange, onBrus
       <fieldset className="flex flex-col gap-1" disabled={disabled}>
         <legend className="mb-1 font-semibold">Start from</legend>
         <label className="flex items-center gap-2">
-          <input type="radio" name="cutout-start" checked={cutout.start === 'whole'} onChange={() => onChange({ ...cutout, start: 'whole' })} /> The whole photo
+          <input
+            type="radio"
+            name="cutout-start"
+            checked={cutout.start === 'whole'}
+            onChange={() => onChange({ ...cutout, start: 'whole' })}
+          />{' '}
+          The whole photo
         </label>
         <label className="flex items-center gap-2">
-          <input type="radio" name="cutout-start" checked={cutout.start === 'plain-background'} onChange={() => onChange({ ...cutout, start: 'plain-background' })} /> Without a plain background
+          <input
+            type="radio"
+            name="cutout-start"
+            checked={cutout.start === 'plain-background'}
+            onChange={() => onChange({ ...cutout, start: 'plain-background' })}
+          />{' '}
+          Without a plain background
         </label>
         {cutout.start === 'plain-background' && (
           <label className="mt-1 flex items-center gap-3">
             <span className="w-36">Background likeness</span>
-            <input type="range" min={4} max={120} value={cutout.tolerance} onChange={(e) => onChange({ ...cutout, tolerance: Number(e.target.value) })} aria-label="Background likeness" className="flex-1" />
+            <input
+              type="range"
+              min={4}
+              max={120}
+              value={cutout.tolerance}
+              onChange={(e) => onChange({ ...cutout, tolerance: Number(e.target.value) })}
+              aria-label="Background likeness"
+              className="flex-1"
+            />
             <span className="w-8 text-right tabular-nums">{cutout.tolerance}</span>
           </label>
         )}
@@ -135,7 +174,14 @@ export function CutoutControls({ cutout, brush, redo, disabled, onChange, onBrus
               role="radio"
               aria-checked={brush.mode === mode}
               onClick={() => onBrush({ ...brush, mode })}
-              className={cx('rounded-lg px-3 py-1.5 font-semibold ring-1 ring-inset', brush.mode === mode ? (mode === 'keep' ? 'bg-moss-100 text-moss-800 ring-moss-600' : 'bg-rust-100 text-rust-800 ring-rust-600') : 'bg-white ring-graphite-200')}
+              className={cx(
+                'rounded-lg px-3 py-1.5 font-semibold ring-1 ring-inset',
+                brush.mode === mode
+                  ? mode === 'keep'
+                    ? 'bg-moss-100 text-moss-800 ring-moss-600'
+                    : 'bg-rust-100 text-rust-800 ring-rust-600'
+                  : 'bg-white ring-graphite-200',
+              )}
             >
               {mode === 'keep' ? 'Keep' : 'Remove'}
             </button>
@@ -143,7 +189,15 @@ export function CutoutControls({ cutout, brush, redo, disabled, onChange, onBrus
         </div>
         <label className="flex items-center gap-3">
           <span className="w-36">Brush size</span>
-          <input type="range" min={1} max={25} value={Math.round(brush.size * 100)} onChange={(e) => onBrush({ ...brush, size: Number(e.target.value) / 100 })} aria-label="Brush size" className="flex-1" />
+          <input
+            type="range"
+            min={1}
+            max={25}
+            value={Math.round(brush.size * 100)}
+            onChange={(e) => onBrush({ ...brush, size: Number(e.target.value) / 100 })}
+            aria-label="Brush size"
+            className="flex-1"
+          />
           <span className="w-8 text-right tabular-nums">{Math.round(brush.size * 100)} %</span>
         </label>
       </fieldset>
@@ -154,7 +208,12 @@ export function CutoutControls({ cutout, brush, redo, disabled, onChange, onBrus
         <Button size="sm" variant="secondary" disabled={disabled || !redo} onClick={onRedo}>
           Redo
         </Button>
-        <Button size="sm" variant="quiet" disabled={disabled || !cutout.strokes.length} onClick={() => onChange({ ...cutout, strokes: [] })}>
+        <Button
+          size="sm"
+          variant="quiet"
+          disabled={disabled || !cutout.strokes.length}
+          onClick={() => onChange({ ...cutout, strokes: [] })}
+        >
           Clear strokes
         </Button>
         <span className="text-graphite-600">{cutout.strokes.length === 1 ? '1 stroke' : `${cutout.strokes.length} strokes`}</span>

@@ -1,12 +1,12 @@
 import { useState } from 'react';
-import { parseMoneyInput } from '../../../../shared/money.ts';
-import type { OrderView } from '../../../../shared/schemas/checkout.ts';
-import { Button } from '../../../components/ui/button.tsx';
-import { Dialog } from '../../../components/ui/dialog.tsx';
-import { TextAreaField } from '../../../components/ui/field.tsx';
-import { Notice } from '../../../components/ui/notice.tsx';
-import { TextField } from '../../../components/ui/text-field.tsx';
-import { useToast } from '../../../components/ui/toast.tsx';
+import { parseMoneyInput } from '#shared/money.ts';
+import type { OrderView } from '#shared/schemas/checkout.ts';
+import { Button } from '#src/components/ui/button.tsx';
+import { Dialog } from '#src/components/ui/dialog.tsx';
+import { TextAreaField } from '#src/components/ui/field.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { TextField } from '#src/components/ui/text-field.tsx';
+import { useToast } from '#src/components/ui/toast.tsx';
 import { useCancelOrder, useRefund } from '../api/orders.ts';
 
 /** Owners' refund and cancel buttons on an order, each behind a dialog that asks why. */
@@ -58,11 +58,24 @@ export function MoneyActions({ slug, order }: { slug: string; order: OrderView }
           e.preventDefault();
           void submit();
         }}
-        confirm={{ label: open === 'refund' ? 'Send the refund' : 'Cancel the order', danger: open === 'cancel', busy: refund.isPending || cancel.isPending }}
+        confirm={{
+          label: open === 'refund' ? 'Send the refund' : 'Cancel the order',
+          danger: open === 'cancel',
+          busy: refund.isPending || cancel.isPending,
+        }}
       >
         <div className="flex flex-col gap-4">
           {error && <Notice tone="error">{error}</Notice>}
-          {open === 'refund' && <TextField label="Amount" inputMode="decimal" suffix={order.currency} value={amount} onChange={(e) => setAmount(e.target.value)} hint={`Leave empty to refund all that is left of ${order.total}.`} />}
+          {open === 'refund' && (
+            <TextField
+              label="Amount"
+              inputMode="decimal"
+              suffix={order.currency}
+              value={amount}
+              onChange={(e) => setAmount(e.target.value)}
+              hint={`Leave empty to refund all that is left of ${order.total}.`}
+            />
+          )}
           {open === 'cancel' && <p>Items not yet being engraved are cancelled, their stock goes back, and what was paid is refunded.</p>}
           <TextAreaField label="Reason (the buyer sees it)" value={reason} onChange={(e) => setReason(e.target.value)} maxLength={300} />
         </div>

@@ -1,4 +1,4 @@
-import type { OrderView } from '../../../../shared/schemas/checkout.ts';
+import type { OrderView } from '#shared/schemas/checkout.ts';
 
 /** An order's events, oldest first, with when each happened: the buyer's and the studio's view. */
 export function OrderTimeline({ events }: { events: OrderView['events'] }) {

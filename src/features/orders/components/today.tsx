@@ -1,16 +1,19 @@
 import { Link } from 'react-router-dom';
 import { useQuery } from '@tanstack/react-query';
 import { Bar, BarChart, CartesianGrid, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
-import { formatMoney, minorUnitDigits } from '../../../../shared/money.ts';
-import { ITEM_STAGE_LABELS } from '../../../../shared/orders/stages.ts';
-import { todaySchema } from '../../../../shared/schemas/workspace-orders.ts';
-import { Card, CardTitle } from '../../../components/ui/card.tsx';
-import { Notice } from '../../../components/ui/notice.tsx';
-import { apiFetch } from '../../../lib/api-client.ts';
+import { formatMoney, minorUnitDigits } from '#shared/money.ts';
+import { ITEM_STAGE_LABELS } from '#shared/orders/stages.ts';
+import { todaySchema } from '#shared/schemas/workspace-orders.ts';
+import { Card, CardTitle } from '#src/components/ui/card.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { apiFetch } from '#src/lib/api-client.ts';
 
 /** Work waiting by stage, the items waiting longest, and orders and revenue per week (recharts). */
 export function TodayPanel({ slug }: { slug: string }) {
-  const today = useQuery({ queryKey: ['orders', slug, 'today'], queryFn: ({ signal }) => apiFetch(`/api/studios/${encodeURIComponent(slug)}/today`, { schema: todaySchema, signal }) });
+  const today = useQuery({
+    queryKey: ['orders', slug, 'today'],
+    queryFn: ({ signal }) => apiFetch(`/api/studios/${encodeURIComponent(slug)}/today`, { schema: todaySchema, signal }),
+  });
   if (today.error) return <Notice tone="error">{today.error.message}</Notice>;
   if (!today.data) return <p className="text-graphite-500">Loading today’s work…</p>;
   const { byStage, oldest, weeks, currency } = today.data;
@@ -53,7 +56,11 @@ export function TodayPanel({ slug }: { slug: string }) {
         </Card>
         <Card>
           <CardTitle>Orders per week</CardTitle>
-          <div className="h-48" role="img" aria-label={`Orders per week, last ${weeks.length} weeks: ${weeks.map((w) => w.orders).join(', ')}`}>
+          <div
+            className="h-48"
+            role="img"
+            aria-label={`Orders per week, last ${weeks.length} weeks: ${weeks.map((w) => w.orders).join(', ')}`}
+          >
             <ResponsiveContainer width="100%" height="100%">
               <BarChart data={chartWeeks}>
                 <CartesianGrid strokeDasharray="3 3" vertical={false} />
@@ -67,13 +74,20 @@ export function TodayPanel({ slug }: { slug: string }) {
         </Card>
         <Card>
           <CardTitle>Revenue per week</CardTitle>
-          <div className="h-48" role="img" aria-label={`Revenue per week after refunds, last ${weeks.length} weeks: ${weeks.map((w) => formatMoney(w.revenueMinor, currency)).join(', ')}`}>
+          <div
+            className="h-48"
+            role="img"
+            aria-label={`Revenue per week after refunds, last ${weeks.length} weeks: ${weeks.map((w) => formatMoney(w.revenueMinor, currency)).join(', ')}`}
+          >
             <ResponsiveContainer width="100%" height="100%">
               <BarChart data={chartWeeks}>
                 <CartesianGrid strokeDasharray="3 3" vertical={false} />
                 <XAxis dataKey="week" tick={{ fontSize: 11 }} />
                 <YAxis width={44} tick={{ fontSize: 11 }} />
-                <Tooltip labelFormatter={weekLabel} formatter={(value) => formatMoney(Math.round(Number(value) * 10 ** digits), currency)} />
+                <Tooltip
+                  labelFormatter={weekLabel}
+                  formatter={(value) => formatMoney(Math.round(Number(value) * 10 ** digits), currency)}
+                />
                 <Bar dataKey="revenue" name="Revenue" fill="#4c7a3a" />
               </BarChart>
             </ResponsiveContainer>

@@ -1,13 +1,13 @@
 import { useState, type FormEvent } from 'react';
-import type { OrderView } from '../../../../shared/schemas/checkout.ts';
-import { shipInputSchema } from '../../../../shared/schemas/production.ts';
-import { Button } from '../../../components/ui/button.tsx';
-import { Card, CardTitle } from '../../../components/ui/card.tsx';
-import { Notice } from '../../../components/ui/notice.tsx';
-import { TextField } from '../../../components/ui/text-field.tsx';
-import { useToast } from '../../../components/ui/toast.tsx';
+import type { OrderView } from '#shared/schemas/checkout.ts';
+import { shipInputSchema } from '#shared/schemas/production.ts';
+import { Button } from '#src/components/ui/button.tsx';
+import { Card, CardTitle } from '#src/components/ui/card.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { TextField } from '#src/components/ui/text-field.tsx';
+import { useToast } from '#src/components/ui/toast.tsx';
 import { useHandOver } from '../api/production.ts';
-import { useChosen } from '../../../lib/use-chosen.ts';
+import { useChosen } from '#src/lib/use-chosen.ts';
 
 /**
  * Burned items leave the studio: in a parcel with the carrier and tracking number, or handed to
@@ -31,7 +31,11 @@ export function HandoverForm({ slug, order }: { slug: string; order: OrderView }
     if (!parsed.success) return setErrors(Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0]), i.message])));
     setErrors({});
     handOver.mutate(parsed.data, {
-      onSuccess: () => toast.show(method === 'ship' ? 'Marked shipped; the buyer has the tracking number.' : 'Marked picked up; the buyer has been told.', 'success'),
+      onSuccess: () =>
+        toast.show(
+          method === 'ship' ? 'Marked shipped; the buyer has the tracking number.' : 'Marked picked up; the buyer has been told.',
+          'success',
+        ),
       onError: (e) => toast.show(e.message, 'error'),
     });
   }
@@ -61,11 +65,25 @@ export function HandoverForm({ slug, order }: { slug: string; order: OrderView }
         </fieldset>
         {method === 'ship' && (
           <div className="grid gap-3 sm:grid-cols-2">
-            <TextField label="Carrier" value={carrier} onChange={(e) => setCarrier(e.target.value)} error={errors.carrier} autoComplete="off" />
-            <TextField label="Tracking number" value={trackingNumber} onChange={(e) => setTrackingNumber(e.target.value)} error={errors.trackingNumber} autoComplete="off" />
+            <TextField
+              label="Carrier"
+              value={carrier}
+              onChange={(e) => setCarrier(e.target.value)}
+              error={errors.carrier}
+              autoComplete="off"
+            />
+            <TextField
+              label="Tracking number"
+              value={trackingNumber}
+              onChange={(e) => setTrackingNumber(e.target.value)}
+              error={errors.trackingNumber}
+              autoComplete="off"
+            />
           </div>
         )}
-        {order.delivery.method === 'pickup' && method === 'ship' && <Notice tone="caution">The buyer chose pickup; ship only if they asked you to.</Notice>}
+        {order.delivery.method === 'pickup' && method === 'ship' && (
+          <Notice tone="caution">The buyer chose pickup; ship only if they asked you to.</Notice>
+        )}
         <div>
           <Button type="submit" busy={handOver.isPending}>
             {method === 'ship' ? 'Mark shipped and tell the buyer' : 'Mark picked up and tell the buyer'}

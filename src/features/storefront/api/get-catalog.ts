@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { storefrontCatalogSchema } from '../../../../shared/schemas/catalog.ts';
-import { apiFetch } from '../../../lib/api-client.ts';
+import { storefrontCatalogSchema } from '#shared/schemas/catalog.ts';
+import { apiFetch } from '#src/lib/api-client.ts';
 
 export const storefrontCatalogQueries = {
   blanks: (slug: string) =>

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { publicStudioSchema } from '../../../../shared/studio.ts';
-import { apiFetch } from '../../../lib/api-client.ts';
+import { publicStudioSchema } from '#shared/studio.ts';
+import { apiFetch } from '#src/lib/api-client.ts';
 
 export const getPublicStudio = (slug: string, signal?: AbortSignal) =>
   apiFetch(`/api/storefront/${encodeURIComponent(slug)}`, { schema: publicStudioSchema, signal });

@@ -1,8 +1,8 @@
-import type { StorefrontCatalog } from '../../../../shared/schemas/catalog.ts';
-import { formatSize, type LengthUnit } from '../../../../shared/units.ts';
+import type { StorefrontCatalog } from '#shared/schemas/catalog.ts';
+import { formatSize, type LengthUnit } from '#shared/units.ts';
 import { Link } from 'react-router-dom';
-import { Card } from '../../../components/ui/card.tsx';
-import { buttonClasses } from '../../../components/ui/button.tsx';
+import { Card } from '#src/components/ui/card.tsx';
+import { buttonClasses } from '#src/components/ui/button.tsx';
 
 const stockWords = { 'in-stock': 'In stock', 'few-left': 'Only a few left', 'sold-out': 'Sold out' } as const;
 const shapeRadius = { rectangle: '6px', 'rounded-rectangle': '18px', oval: '50% / 40%', circle: '50%' } as const;
@@ -15,12 +15,23 @@ export function BlankList({ studioSlug, blanks, units }: { studioSlug: string; b
         <li key={blank.id}>
           <Card className="relative flex h-full flex-col gap-4 transition hover:shadow-md">
             {blank.photos[0] ? (
-              <img src={blank.photos[0].url} alt={blank.name} width={blank.photos[0].width} height={blank.photos[0].height} loading="lazy" className="-mx-6 -mt-6 aspect-[4/3] w-[calc(100%+3rem)] max-w-none rounded-t-card object-cover" />
+              <img
+                src={blank.photos[0].url}
+                alt={blank.name}
+                width={blank.photos[0].width}
+                height={blank.photos[0].height}
+                loading="lazy"
+                className="-mx-6 -mt-6 aspect-[4/3] w-[calc(100%+3rem)] max-w-none rounded-t-card object-cover"
+              />
             ) : (
               <div
                 aria-hidden
                 className={`mx-auto flex items-center justify-center text-xs font-bold ${blank.shape === 'circle' ? 'h-28 w-28' : 'h-32 w-28'}`}
-                style={{ background: blank.material.surfaceColour, color: blank.material.markColour, borderRadius: shapeRadius[blank.shape] }}
+                style={{
+                  background: blank.material.surfaceColour,
+                  color: blank.material.markColour,
+                  borderRadius: shapeRadius[blank.shape],
+                }}
               >
                 {blank.material.name.split(' ')[0]}
               </div>
@@ -47,7 +58,9 @@ export function BlankList({ studioSlug, blanks, units }: { studioSlug: string; b
                     </th>
                     <td className="py-1.5 text-right">
                       <span className="font-bold">{s.price}</span>
-                      <span className={`block text-xs ${s.stock === 'sold-out' ? 'text-rust-600' : 'text-graphite-500'}`}>{stockWords[s.stock]}</span>
+                      <span className={`block text-xs ${s.stock === 'sold-out' ? 'text-rust-600' : 'text-graphite-500'}`}>
+                        {stockWords[s.stock]}
+                      </span>
                     </td>
                   </tr>
                 ))}

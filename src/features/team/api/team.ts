@@ -1,13 +1,14 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { inviteSchema, teamSchema, type CreateInviteInput } from '../../../../shared/schemas/team.ts';
-import type { Role } from '../../../../shared/permissions.ts';
-import { apiFetch } from '../../../lib/api-client.ts';
+import { inviteSchema, teamSchema, type CreateInviteInput } from '#shared/schemas/team.ts';
+import type { Role } from '#shared/permissions.ts';
+import { apiFetch } from '#src/lib/api-client.ts';
 
 const base = (slug: string) => `/api/studios/${encodeURIComponent(slug)}/team`;
 
 export const teamQueries = {
   all: ['team'] as const,
-  detail: (slug: string) => queryOptions({ queryKey: [...teamQueries.all, slug], queryFn: ({ signal }) => apiFetch(base(slug), { schema: teamSchema, signal }) }),
+  detail: (slug: string) =>
+    queryOptions({ queryKey: [...teamQueries.all, slug], queryFn: ({ signal }) => apiFetch(base(slug), { schema: teamSchema, signal }) }),
 };
 
 export const useTeam = (slug: string) => useQuery(teamQueries.detail(slug));
@@ -19,8 +20,14 @@ function useTeamMutation<T>(slug: string, run: (input: T) => Promise<unknown>) {
 }
 
 export const useInvite = (slug: string) =>
-  useTeamMutation(slug, (input: CreateInviteInput) => apiFetch(`${base(slug)}/invites`, { method: 'POST', body: input, schema: inviteSchema }));
-export const useWithdrawInvite = (slug: string) => useTeamMutation(slug, (inviteId: string) => apiFetch(`${base(slug)}/invites/${inviteId}`, { method: 'DELETE' }));
+  useTeamMutation(slug, (input: CreateInviteInput) =>
+    apiFetch(`${base(slug)}/invites`, { method: 'POST', body: input, schema: inviteSchema }),
+  );
+export const useWithdrawInvite = (slug: string) =>
+  useTeamMutation(slug, (inviteId: string) => apiFetch(`${base(slug)}/invites/${inviteId}`, { method: 'DELETE' }));
 export const useChangeRole = (slug: string) =>
-  useTeamMutation(slug, ({ memberId, role }: { memberId: string; role: Role }) => apiFetch(`${base(slug)}/members/${memberId}`, { method: 'PATCH', body: { role } }));
-export const useRemoveMember = (slug: string) => useTeamMutation(slug, (memberId: string) => apiFetch(`${base(slug)}/members/${memberId}`, { method: 'DELETE' }));
+  useTeamMutation(slug, ({ memberId, role }: { memberId: string; role: Role }) =>
+    apiFetch(`${base(slug)}/members/${memberId}`, { method: 'PATCH', body: { role } }),
+  );
+export const useRemoveMember = (slug: string) =>
+  useTeamMutation(slug, (memberId: string) => apiFetch(`${base(slug)}/members/${memberId}`, { method: 'DELETE' }));

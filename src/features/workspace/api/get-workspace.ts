@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
-import { PERMISSIONS, ROLES } from '../../../../shared/permissions.ts';
-import { apiFetch } from '../../../lib/api-client.ts';
+import { PERMISSIONS, ROLES } from '#shared/permissions.ts';
+import { apiFetch } from '#src/lib/api-client.ts';
 
 export const workspaceSchema = z.object({
   studio: z.object({
@@ -14,7 +14,13 @@ export const workspaceSchema = z.object({
     status: z.enum(['active', 'suspended']),
     logoUrl: z.string().nullable(),
   }),
-  orders: z.object({ lowResolutionPolicy: z.enum(['confirm', 'refuse']), pickupEnabled: z.boolean(), pickupNote: z.string(), proofsRequired: z.boolean(), masterResolution: z.enum(['1000-ppi', 'recipe']) }),
+  orders: z.object({
+    lowResolutionPolicy: z.enum(['confirm', 'refuse']),
+    pickupEnabled: z.boolean(),
+    pickupNote: z.string(),
+    proofsRequired: z.boolean(),
+    masterResolution: z.enum(['1000-ppi', 'recipe']),
+  }),
   role: z.enum(ROLES),
   permissions: z.array(z.enum(PERMISSIONS)),
 });
@@ -23,7 +29,10 @@ export type Workspace = z.infer<typeof workspaceSchema>;
 export const workspaceQueries = {
   all: ['workspace'] as const,
   detail: (slug: string) =>
-    queryOptions({ queryKey: [...workspaceQueries.all, slug], queryFn: ({ signal }) => apiFetch(`/api/studios/${encodeURIComponent(slug)}`, { schema: workspaceSchema, signal }) }),
+    queryOptions({
+      queryKey: [...workspaceQueries.all, slug],
+      queryFn: ({ signal }) => apiFetch(`/api/studios/${encodeURIComponent(slug)}`, { schema: workspaceSchema, signal }),
+    }),
 };
 
 export const useWorkspace = (slug: string) => useQuery(workspaceQueries.detail(slug));

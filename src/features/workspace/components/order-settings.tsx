@@ -1,20 +1,33 @@
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { formatMoney, moneyInputValue, parseMoneyInput } from '../../../../shared/money.ts';
-import { MASTER_RESOLUTIONS, orderSettingsInputSchema, shippingRateInputSchema, type OrderSettingsInput, type ShippingRateInput, type ShippingRateView } from '../../../../shared/studio.ts';
-import { Button } from '../../../components/ui/button.tsx';
-import { Card, CardTitle } from '../../../components/ui/card.tsx';
-import { Dialog } from '../../../components/ui/dialog.tsx';
-import { SelectField, TextAreaField } from '../../../components/ui/field.tsx';
-import { Notice } from '../../../components/ui/notice.tsx';
-import { Table, TBody, TD, TH, THActions, THead, TR } from '../../../components/ui/table.tsx';
-import { TextField } from '../../../components/ui/text-field.tsx';
-import { useToast } from '../../../components/ui/toast.tsx';
-import { convertingResolver } from '../../../lib/converting-resolver.ts';
-import { serverErrorOf, showServerError } from '../../../lib/form-errors.ts';
+import { formatMoney, moneyInputValue, parseMoneyInput } from '#shared/money.ts';
+import {
+  MASTER_RESOLUTIONS,
+  orderSettingsInputSchema,
+  shippingRateInputSchema,
+  type OrderSettingsInput,
+  type ShippingRateInput,
+  type ShippingRateView,
+} from '#shared/studio.ts';
+import { Button } from '#src/components/ui/button.tsx';
+import { Card, CardTitle } from '#src/components/ui/card.tsx';
+import { Dialog } from '#src/components/ui/dialog.tsx';
+import { SelectField, TextAreaField } from '#src/components/ui/field.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { Table, TBody, TD, TH, THActions, THead, TR } from '#src/components/ui/table.tsx';
+import { TextField } from '#src/components/ui/text-field.tsx';
+import { useToast } from '#src/components/ui/toast.tsx';
+import { convertingResolver } from '#src/lib/converting-resolver.ts';
+import { serverErrorOf, showServerError } from '#src/lib/form-errors.ts';
 import type { Workspace } from '../api/get-workspace.ts';
-import { useAddShippingRate, useDeleteShippingRate, useShippingRates, useUpdateOrderSettings, useUpdateShippingRate } from '../api/order-settings.ts';
+import {
+  useAddShippingRate,
+  useDeleteShippingRate,
+  useShippingRates,
+  useUpdateOrderSettings,
+  useUpdateShippingRate,
+} from '../api/order-settings.ts';
 
 /** How the studio takes orders: what happens to low-resolution photos, pickup, and the master's resolution. */
 export function OrderSettingsCard({ workspace }: { workspace: Workspace }) {
@@ -60,7 +73,9 @@ export function OrderSettingsCard({ workspace }: { workspace: Workspace }) {
           error={errors.masterResolution?.message}
           hint="Each render also writes a grayscale master for machine software that halftones by itself. At 1000 pixels per inch an 8 × 10 in master is about 80 megapixels."
         />
-        {form.watch('pickupEnabled') && <TextAreaField label="Where and when to collect" rows={2} {...form.register('pickupNote')} error={errors.pickupNote?.message} />}
+        {form.watch('pickupEnabled') && (
+          <TextAreaField label="Where and when to collect" rows={2} {...form.register('pickupNote')} error={errors.pickupNote?.message} />
+        )}
         <Button type="submit" busy={form.formState.isSubmitting} className="self-start">
           Save order settings
         </Button>
@@ -88,10 +103,27 @@ export function ShippingRatesCard({ workspace }: { workspace: Workspace }) {
   }
   return (
     <Card>
-      <CardTitle aside={<Button size="sm" onClick={() => setEditing('new')}>Add a rate</Button>}>Shipping rates</CardTitle>
-      <p className="mb-4 text-sm text-graphite-600">Flat rates per order, offered at checkout. An order keeps the rate it was placed with.</p>
+      <CardTitle
+        aside={
+          <Button size="sm" onClick={() => setEditing('new')}>
+            Add a rate
+          </Button>
+        }
+      >
+        Shipping rates
+      </CardTitle>
+      <p className="mb-4 text-sm text-graphite-600">
+        Flat rates per order, offered at checkout. An order keeps the rate it was placed with.
+      </p>
       {rates.error && <Notice tone="error">{rates.error.message}</Notice>}
-      {rates.data && rates.data.rates.length === 0 && <Notice tone="caution">No shipping rates yet: {workspace.orders.pickupEnabled ? 'buyers can only collect their orders.' : 'buyers cannot check out until you add one or allow pickup.'}</Notice>}
+      {rates.data && rates.data.rates.length === 0 && (
+        <Notice tone="caution">
+          No shipping rates yet:{' '}
+          {workspace.orders.pickupEnabled
+            ? 'buyers can only collect their orders.'
+            : 'buyers cannot check out until you add one or allow pickup.'}
+        </Notice>
+      )}
       {rates.data && rates.data.rates.length > 0 && (
         <Table>
           <THead>
@@ -119,8 +151,15 @@ export function ShippingRatesCard({ workspace }: { workspace: Workspace }) {
           </TBody>
         </Table>
       )}
-      {editing && <RateDialog slug={slug} currency={currency} rate={editing === 'new' ? undefined : editing} onClose={() => setEditing(undefined)} />}
-      <Dialog open={Boolean(removing)} title={`Remove ${removing?.name ?? ''}?`} onClose={() => setRemoving(undefined)} confirm={{ label: 'Remove rate', danger: true, onConfirm: () => void confirmRemove() }}>
+      {editing && (
+        <RateDialog slug={slug} currency={currency} rate={editing === 'new' ? undefined : editing} onClose={() => setEditing(undefined)} />
+      )}
+      <Dialog
+        open={Boolean(removing)}
+        title={`Remove ${removing?.name ?? ''}?`}
+        onClose={() => setRemoving(undefined)}
+        confirm={{ label: 'Remove rate', danger: true, onConfirm: () => void confirmRemove() }}
+      >
         Checkout stops offering it. Orders already placed keep it.
       </Dialog>
     </Card>
@@ -134,8 +173,13 @@ function RateDialog({ slug, currency, rate, onClose }: { slug: string; currency:
   const update = useUpdateShippingRate(slug);
   const toast = useToast();
   const form = useForm<RateForm, unknown, ShippingRateInput>({
-    resolver: convertingResolver(shippingRateInputSchema, (v: RateForm) => ({ ...v, priceMinor: parseMoneyInput(v.priceMinor, currency) ?? Number.NaN })),
-    defaultValues: rate ? { name: rate.name, priceMinor: moneyInputValue(rate.priceMinor, currency), sortOrder: rate.sortOrder } : { name: '', priceMinor: '', sortOrder: 0 },
+    resolver: convertingResolver(shippingRateInputSchema, (v: RateForm) => ({
+      ...v,
+      priceMinor: parseMoneyInput(v.priceMinor, currency) ?? Number.NaN,
+    })),
+    defaultValues: rate
+      ? { name: rate.name, priceMinor: moneyInputValue(rate.priceMinor, currency), sortOrder: rate.sortOrder }
+      : { name: '', priceMinor: '', sortOrder: 0 },
   });
   const errors = form.formState.errors;
   const onSubmit = form.handleSubmit(async (input) => {
@@ -149,12 +193,34 @@ function RateDialog({ slug, currency, rate, onClose }: { slug: string; currency:
     }
   });
   return (
-    <Dialog open title={rate ? `Edit ${rate.name}` : 'New shipping rate'} onClose={onClose} onSubmit={onSubmit} confirm={{ label: 'Save rate', busy: form.formState.isSubmitting }}>
+    <Dialog
+      open
+      title={rate ? `Edit ${rate.name}` : 'New shipping rate'}
+      onClose={onClose}
+      onSubmit={onSubmit}
+      confirm={{ label: 'Save rate', busy: form.formState.isSubmitting }}
+    >
       <div className="flex flex-col gap-4">
         {serverErrorOf(form) && <Notice tone="error">{serverErrorOf(form)}</Notice>}
-        <TextField label="Method" {...form.register('name')} error={errors.name?.message} hint="What the buyer chooses, with how long it takes." />
-        <TextField label="Price" inputMode="decimal" suffix={currency} {...form.register('priceMinor')} error={errors.priceMinor?.message} />
-        <TextField label="Position in the list" type="number" {...form.register('sortOrder', { valueAsNumber: true })} error={errors.sortOrder?.message} />
+        <TextField
+          label="Method"
+          {...form.register('name')}
+          error={errors.name?.message}
+          hint="What the buyer chooses, with how long it takes."
+        />
+        <TextField
+          label="Price"
+          inputMode="decimal"
+          suffix={currency}
+          {...form.register('priceMinor')}
+          error={errors.priceMinor?.message}
+        />
+        <TextField
+          label="Position in the list"
+          type="number"
+          {...form.register('sortOrder', { valueAsNumber: true })}
+          error={errors.sortOrder?.message}
+        />
       </div>
     </Dialog>
   );

@@ -2,32 +2,41 @@ import { useMemo, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { can } from '../../../../../shared/permissions.ts';
-import { formatMoney } from '../../../../../shared/money.ts';
-import { blankInputSchema, type BlankInput, type BlankStatus, type BlankView, type MaterialView, type SizeView } from '../../../../../shared/schemas/catalog.ts';
-import { formatSize, type LengthUnit } from '../../../../../shared/units.ts';
-import { WorkspaceLayout } from '../../../../components/layouts/workspace-layout.tsx';
-import { Button } from '../../../../components/ui/button.tsx';
-import { Card, CardTitle } from '../../../../components/ui/card.tsx';
-import { DataTable, tableColumns, type DataColumn } from '../../../../components/ui/data-table.tsx';
-import { Dialog } from '../../../../components/ui/dialog.tsx';
-import { Notice } from '../../../../components/ui/notice.tsx';
-import { useToast } from '../../../../components/ui/toast.tsx';
-import { serverErrorOf, showServerError } from '../../../../lib/form-errors.ts';
-import { useBlank, useMaterials, useRemoveSize, useUpdateBlank } from '../../../../features/catalog/api/catalog.ts';
-import { BlankFields, type BlankFormValues } from '../../../../features/catalog/components/blank-fields.tsx';
-import { RowActions, useConfirmedDelete } from '../../../../features/catalog/components/row-actions.tsx';
-import { CatalogFrame, QueryState } from '../../../../features/catalog/components/catalog-frame.tsx';
-import { PhotoPanel } from '../../../../features/catalog/components/photo-panel.tsx';
-import { SizeDialog } from '../../../../features/catalog/components/size-dialog.tsx';
-import { StatusPill } from '../../../../features/catalog/components/status-pill.tsx';
-import { ORIENTATION_LABELS } from '../../../../features/catalog/labels.ts';
+import { can } from '#shared/permissions.ts';
+import { formatMoney } from '#shared/money.ts';
+import {
+  blankInputSchema,
+  type BlankInput,
+  type BlankStatus,
+  type BlankView,
+  type MaterialView,
+  type SizeView,
+} from '#shared/schemas/catalog.ts';
+import { formatSize, type LengthUnit } from '#shared/units.ts';
+import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { Button } from '#src/components/ui/button.tsx';
+import { Card, CardTitle } from '#src/components/ui/card.tsx';
+import { DataTable, tableColumns, type DataColumn } from '#src/components/ui/data-table.tsx';
+import { Dialog } from '#src/components/ui/dialog.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { useToast } from '#src/components/ui/toast.tsx';
+import { serverErrorOf, showServerError } from '#src/lib/form-errors.ts';
+import { useBlank, useMaterials, useRemoveSize, useUpdateBlank } from '#src/features/catalog/api/catalog.ts';
+import { BlankFields, type BlankFormValues } from '#src/features/catalog/components/blank-fields.tsx';
+import { RowActions, useConfirmedDelete } from '#src/features/catalog/components/row-actions.tsx';
+import { CatalogFrame, QueryState } from '#src/features/catalog/components/catalog-frame.tsx';
+import { PhotoPanel } from '#src/features/catalog/components/photo-panel.tsx';
+import { SizeDialog } from '#src/features/catalog/components/size-dialog.tsx';
+import { StatusPill } from '#src/features/catalog/components/status-pill.tsx';
+import { ORIENTATION_LABELS } from '#src/features/catalog/labels.ts';
 
 export function BlankPage() {
   const { blankId = '' } = useParams();
   return (
     <WorkspaceLayout>
-      {({ studio, role }) => <Blank slug={studio.slug} blankId={blankId} units={studio.units} currency={studio.currency} canEdit={can(role, 'catalog:write')} />}
+      {({ studio, role }) => (
+        <Blank slug={studio.slug} blankId={blankId} units={studio.units} currency={studio.currency} canEdit={can(role, 'catalog:write')} />
+      )}
     </WorkspaceLayout>
   );
 }
@@ -38,7 +47,12 @@ function Blank(props: Props) {
   const blank = useBlank(props.slug, props.blankId);
   const materials = useMaterials(props.slug);
   return (
-    <CatalogFrame slug={props.slug} title={blank.data?.name ?? 'Blank'} canEdit={props.canEdit} actions={blank.data && <StatusActions {...props} blank={blank.data} />}>
+    <CatalogFrame
+      slug={props.slug}
+      title={blank.data?.name ?? 'Blank'}
+      canEdit={props.canEdit}
+      actions={blank.data && <StatusActions {...props} blank={blank.data} />}
+    >
       <Link to={`/studio/${props.slug}/catalog/blanks`} className="-mt-4 text-sm font-semibold text-graphite-600 hover:underline">
         ← All blanks
       </Link>
@@ -75,7 +89,11 @@ function StatusActions({ slug, blankId, blank }: Props & { blank: BlankView }) {
     <div className="flex items-center gap-2">
       <StatusPill status={blank.status} sizes={blank.sizes.length} />
       {blank.status !== 'active' && (
-        <Button onClick={() => void change('active', `${blank.name} is on sale.`)} disabled={blank.sizes.length === 0} title={blank.sizes.length === 0 ? 'Add a size first' : undefined}>
+        <Button
+          onClick={() => void change('active', `${blank.name} is on sale.`)}
+          disabled={blank.sizes.length === 0}
+          title={blank.sizes.length === 0 ? 'Add a size first' : undefined}
+        >
           Put on sale
         </Button>
       )}
@@ -89,14 +107,27 @@ function StatusActions({ slug, blankId, blank }: Props & { blank: BlankView }) {
           Archive
         </Button>
       )}
-      <Dialog open={archiving} title={`Archive ${blank.name}?`} onClose={() => setArchiving(false)} confirm={{ label: 'Archive blank', onConfirm: () => void change('archived', `${blank.name} archived.`) }}>
+      <Dialog
+        open={archiving}
+        title={`Archive ${blank.name}?`}
+        onClose={() => setArchiving(false)}
+        confirm={{ label: 'Archive blank', onConfirm: () => void change('archived', `${blank.name} archived.`) }}
+      >
         It leaves the storefront and the list of blanks on sale. Orders that name it keep it; you can put it back on sale later.
       </Dialog>
     </div>
   );
 }
 
-function BlankDetail({ slug, blankId, units, currency, canEdit, blank, materials }: Props & { blank: BlankView; materials: MaterialView[] }) {
+function BlankDetail({
+  slug,
+  blankId,
+  units,
+  currency,
+  canEdit,
+  blank,
+  materials,
+}: Props & { blank: BlankView; materials: MaterialView[] }) {
   return (
     <div className="flex flex-col gap-6">
       <SizesCard slug={slug} blankId={blankId} units={units} currency={currency} canEdit={canEdit} blank={blank} />
@@ -114,11 +145,27 @@ function BlankDetail({ slug, blankId, units, currency, canEdit, blank, materials
   );
 }
 
-function DetailsForm({ slug, blankId, canEdit, blank, materials }: { slug: string; blankId: string; canEdit: boolean; blank: BlankView; materials: MaterialView[] }) {
+function DetailsForm({
+  slug,
+  blankId,
+  canEdit,
+  blank,
+  materials,
+}: {
+  slug: string;
+  blankId: string;
+  canEdit: boolean;
+  blank: BlankView;
+  materials: MaterialView[];
+}) {
   const update = useUpdateBlank(slug, blankId);
   const toast = useToast();
   // Status has its own buttons; the form keeps whatever it is now.
-  const form = useForm<BlankFormValues, unknown, BlankInput>({ resolver: zodResolver(blankInputSchema), values: toInput(blank), resetOptions: { keepDirtyValues: true } });
+  const form = useForm<BlankFormValues, unknown, BlankInput>({
+    resolver: zodResolver(blankInputSchema),
+    values: toInput(blank),
+    resetOptions: { keepDirtyValues: true },
+  });
   const onSubmit = form.handleSubmit(async (input) => {
     try {
       await update.mutateAsync(input);
@@ -144,11 +191,28 @@ function DetailsForm({ slug, blankId, canEdit, blank, materials }: { slug: strin
 
 const col = tableColumns<SizeView>();
 
-function SizesCard({ slug, blankId, units, currency, canEdit, blank }: { slug: string; blankId: string; units: LengthUnit; currency: string; canEdit: boolean; blank: BlankView }) {
+function SizesCard({
+  slug,
+  blankId,
+  units,
+  currency,
+  canEdit,
+  blank,
+}: {
+  slug: string;
+  blankId: string;
+  units: LengthUnit;
+  currency: string;
+  canEdit: boolean;
+  blank: BlankView;
+}) {
   const remove = useRemoveSize(slug, blankId);
-  const toast = useToast();
   const [editing, setEditing] = useState<SizeView | 'new'>();
-  const removal = useConfirmedDelete((size: SizeView) => remove.mutateAsync(size.id), (size) => `Size ${size.label} removed.`);
+  const removal = useConfirmedDelete(
+    (size: SizeView) => remove.mutateAsync(size.id),
+    (size) => `Size ${size.label} removed.`,
+  );
+  const askRemoval = removal.ask;
   const columns = useMemo<DataColumn<SizeView>[]>(
     () => [
       col.accessor('label', { header: 'Size', cell: ({ row }) => <span className="font-semibold">{row.original.label}</span> }),
@@ -158,43 +222,108 @@ function SizesCard({ slug, blankId, units, currency, canEdit, blank }: { slug: s
         cell: ({ row }) => (
           <span>
             {formatSize(row.original.areaWidthMm, row.original.areaHeightMm, units)}
-            <span className="block text-xs text-graphite-500">blank {formatSize(row.original.outerWidthMm, row.original.outerHeightMm, units)}</span>
+            <span className="block text-xs text-graphite-500">
+              blank {formatSize(row.original.outerWidthMm, row.original.outerHeightMm, units)}
+            </span>
             {!row.original.fit.fits && (
               <span className="mt-1 block text-xs font-semibold text-rust-600">
-                Reaches past the blank’s edge; at most {formatSize(row.original.fit.largest.widthMm, row.original.fit.largest.heightMm, units)} fits. Edit the size.
+                Reaches past the blank’s edge; at most{' '}
+                {formatSize(row.original.fit.largest.widthMm, row.original.fit.largest.heightMm, units)} fits. Edit the size.
               </span>
             )}
           </span>
         ),
       }),
-      col.accessor('orientation', { header: 'Orientation', enableSorting: false, cell: ({ row }) => ORIENTATION_LABELS[row.original.orientation] }),
+      col.accessor('orientation', {
+        header: 'Orientation',
+        enableSorting: false,
+        cell: ({ row }) => ORIENTATION_LABELS[row.original.orientation],
+      }),
       col.accessor('priceMinor', { header: 'Price', cell: ({ row }) => formatMoney(row.original.priceMinor, currency) }),
-      col.accessor((s) => s.stock ?? Number.MAX_SAFE_INTEGER, { id: 'stock', header: 'Stock', cell: ({ row }) => (row.original.stock === null ? 'Unlimited' : row.original.stock === 0 ? <span className="font-semibold text-rust-600">Sold out</span> : row.original.stock) }),
+      col.accessor((s) => s.stock ?? Number.MAX_SAFE_INTEGER, {
+        id: 'stock',
+        header: 'Stock',
+        cell: ({ row }) =>
+          row.original.stock === null ? (
+            'Unlimited'
+          ) : row.original.stock === 0 ? (
+            <span className="font-semibold text-rust-600">Sold out</span>
+          ) : (
+            row.original.stock
+          ),
+      }),
       col.accessor('sku', { header: 'SKU' }),
       ...(canEdit
         ? [
             col.display({
               id: 'actions',
               header: () => <span className="sr-only">Actions</span>,
-              cell: ({ row }) => <RowActions name={`size ${row.original.label}`} deleteWord="Remove" onEdit={() => setEditing(row.original)} onDelete={() => removal.ask(row.original)} />,
+              cell: ({ row }) => (
+                <RowActions
+                  name={`size ${row.original.label}`}
+                  deleteWord="Remove"
+                  onEdit={() => setEditing(row.original)}
+                  onDelete={() => askRemoval(row.original)}
+                />
+              ),
             }),
           ]
         : []),
     ],
-    [units, currency, canEdit],
+    [units, currency, canEdit, askRemoval],
   );
   return (
     <Card>
-      <CardTitle aside={canEdit && <Button size="sm" onClick={() => setEditing('new')}>Add size</Button>}>Sizes and prices</CardTitle>
-      {blank.status === 'active' && blank.sizes.length === 0 && <Notice tone="caution">This blank is on sale but has no sizes, so buyers cannot see it. Add a size.</Notice>}
+      <CardTitle
+        aside={
+          canEdit && (
+            <Button size="sm" onClick={() => setEditing('new')}>
+              Add size
+            </Button>
+          )
+        }
+      >
+        Sizes and prices
+      </CardTitle>
+      {blank.status === 'active' && blank.sizes.length === 0 && (
+        <Notice tone="caution">This blank is on sale but has no sizes, so buyers cannot see it. Add a size.</Notice>
+      )}
       {blank.sizes.some((s) => !s.fit.fits) && (
         <Notice tone="caution" title="An engraving area does not fit this blank">
-          {blank.sizes.filter((s) => !s.fit.fits).map((s) => s.label).join(', ')}: the area reaches past the edge of the blank’s shape. Burns stay inside the shape drawn in the area, but the area itself should fit the piece: edit the size to the largest area that fits.
+          {blank.sizes
+            .filter((s) => !s.fit.fits)
+            .map((s) => s.label)
+            .join(', ')}
+          : the area reaches past the edge of the blank’s shape. Burns stay inside the shape drawn in the area, but the area itself should
+          fit the piece: edit the size to the largest area that fits.
         </Notice>
       )}
-      <DataTable caption={`Sizes of ${blank.name}`} data={blank.sizes} columns={columns} getRowId={(s) => s.id} searchLabel="Search sizes" initialSorting={[{ id: 'priceMinor', desc: false }]} empty="No sizes yet." />
-      {editing && <SizeDialog slug={slug} blankId={blankId} shape={blank.shape} units={units} currency={currency} size={editing === 'new' ? undefined : editing} onClose={() => setEditing(undefined)} />}
-      <Dialog open={Boolean(removal.pending)} title={`Remove size ${removal.pending?.label ?? ''}?`} onClose={removal.cancel} confirm={{ label: 'Remove size', danger: true, onConfirm: () => void removal.confirm() }}>
+      <DataTable
+        caption={`Sizes of ${blank.name}`}
+        data={blank.sizes}
+        columns={columns}
+        getRowId={(s) => s.id}
+        searchLabel="Search sizes"
+        initialSorting={[{ id: 'priceMinor', desc: false }]}
+        empty="No sizes yet."
+      />
+      {editing && (
+        <SizeDialog
+          slug={slug}
+          blankId={blankId}
+          shape={blank.shape}
+          units={units}
+          currency={currency}
+          size={editing === 'new' ? undefined : editing}
+          onClose={() => setEditing(undefined)}
+        />
+      )}
+      <Dialog
+        open={Boolean(removal.pending)}
+        title={`Remove size ${removal.pending?.label ?? ''}?`}
+        onClose={removal.cancel}
+        confirm={{ label: 'Remove size', danger: true, onConfirm: () => void removal.confirm() }}
+      >
         Buyers can no longer choose it. Orders already placed keep their own copy of the size and its price.
       </Dialog>
     </Card>

@@ -1,16 +1,16 @@
 import { useMemo, useState } from 'react';
-import { can } from '../../../../../shared/permissions.ts';
-import { LASER_KIND_LABELS, type MaterialView } from '../../../../../shared/schemas/catalog.ts';
-import { WorkspaceLayout } from '../../../../components/layouts/workspace-layout.tsx';
-import { Button } from '../../../../components/ui/button.tsx';
-import { DataTable, tableColumns, type DataColumn } from '../../../../components/ui/data-table.tsx';
-import { Dialog } from '../../../../components/ui/dialog.tsx';
-import { useDeleteMaterial, useMaterials } from '../../../../features/catalog/api/catalog.ts';
-import { RowActions, useConfirmedDelete } from '../../../../features/catalog/components/row-actions.tsx';
-import { CatalogFrame, QueryState } from '../../../../features/catalog/components/catalog-frame.tsx';
-import { MaterialDialog } from '../../../../features/catalog/components/material-dialog.tsx';
-import { Swatch } from '../../../../features/catalog/components/swatch.tsx';
-import { FAMILY_LABELS, familyOptions } from '../../../../features/catalog/labels.ts';
+import { can } from '#shared/permissions.ts';
+import { LASER_KIND_LABELS, type MaterialView } from '#shared/schemas/catalog.ts';
+import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { Button } from '#src/components/ui/button.tsx';
+import { DataTable, tableColumns, type DataColumn } from '#src/components/ui/data-table.tsx';
+import { Dialog } from '#src/components/ui/dialog.tsx';
+import { useDeleteMaterial, useMaterials } from '#src/features/catalog/api/catalog.ts';
+import { RowActions, useConfirmedDelete } from '#src/features/catalog/components/row-actions.tsx';
+import { CatalogFrame, QueryState } from '#src/features/catalog/components/catalog-frame.tsx';
+import { MaterialDialog } from '#src/features/catalog/components/material-dialog.tsx';
+import { Swatch } from '#src/features/catalog/components/swatch.tsx';
+import { FAMILY_LABELS, familyOptions } from '#src/features/catalog/labels.ts';
 
 export function MaterialsPage() {
   return <WorkspaceLayout>{({ studio, role }) => <Materials slug={studio.slug} canEdit={can(role, 'catalog:write')} />}</WorkspaceLayout>;
@@ -22,7 +22,11 @@ function Materials({ slug, canEdit }: { slug: string; canEdit: boolean }) {
   const materials = useMaterials(slug);
   const remove = useDeleteMaterial(slug);
   const [editing, setEditing] = useState<MaterialView | 'new'>();
-  const deletion = useConfirmedDelete((material: MaterialView) => remove.mutateAsync(material.id), (material) => `${material.name} deleted.`);
+  const deletion = useConfirmedDelete(
+    (material: MaterialView) => remove.mutateAsync(material.id),
+    (material) => `${material.name} deleted.`,
+  );
+  const askDeletion = deletion.ask;
 
   const columns = useMemo<DataColumn<MaterialView>[]>(
     () => [
@@ -37,11 +41,22 @@ function Materials({ slug, canEdit }: { slug: string; canEdit: boolean }) {
       }),
       col.accessor('family', { header: 'Family', filterFn: 'equalsString', cell: ({ row }) => FAMILY_LABELS[row.original.family] }),
       col.accessor('defaultTone', { header: 'Tone', cell: ({ getValue }) => (getValue() === 'negative' ? 'Negative' : 'Positive') }),
-      col.accessor((m) => m.linesPerInchMin, { id: 'density', header: 'Lines per inch', cell: ({ row }) => `${row.original.linesPerInchMin}–${row.original.linesPerInchMax}` }),
+      col.accessor((m) => m.linesPerInchMin, {
+        id: 'density',
+        header: 'Lines per inch',
+        cell: ({ row }) => `${row.original.linesPerInchMin}–${row.original.linesPerInchMax}`,
+      }),
       col.accessor((m) => (m.forbiddenOn.length ? `Never on ${m.forbiddenOn.map((k) => LASER_KIND_LABELS[k]).join(', ')}` : ''), {
         id: 'limits',
         header: 'Laser limits',
-        cell: ({ getValue, row }) => (getValue() ? <span className="font-semibold text-rust-600" title={row.original.forbiddenReason}>{getValue()}</span> : <span className="text-graphite-400">—</span>),
+        cell: ({ getValue, row }) =>
+          getValue() ? (
+            <span className="font-semibold text-rust-600" title={row.original.forbiddenReason}>
+              {getValue()}
+            </span>
+          ) : (
+            <span className="text-graphite-400">—</span>
+          ),
       }),
       col.accessor('blankCount', { header: 'Blanks', cell: ({ getValue }) => getValue() || <span className="text-graphite-400">0</span> }),
       ...(canEdit
@@ -53,7 +68,7 @@ function Materials({ slug, canEdit }: { slug: string; canEdit: boolean }) {
                 <RowActions
                   name={row.original.name}
                   onEdit={() => setEditing(row.original)}
-                  onDelete={() => deletion.ask(row.original)}
+                  onDelete={() => askDeletion(row.original)}
                   deleteDisabled={row.original.blankCount > 0}
                   deleteTitle={row.original.blankCount > 0 ? 'Blanks use this material' : undefined}
                 />
@@ -62,14 +77,14 @@ function Materials({ slug, canEdit }: { slug: string; canEdit: boolean }) {
           ]
         : []),
     ],
-    [canEdit],
+    [canEdit, askDeletion],
   );
-
 
   return (
     <CatalogFrame slug={slug} title="Materials" canEdit={canEdit} actions={<Button onClick={() => setEditing('new')}>New material</Button>}>
       <p className="max-w-3xl text-graphite-600">
-        What your blanks are made of: how each looks (for the buyer’s mock-up), whether photos burn on it as a negative, the line densities that suit it, and lasers it must never go on.
+        What your blanks are made of: how each looks (for the buyer’s mock-up), whether photos burn on it as a negative, the line densities
+        that suit it, and lasers it must never go on.
       </p>
       <QueryState isPending={materials.isPending} error={materials.error} />
       {materials.data && (
@@ -85,7 +100,12 @@ function Materials({ slug, canEdit }: { slug: string; canEdit: boolean }) {
         />
       )}
       {editing && <MaterialDialog slug={slug} material={editing === 'new' ? undefined : editing} onClose={() => setEditing(undefined)} />}
-      <Dialog open={Boolean(deletion.pending)} title={`Delete ${deletion.pending?.name ?? ''}?`} onClose={deletion.cancel} confirm={{ label: 'Delete material', danger: true, onConfirm: () => void deletion.confirm() }}>
+      <Dialog
+        open={Boolean(deletion.pending)}
+        title={`Delete ${deletion.pending?.name ?? ''}?`}
+        onClose={deletion.cancel}
+        confirm={{ label: 'Delete material', danger: true, onConfirm: () => void deletion.confirm() }}
+      >
         Its recipes are deleted with it. Orders already placed keep their own copy of what they need.
       </Dialog>
     </CatalogFrame>

@@ -1,47 +1,76 @@
 import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { can } from '../../../../../shared/permissions.ts';
-import { ITEM_STAGE_LABELS } from '../../../../../shared/orders/stages.ts';
-import { prepSettingsSchema, regionPreviewSchema, type Cutout, type CutoutStroke, type PrepSettings, type RegionPreviewInput } from '../../../../../shared/schemas/prep.ts';
-import { BrushOverlay, CutoutControls, type Brush } from '../../../../features/orders/components/cutout-brush.tsx';
-import { cx } from '../../../../lib/cx.ts';
-import { staffItemSchema } from '../../../../../shared/schemas/workspace-orders.ts';
-import { WorkspaceLayout } from '../../../../components/layouts/workspace-layout.tsx';
-import { Button } from '../../../../components/ui/button.tsx';
-import { Card, CardTitle } from '../../../../components/ui/card.tsx';
-import { SelectField } from '../../../../components/ui/field.tsx';
-import { Notice } from '../../../../components/ui/notice.tsx';
-import { TextField } from '../../../../components/ui/text-field.tsx';
-import { useToast } from '../../../../components/ui/toast.tsx';
-import { methodOptions } from '../../../../features/catalog/labels.ts';
-import { LaserCautions } from '../../../../features/catalog/components/laser-cautions.tsx';
-import { PlacedPhoto } from '../../../../features/designer/components/placed-photo.tsx';
-import { prepMockup } from '../../../../features/orders/prep-look.ts';
-import { apiFetch } from '../../../../lib/api-client.ts';
+import { can } from '#shared/permissions.ts';
+import { ITEM_STAGE_LABELS } from '#shared/orders/stages.ts';
+import {
+  prepSettingsSchema,
+  regionPreviewSchema,
+  type Cutout,
+  type CutoutStroke,
+  type PrepSettings,
+  type RegionPreviewInput,
+} from '#shared/schemas/prep.ts';
+import { BrushOverlay, CutoutControls, type Brush } from '#src/features/orders/components/cutout-brush.tsx';
+import { cx } from '#src/lib/cx.ts';
+import { staffItemSchema } from '#shared/schemas/workspace-orders.ts';
+import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { Button } from '#src/components/ui/button.tsx';
+import { Card, CardTitle } from '#src/components/ui/card.tsx';
+import { SelectField } from '#src/components/ui/field.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { TextField } from '#src/components/ui/text-field.tsx';
+import { useToast } from '#src/components/ui/toast.tsx';
+import { methodOptions } from '#src/features/catalog/labels.ts';
+import { LaserCautions } from '#src/features/catalog/components/laser-cautions.tsx';
+import { PlacedPhoto } from '#src/features/designer/components/placed-photo.tsx';
+import { prepMockup } from '#src/features/orders/prep-look.ts';
+import { apiFetch } from '#src/lib/api-client.ts';
 
 export function StaffItemPage() {
   const { itemId = '' } = useParams();
-  return <WorkspaceLayout>{({ studio, role, orders }) => <StaffItem slug={studio.slug} itemId={itemId} canProduce={can(role, 'order:produce')} proofsRequired={orders.proofsRequired} />}</WorkspaceLayout>;
+  return (
+    <WorkspaceLayout>
+      {({ studio, role, orders }) => (
+        <StaffItem slug={studio.slug} itemId={itemId} canProduce={can(role, 'order:produce')} proofsRequired={orders.proofsRequired} />
+      )}
+    </WorkspaceLayout>
+  );
 }
 
 const PREVIEW_WIDTH = 420;
 
 /** Prep for one item: settings beside a live preview, saved as versions; then a proof or approval. */
-function StaffItem({ slug, itemId, canProduce, proofsRequired }: { slug: string; itemId: string; canProduce: boolean; proofsRequired: boolean }) {
+function StaffItem({
+  slug,
+  itemId,
+  canProduce,
+  proofsRequired,
+}: {
+  slug: string;
+  itemId: string;
+  canProduce: boolean;
+  proofsRequired: boolean;
+}) {
   const url = `/api/studios/${encodeURIComponent(slug)}/items/${itemId}`;
   const queryClient = useQueryClient();
   const toast = useToast();
-  const item = useQuery({ queryKey: ['orders', slug, 'item', itemId], queryFn: ({ signal }) => apiFetch(url, { schema: staffItemSchema, signal }) });
+  const item = useQuery({
+    queryKey: ['orders', slug, 'item', itemId],
+    queryFn: ({ signal }) => apiFetch(url, { schema: staffItemSchema, signal }),
+  });
   const [draft, setDraft] = useState<PrepSettings>();
   const [error, setError] = useState<string>();
   const [view, setView] = useState<PreviewView>('after');
   const [brush, setBrush] = useState<Brush>({ mode: 'remove', size: 0.06 });
   const [redo, setRedo] = useState<CutoutStroke[]>([]);
   const [centre, setCentre] = useState({ x: 0.5, y: 0.5 });
-  const region = useMutation({ mutationFn: (body: RegionPreviewInput) => apiFetch(`${url}/prep-preview`, { method: 'POST', body, schema: regionPreviewSchema }) });
+  const region = useMutation({
+    mutationFn: (body: RegionPreviewInput) => apiFetch(`${url}/prep-preview`, { method: 'POST', body, schema: regionPreviewSchema }),
+  });
   const act = useMutation({
-    mutationFn: ({ path, method = 'POST', body }: { path: string; method?: 'POST' | 'PUT'; body?: unknown; done: string }) => apiFetch(`${url}${path}`, { method, body }),
+    mutationFn: ({ path, method = 'POST', body }: { path: string; method?: 'POST' | 'PUT'; body?: unknown; done: string }) =>
+      apiFetch(`${url}${path}`, { method, body }),
     onSuccess: (_r, { done }) => toast.show(done, 'success'),
     onError: (e) => toast.show((e as Error).message, 'error'),
     onSettled: () => queryClient.invalidateQueries({ queryKey: ['orders', slug] }),
@@ -73,14 +102,25 @@ function StaffItem({ slug, itemId, canProduce, proofsRequired }: { slug: string;
     setCutout({ ...settings.cutout, strokes: [...settings.cutout.strokes, next] });
   };
   const num = (key: keyof PrepSettings, label: string, suffix: string, step = 1) => (
-    <TextField label={label} type="number" step={step} suffix={suffix} value={String(settings[key])} disabled={!inPrep || !canProduce} onChange={(e) => set({ [key]: Number(e.target.value) } as Partial<PrepSettings>)} />
+    <TextField
+      label={label}
+      type="number"
+      step={step}
+      suffix={suffix}
+      value={String(settings[key])}
+      disabled={!inPrep || !canProduce}
+      onChange={(e) => set({ [key]: Number(e.target.value) } as Partial<PrepSettings>)}
+    />
   );
 
   function save() {
     const parsed = prepSettingsSchema.safeParse(settings);
     if (!parsed.success) return setError(parsed.error.issues.map((i) => `${String(i.path[0])}: ${i.message}`).join(' '));
     setError(undefined);
-    act.mutate({ path: '/prep', method: 'PUT', body: parsed.data, done: 'Prep settings saved as a new version.' }, { onSuccess: () => setDraft(undefined) });
+    act.mutate(
+      { path: '/prep', method: 'PUT', body: parsed.data, done: 'Prep settings saved as a new version.' },
+      { onSuccess: () => setDraft(undefined) },
+    );
   }
 
   return (
@@ -108,9 +148,17 @@ function StaffItem({ slug, itemId, canProduce, proofsRequired }: { slug: string;
                   prep={view === 'before' ? undefined : mock.job.prep}
                   size={size}
                   view={view === 'after' ? 'burn' : 'photo'}
-                  label={view === 'before' ? 'The photo before prep' : view === 'cutout' ? 'The cut-out: faded parts are not burned' : 'Preview with these prep settings'}
+                  label={
+                    view === 'before'
+                      ? 'The photo before prep'
+                      : view === 'cutout'
+                        ? 'The cut-out: faded parts are not burned'
+                        : 'Preview with these prep settings'
+                  }
                 />
-                {view === 'cutout' && editable && <BrushOverlay size={size} brush={brush} onStroke={addStroke} label="Paint to keep or remove parts of the photo" />}
+                {view === 'cutout' && editable && (
+                  <BrushOverlay size={size} brush={brush} onStroke={addStroke} label="Paint to keep or remove parts of the photo" />
+                )}
                 {view === 'after' && (
                   <button
                     type="button"
@@ -121,29 +169,55 @@ function StaffItem({ slug, itemId, canProduce, proofsRequired }: { slug: string;
                       setCentre({ x: (e.clientX - box.left) / box.width, y: (e.clientY - box.top) / box.height });
                     }}
                   >
-                    <span aria-hidden className="absolute size-5 -translate-x-1/2 -translate-y-1/2 rounded-full border-2 border-white shadow-[0_0_0_1.5px_rgb(0_0_0/0.6)]" style={{ left: `${centre.x * 100}%`, top: `${centre.y * 100}%` }} />
+                    <span
+                      aria-hidden
+                      className="absolute size-5 -translate-x-1/2 -translate-y-1/2 rounded-full border-2 border-white shadow-[0_0_0_1.5px_rgb(0_0_0/0.6)]"
+                      style={{ left: `${centre.x * 100}%`, top: `${centre.y * 100}%` }}
+                    />
                   </button>
                 )}
               </div>
             </div>
             <p className="mt-2 text-sm text-graphite-600">
               {view === 'before' && 'The buyer’s photo as placed, before any prep.'}
-              {view === 'cutout' && (editable ? 'Paint with the brush: Keep brings parts back, Remove leaves them unburned. Ctrl+Z undoes.' : 'Faded parts are outside the cut-out and are not burned.')}
+              {view === 'cutout' &&
+                (editable
+                  ? 'Paint with the brush: Keep brings parts back, Remove leaves them unburned. Ctrl+Z undoes.'
+                  : 'Faded parts are outside the cut-out and are not burned.')}
               {view === 'after' && 'As it will burn. Click to choose where the 1:1 region below is taken.'}
             </p>
           </Card>
           <Card>
-            <CardTitle aside={<Button size="sm" variant="secondary" busy={region.isPending} onClick={() => region.mutate({ settings, centre })}>Show 1:1 region</Button>}>At the machine’s resolution</CardTitle>
+            <CardTitle
+              aside={
+                <Button size="sm" variant="secondary" busy={region.isPending} onClick={() => region.mutate({ settings, centre })}>
+                  Show 1:1 region
+                </Button>
+              }
+            >
+              At the machine’s resolution
+            </CardTitle>
             {region.error && <Notice tone="error">{region.error.message}</Notice>}
             {region.data ? (
               <figure className="flex flex-col gap-2">
-                <img src={region.data.image} alt="A region of the burn, one dot per screen pixel" style={{ width: region.data.region.width / (window.devicePixelRatio || 1), imageRendering: 'pixelated', background: view_.look.surfaceColour }} />
+                <img
+                  src={region.data.image}
+                  alt="A region of the burn, one dot per screen pixel"
+                  style={{
+                    width: region.data.region.width / (window.devicePixelRatio || 1),
+                    imageRendering: 'pixelated',
+                    background: view_.look.surfaceColour,
+                  }}
+                />
                 <figcaption className="text-sm text-graphite-600">
-                  {region.data.region.width} × {region.data.region.height} dots of {region.data.output.width} × {region.data.output.height} at {settings.linesPerInch} lines per inch; one dot per screen pixel. Black dots fire the laser.
+                  {region.data.region.width} × {region.data.region.height} dots of {region.data.output.width} × {region.data.output.height}{' '}
+                  at {settings.linesPerInch} lines per inch; one dot per screen pixel. Black dots fire the laser.
                 </figcaption>
               </figure>
             ) : (
-              <p className="text-sm text-graphite-600">Makes the burn at full resolution with the settings on this page (saved or not) and shows a {480}-dot square of it.</p>
+              <p className="text-sm text-graphite-600">
+                Makes the burn at full resolution with the settings on this page (saved or not) and shows a {480}-dot square of it.
+              </p>
             )}
           </Card>
         </div>
@@ -157,18 +231,48 @@ function StaffItem({ slug, itemId, canProduce, proofsRequired }: { slug: string;
             {num('sharpenAmount', 'Sharpen amount', '%', 10)}
             {num('sharpenRadius', 'Sharpen radius', 'px', 0.1)}
             {num('sharpenThreshold', 'Sharpen threshold', '', 1)}
-            <SelectField label="Halftone method" options={methodOptions} value={settings.halftoneMethod} disabled={!inPrep || !canProduce} onChange={(e) => set({ halftoneMethod: e.target.value as PrepSettings['halftoneMethod'] })} />
+            <SelectField
+              label="Halftone method"
+              options={methodOptions}
+              value={settings.halftoneMethod}
+              disabled={!inPrep || !canProduce}
+              onChange={(e) => set({ halftoneMethod: e.target.value as PrepSettings['halftoneMethod'] })}
+            />
             {num('linesPerInch', 'Line density', 'lpi', 1)}
             {num('featherRadius', 'Edge softness', 'px', 1)}
             <label className="flex items-center gap-2 text-sm font-semibold">
-              <input type="checkbox" checked={settings.negative} disabled={!inPrep || !canProduce} onChange={(e) => set({ negative: e.target.checked })} /> Negative (the burn is lighter)
+              <input
+                type="checkbox"
+                checked={settings.negative}
+                disabled={!inPrep || !canProduce}
+                onChange={(e) => set({ negative: e.target.checked })}
+              />{' '}
+              Negative (the burn is lighter)
             </label>
             <label className="flex items-center gap-2 text-sm font-semibold">
-              <input type="checkbox" checked={settings.autoLevels} disabled={!inPrep || !canProduce} onChange={(e) => set({ autoLevels: e.target.checked })} /> Auto levels
+              <input
+                type="checkbox"
+                checked={settings.autoLevels}
+                disabled={!inPrep || !canProduce}
+                onChange={(e) => set({ autoLevels: e.target.checked })}
+              />{' '}
+              Auto levels
             </label>
           </div>
           <h3 className="mt-6 mb-3 font-bold">Cut-out</h3>
-          <CutoutControls cutout={settings.cutout} brush={brush} redo={redo.length} disabled={!editable} onChange={setCutout} onBrush={(b) => { setBrush(b); setView('cutout'); }} onUndo={undo} onRedo={redoStroke} />
+          <CutoutControls
+            cutout={settings.cutout}
+            brush={brush}
+            redo={redo.length}
+            disabled={!editable}
+            onChange={setCutout}
+            onBrush={(b) => {
+              setBrush(b);
+              setView('cutout');
+            }}
+            onUndo={undo}
+            onRedo={redoStroke}
+          />
           {error && (
             <div className="mt-3">
               <Notice tone="error">{error}</Notice>
@@ -181,13 +285,22 @@ function StaffItem({ slug, itemId, canProduce, proofsRequired }: { slug: string;
                   Save settings
                 </Button>
               )}
-              {allowedMoves.includes('proof_sent') && <Button busy={act.isPending && act.variables?.path === '/send-proof'} onClick={() => act.mutate({ path: '/send-proof', done: 'Proof sent; the buyer has an e-mail.' })}>Send proof to the buyer</Button>}
+              {allowedMoves.includes('proof_sent') && (
+                <Button
+                  busy={act.isPending && act.variables?.path === '/send-proof'}
+                  onClick={() => act.mutate({ path: '/send-proof', done: 'Proof sent; the buyer has an e-mail.' })}
+                >
+                  Send proof to the buyer
+                </Button>
+              )}
               {allowedMoves.includes('approved') && view_.stage === 'prep' && !proofsRequired && (
                 <Button variant="secondary" onClick={() => act.mutate({ path: '/approve-without-proof', done: 'Approved for engraving.' })}>
                   Approve without a proof
                 </Button>
               )}
-              {view_.stage === 'changes_requested' && <Button onClick={() => act.mutate({ path: '/reopen-prep', done: 'Back in prep.' })}>Back to prep</Button>}
+              {view_.stage === 'changes_requested' && (
+                <Button onClick={() => act.mutate({ path: '/reopen-prep', done: 'Back in prep.' })}>Back to prep</Button>
+              )}
             </div>
           )}
           {versions.length > 0 && (
@@ -210,13 +323,24 @@ function StaffItem({ slug, itemId, canProduce, proofsRequired }: { slug: string;
 }
 
 type PreviewView = 'before' | 'cutout' | 'after';
-const VIEWS: Array<[PreviewView, string]> = [['before', 'Before'], ['cutout', 'Cut-out'], ['after', 'After']];
+const VIEWS: Array<[PreviewView, string]> = [
+  ['before', 'Before'],
+  ['cutout', 'Cut-out'],
+  ['after', 'After'],
+];
 
 function ViewSwitch({ view, onChange }: { view: PreviewView; onChange: (view: PreviewView) => void }) {
   return (
     <div role="radiogroup" aria-label="Preview" className="inline-flex rounded-lg bg-graphite-100 p-0.5 text-sm font-semibold">
       {VIEWS.map(([value, label]) => (
-        <button key={value} type="button" role="radio" aria-checked={view === value} onClick={() => onChange(value)} className={cx('rounded-md px-3 py-1', view === value ? 'bg-white shadow-sm' : 'text-graphite-600')}>
+        <button
+          key={value}
+          type="button"
+          role="radio"
+          aria-checked={view === value}
+          onClick={() => onChange(value)}
+          className={cx('rounded-md px-3 py-1', view === value ? 'bg-white shadow-sm' : 'text-graphite-600')}
+        >
           {label}
         </button>
       ))}

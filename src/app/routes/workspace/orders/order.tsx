@@ -1,20 +1,26 @@
 import { Link, useParams } from 'react-router-dom';
-import { ITEM_STAGE_LABELS, ORDER_STATUS_LABELS } from '../../../../../shared/orders/stages.ts';
-import { WorkspaceLayout } from '../../../../components/layouts/workspace-layout.tsx';
-import { Card, CardTitle } from '../../../../components/ui/card.tsx';
-import { Notice } from '../../../../components/ui/notice.tsx';
-import { OrderMoney, OrderTimeline } from '../../../../features/orders/components/order-timeline.tsx';
-import { ItemMockup } from '../../../../features/designer/components/item-mockup.tsx';
-import { useStaffOrder } from '../../../../features/orders/api/orders.ts';
-import { methodLabel } from '../../../../features/catalog/labels.ts';
-import { MoneyActions } from '../../../../features/orders/components/money-actions.tsx';
-import { can } from '../../../../../shared/permissions.ts';
-import { HandoverForm } from '../../../../features/production/components/handover-form.tsx';
-import { handoverLine } from '../../../../features/orders/handover-line.ts';
+import { ITEM_STAGE_LABELS, ORDER_STATUS_LABELS } from '#shared/orders/stages.ts';
+import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { Card, CardTitle } from '#src/components/ui/card.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { OrderMoney, OrderTimeline } from '#src/features/orders/components/order-timeline.tsx';
+import { ItemMockup } from '#src/features/designer/components/item-mockup.tsx';
+import { useStaffOrder } from '#src/features/orders/api/orders.ts';
+import { methodLabel } from '#src/features/catalog/labels.ts';
+import { MoneyActions } from '#src/features/orders/components/money-actions.tsx';
+import { can } from '#shared/permissions.ts';
+import { HandoverForm } from '#src/features/production/components/handover-form.tsx';
+import { handoverLine } from '#src/features/orders/handover-line.ts';
 
 export function StaffOrderPage() {
   const { orderId = '' } = useParams();
-  return <WorkspaceLayout>{({ studio, role }) => <StaffOrder slug={studio.slug} orderId={orderId} canRefund={can(role, 'order:refund')} canProduce={can(role, 'order:produce')} />}</WorkspaceLayout>;
+  return (
+    <WorkspaceLayout>
+      {({ studio, role }) => (
+        <StaffOrder slug={studio.slug} orderId={orderId} canRefund={can(role, 'order:refund')} canProduce={can(role, 'order:produce')} />
+      )}
+    </WorkspaceLayout>
+  );
 }
 
 /** One order as the studio sees it: items as they will burn, buyer, payment and every event. */
@@ -85,7 +91,8 @@ function StaffOrder({ slug, orderId, canRefund, canProduce }: { slug: string; or
             {o.delivery.address && (
               <p className="text-sm text-graphite-700">
                 {o.delivery.address.line1}
-                {o.delivery.address.line2 && `, ${o.delivery.address.line2}`}, {o.delivery.address.postalCode} {o.delivery.address.city}, {o.delivery.address.country}
+                {o.delivery.address.line2 && `, ${o.delivery.address.line2}`}, {o.delivery.address.postalCode} {o.delivery.address.city},{' '}
+                {o.delivery.address.country}
               </p>
             )}
             <div className="mt-3">

@@ -1,16 +1,16 @@
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
-import { ITEM_STAGES, ITEM_STAGE_LABELS, ORDER_STATUSES, ORDER_STATUS_LABELS } from '../../../../../shared/orders/stages.ts';
-import type { OrderListQuery } from '../../../../../shared/schemas/workspace-orders.ts';
-import { WorkspaceLayout } from '../../../../components/layouts/workspace-layout.tsx';
-import { Button } from '../../../../components/ui/button.tsx';
-import { SelectField } from '../../../../components/ui/field.tsx';
-import { Notice } from '../../../../components/ui/notice.tsx';
-import { Table, TBody, TD, TH, THead, TR } from '../../../../components/ui/table.tsx';
-import { TextField } from '../../../../components/ui/text-field.tsx';
-import { useOrderList } from '../../../../features/orders/api/orders.ts';
-import { useMaterials } from '../../../../features/catalog/api/catalog.ts';
-import { useDebounced } from '../../../../lib/use-debounced.ts';
+import { ITEM_STAGES, ITEM_STAGE_LABELS, ORDER_STATUSES, ORDER_STATUS_LABELS } from '#shared/orders/stages.ts';
+import type { OrderListQuery } from '#shared/schemas/workspace-orders.ts';
+import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { Button } from '#src/components/ui/button.tsx';
+import { SelectField } from '#src/components/ui/field.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { Table, TBody, TD, TH, THead, TR } from '#src/components/ui/table.tsx';
+import { TextField } from '#src/components/ui/text-field.tsx';
+import { useOrderList } from '#src/features/orders/api/orders.ts';
+import { useMaterials } from '#src/features/catalog/api/catalog.ts';
+import { useDebounced } from '#src/lib/use-debounced.ts';
 
 export function OrdersPage() {
   return <WorkspaceLayout>{({ studio }) => <Orders slug={studio.slug} />}</WorkspaceLayout>;
@@ -31,10 +31,38 @@ function Orders({ slug }: { slug: string }) {
     <div className="flex flex-col gap-6">
       <h1 className="text-3xl font-extrabold">Orders</h1>
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-7">
-        <TextField label="Search" type="search" placeholder="Number, e-mail or name" value={search} onChange={(e) => { setSearch(e.target.value); set({}); }} className="lg:col-span-2" />
-        <SelectField label="Material" placeholder="Any material" options={(materials.data?.materials ?? []).map((m) => ({ value: m.name, label: m.name }))} value={filters.material ?? ''} onChange={(e) => set({ material: e.target.value || undefined })} />
-        <SelectField label="Stage" placeholder="Any stage" options={ITEM_STAGES.map((s) => ({ value: s, label: ITEM_STAGE_LABELS[s] }))} value={filters.stage ?? ''} onChange={(e) => set({ stage: (e.target.value || undefined) as OrderListQuery['stage'] })} />
-        <SelectField label="Payment" placeholder="Any" options={ORDER_STATUSES.map((s) => ({ value: s, label: ORDER_STATUS_LABELS[s] }))} value={filters.status ?? ''} onChange={(e) => set({ status: (e.target.value || undefined) as OrderListQuery['status'] })} />
+        <TextField
+          label="Search"
+          type="search"
+          placeholder="Number, e-mail or name"
+          value={search}
+          onChange={(e) => {
+            setSearch(e.target.value);
+            set({});
+          }}
+          className="lg:col-span-2"
+        />
+        <SelectField
+          label="Material"
+          placeholder="Any material"
+          options={(materials.data?.materials ?? []).map((m) => ({ value: m.name, label: m.name }))}
+          value={filters.material ?? ''}
+          onChange={(e) => set({ material: e.target.value || undefined })}
+        />
+        <SelectField
+          label="Stage"
+          placeholder="Any stage"
+          options={ITEM_STAGES.map((s) => ({ value: s, label: ITEM_STAGE_LABELS[s] }))}
+          value={filters.stage ?? ''}
+          onChange={(e) => set({ stage: (e.target.value || undefined) as OrderListQuery['stage'] })}
+        />
+        <SelectField
+          label="Payment"
+          placeholder="Any"
+          options={ORDER_STATUSES.map((s) => ({ value: s, label: ORDER_STATUS_LABELS[s] }))}
+          value={filters.status ?? ''}
+          onChange={(e) => set({ status: (e.target.value || undefined) as OrderListQuery['status'] })}
+        />
         <TextField label="From" type="date" value={filters.from ?? ''} onChange={(e) => set({ from: e.target.value || undefined })} />
         <TextField label="To" type="date" value={filters.to ?? ''} onChange={(e) => set({ to: e.target.value || undefined })} />
       </div>

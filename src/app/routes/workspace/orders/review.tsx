@@ -1,24 +1,30 @@
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
-import { can } from '../../../../../shared/permissions.ts';
-import { REVIEW_REASONS, type ReviewItem, type ReviewReason } from '../../../../../shared/schemas/workspace-orders.ts';
-import { formatSize, type LengthUnit } from '../../../../../shared/units.ts';
-import { WorkspaceLayout } from '../../../../components/layouts/workspace-layout.tsx';
-import { Button } from '../../../../components/ui/button.tsx';
-import { Card, CardTitle } from '../../../../components/ui/card.tsx';
-import { Dialog } from '../../../../components/ui/dialog.tsx';
-import { SelectField, TextAreaField } from '../../../../components/ui/field.tsx';
-import { Notice } from '../../../../components/ui/notice.tsx';
-import { useToast } from '../../../../components/ui/toast.tsx';
-import { PlacedPhoto } from '../../../../features/designer/components/placed-photo.tsx';
-import { useApprovePhoto, useAskNewPhoto, useReviewQueue } from '../../../../features/orders/api/orders.ts';
-import { cx } from '../../../../lib/cx.ts';
+import { can } from '#shared/permissions.ts';
+import { REVIEW_REASONS, type ReviewItem, type ReviewReason } from '#shared/schemas/workspace-orders.ts';
+import { formatSize, type LengthUnit } from '#shared/units.ts';
+import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { Button } from '#src/components/ui/button.tsx';
+import { Card, CardTitle } from '#src/components/ui/card.tsx';
+import { Dialog } from '#src/components/ui/dialog.tsx';
+import { SelectField, TextAreaField } from '#src/components/ui/field.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { useToast } from '#src/components/ui/toast.tsx';
+import { PlacedPhoto } from '#src/features/designer/components/placed-photo.tsx';
+import { useApprovePhoto, useAskNewPhoto, useReviewQueue } from '#src/features/orders/api/orders.ts';
+import { cx } from '#src/lib/cx.ts';
 
 export function ReviewPage() {
   return (
     <WorkspaceLayout>
       {({ studio, role }) =>
-        can(role, 'order:review') ? <Review slug={studio.slug} units={studio.units} /> : <Notice tone="error" title="Not for your role">Your role does not include photo review.</Notice>
+        can(role, 'order:review') ? (
+          <Review slug={studio.slug} units={studio.units} />
+        ) : (
+          <Notice tone="error" title="Not for your role">
+            Your role does not include photo review.
+          </Notice>
+        )
       }
     </WorkspaceLayout>
   );
@@ -43,7 +49,15 @@ function Review({ slug, units }: { slug: string; units: LengthUnit }) {
             <ol className="flex flex-col gap-2">
               {items.map((item) => (
                 <li key={item.itemId}>
-                  <button type="button" onClick={() => setSelectedId(item.itemId)} aria-current={item.itemId === selected.itemId} className={cx('flex w-full items-center gap-3 rounded-lg border p-2 text-left text-sm', item.itemId === selected.itemId ? 'border-ember-500 bg-ember-50' : 'border-graphite-100 bg-white')}>
+                  <button
+                    type="button"
+                    onClick={() => setSelectedId(item.itemId)}
+                    aria-current={item.itemId === selected.itemId}
+                    className={cx(
+                      'flex w-full items-center gap-3 rounded-lg border p-2 text-left text-sm',
+                      item.itemId === selected.itemId ? 'border-ember-500 bg-ember-50' : 'border-graphite-100 bg-white',
+                    )}
+                  >
                     <img src={item.photo.thumbUrl} alt="" className="size-12 rounded object-cover" />
                     <span>
                       <span className="block font-bold">Order {item.orderNumber}</span>
@@ -67,10 +81,15 @@ function ReviewDetail({ slug, units, item }: { slug: string; units: LengthUnit; 
   const ask = useAskNewPhoto(slug);
   const toast = useToast();
   const [asking, setAsking] = useState(false);
-  const [reason, setReason] = useState<ReviewReason>(item.verdict === 'too-low' ? 'low_resolution' : item.photo.quality.blurry ? 'blurry' : 'other');
+  const [reason, setReason] = useState<ReviewReason>(
+    item.verdict === 'too-low' ? 'low_resolution' : item.photo.quality.blurry ? 'blurry' : 'other',
+  );
   const [note, setNote] = useState('');
   const printSize = { width: Math.round((item.areaWidthMm / 25.4) * CSS_PPI), height: Math.round((item.areaHeightMm / 25.4) * CSS_PPI) };
-  const centre = { x: item.placement.crop.left + item.placement.crop.width / 2, y: item.placement.crop.top + item.placement.crop.height / 2 };
+  const centre = {
+    x: item.placement.crop.left + item.placement.crop.width / 2,
+    y: item.placement.crop.top + item.placement.crop.height / 2,
+  };
 
   async function run(work: () => Promise<unknown>, done: string) {
     try {
@@ -84,13 +103,24 @@ function ReviewDetail({ slug, units, item }: { slug: string; units: LengthUnit; 
   return (
     <div className="flex flex-col gap-6">
       <Card>
-        <CardTitle aside={<Link to={`/studio/${slug}/orders/${item.orderId}`} className="text-sm font-semibold underline">Open order {item.orderNumber}</Link>}>
+        <CardTitle
+          aside={
+            <Link to={`/studio/${slug}/orders/${item.orderId}`} className="text-sm font-semibold underline">
+              Open order {item.orderNumber}
+            </Link>
+          }
+        >
           {item.blankName}, {item.sizeLabel} for {item.buyerName}
         </CardTitle>
         <dl className="grid gap-x-6 gap-y-2 text-sm sm:grid-cols-4">
           <div>
             <dt className="text-graphite-500">At the size</dt>
-            <dd className={cx('font-bold', item.verdict === 'too-low' ? 'text-rust-600' : item.verdict === 'fair' ? 'text-ember-700' : 'text-moss-800')}>
+            <dd
+              className={cx(
+                'font-bold',
+                item.verdict === 'too-low' ? 'text-rust-600' : item.verdict === 'fair' ? 'text-ember-700' : 'text-moss-800',
+              )}
+            >
               {item.effectivePpi} pixels per inch ({item.verdict === 'too-low' ? 'too low' : item.verdict})
             </dd>
           </div>
@@ -102,17 +132,35 @@ function ReviewDetail({ slug, units, item }: { slug: string; units: LengthUnit; 
           </div>
           <div>
             <dt className="text-graphite-500">Sharpness</dt>
-            <dd className="font-bold">{item.photo.quality.blurry ? `looks blurred (${item.photo.quality.sharpness})` : `sharp enough (${item.photo.quality.sharpness})`}</dd>
+            <dd className="font-bold">
+              {item.photo.quality.blurry
+                ? `looks blurred (${item.photo.quality.sharpness})`
+                : `sharp enough (${item.photo.quality.sharpness})`}
+            </dd>
           </div>
           <div>
             <dt className="text-graphite-500">Exposure</dt>
-            <dd className="font-bold">{item.photo.quality.exposure === 'ok' ? 'fine' : item.photo.quality.exposure === 'dark' ? 'many clipped shadows' : 'many clipped highlights'}</dd>
+            <dd className="font-bold">
+              {item.photo.quality.exposure === 'ok'
+                ? 'fine'
+                : item.photo.quality.exposure === 'dark'
+                  ? 'many clipped shadows'
+                  : 'many clipped highlights'}
+            </dd>
           </div>
         </dl>
-        {item.lowResolutionConfirmed && <p className="mt-3 text-sm font-semibold text-rust-600">The buyer confirmed ordering at this size despite the low resolution.</p>}
+        {item.lowResolutionConfirmed && (
+          <p className="mt-3 text-sm font-semibold text-rust-600">The buyer confirmed ordering at this size despite the low resolution.</p>
+        )}
         {item.replacements > 0 && <p className="mt-3 text-sm">This is the buyer’s replacement photo number {item.replacements}.</p>}
         <div className="mt-5 flex gap-2">
-          <Button onClick={() => void run(() => approve.mutateAsync({ itemId: item.itemId }), `Photo approved: order ${item.orderNumber} moves to prep.`)}>Approve photo</Button>
+          <Button
+            onClick={() =>
+              void run(() => approve.mutateAsync({ itemId: item.itemId }), `Photo approved: order ${item.orderNumber} moves to prep.`)
+            }
+          >
+            Approve photo
+          </Button>
           <Button variant="secondary" onClick={() => setAsking(true)}>
             Ask for a new photo
           </Button>
@@ -122,13 +170,32 @@ function ReviewDetail({ slug, units, item }: { slug: string; units: LengthUnit; 
         <Card>
           <CardTitle>At print size ({formatSize(item.areaWidthMm, item.areaHeightMm, units)})</CardTitle>
           <div className="overflow-auto rounded-lg bg-graphite-100 p-3">
-            <PlacedPhoto photo={item.photo} placement={item.placement} look={item.look} areaWidthMm={item.areaWidthMm} size={printSize} view="photo" label="The photo as placed, at print size, in the blank’s shape" />
+            <PlacedPhoto
+              photo={item.photo}
+              placement={item.placement}
+              look={item.look}
+              areaWidthMm={item.areaWidthMm}
+              size={printSize}
+              view="photo"
+              label="The photo as placed, at print size, in the blank’s shape"
+            />
           </div>
-          <p className="mt-2 text-xs text-graphite-500">At 96 screen pixels per inch; hold the screen at arm’s length for the look of the real piece.</p>
+          <p className="mt-2 text-xs text-graphite-500">
+            At 96 screen pixels per inch; hold the screen at arm’s length for the look of the real piece.
+          </p>
         </Card>
         <Card>
           <CardTitle>At 1:1 (one photo pixel per screen pixel)</CardTitle>
-          <div role="img" aria-label="The centre of the photo at one pixel per pixel" className="h-80 w-full rounded border border-graphite-100" style={{ backgroundImage: `url(${item.photo.originalUrl})`, backgroundRepeat: 'no-repeat', backgroundPosition: `calc(50% - ${centre.x - item.photo.width / 2}px) calc(50% - ${centre.y - item.photo.height / 2}px)` }} />
+          <div
+            role="img"
+            aria-label="The centre of the photo at one pixel per pixel"
+            className="h-80 w-full rounded border border-graphite-100"
+            style={{
+              backgroundImage: `url(${item.photo.originalUrl})`,
+              backgroundRepeat: 'no-repeat',
+              backgroundPosition: `calc(50% - ${centre.x - item.photo.width / 2}px) calc(50% - ${centre.y - item.photo.height / 2}px)`,
+            }}
+          />
           <p className="mt-2 text-xs text-graphite-500">The centre of the placed photo, from the original file.</p>
         </Card>
       </div>
@@ -139,13 +206,27 @@ function ReviewDetail({ slug, units, item }: { slug: string; units: LengthUnit; 
         onSubmit={(e) => {
           e.preventDefault();
           setAsking(false);
-          void run(() => ask.mutateAsync({ itemId: item.itemId, reason, note }), `Asked for a new photo for order ${item.orderNumber}; the buyer has an e-mail with a link.`);
+          void run(
+            () => ask.mutateAsync({ itemId: item.itemId, reason, note }),
+            `Asked for a new photo for order ${item.orderNumber}; the buyer has an e-mail with a link.`,
+          );
         }}
         confirm={{ label: 'Send the request' }}
       >
         <div className="flex flex-col gap-4">
-          <SelectField label="Reason" options={Object.entries(REVIEW_REASONS).map(([value, label]) => ({ value, label }))} value={reason} onChange={(e) => setReason(e.target.value as ReviewReason)} />
-          <TextAreaField label="Note to the buyer (optional)" value={note} onChange={(e) => setNote(e.target.value)} maxLength={500} hint="Shown in the e-mail, such as what kind of photo would work better." />
+          <SelectField
+            label="Reason"
+            options={Object.entries(REVIEW_REASONS).map(([value, label]) => ({ value, label }))}
+            value={reason}
+            onChange={(e) => setReason(e.target.value as ReviewReason)}
+          />
+          <TextAreaField
+            label="Note to the buyer (optional)"
+            value={note}
+            onChange={(e) => setNote(e.target.value)}
+            maxLength={500}
+            hint="Shown in the e-mail, such as what kind of photo would work better."
+          />
         </div>
       </Dialog>
     </div>

@@ -1,20 +1,24 @@
 import { Link, useParams } from 'react-router-dom';
-import { formatBurnTime } from '../../../../../shared/imaging/burn-time.ts';
-import { ITEM_STAGE_LABELS } from '../../../../../shared/orders/stages.ts';
-import { can } from '../../../../../shared/permissions.ts';
-import type { BatchView, RenderView } from '../../../../../shared/schemas/production.ts';
-import { WorkspaceLayout } from '../../../../components/layouts/workspace-layout.tsx';
-import { Button } from '../../../../components/ui/button.tsx';
-import { Card, CardTitle } from '../../../../components/ui/card.tsx';
-import { Notice } from '../../../../components/ui/notice.tsx';
-import { useToast } from '../../../../components/ui/toast.tsx';
-import { LaserCautions } from '../../../../features/catalog/components/laser-cautions.tsx';
-import { downloadRenderFile, useBatch, useMarkBurned, useRetryRender, useTakeOutOfBatch } from '../../../../features/production/api/production.ts';
-import { cx } from '../../../../lib/cx.ts';
+import { formatBurnTime } from '#shared/imaging/burn-time.ts';
+import { ITEM_STAGE_LABELS } from '#shared/orders/stages.ts';
+import { can } from '#shared/permissions.ts';
+import type { BatchView, RenderView } from '#shared/schemas/production.ts';
+import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { Button } from '#src/components/ui/button.tsx';
+import { Card } from '#src/components/ui/card.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { useToast } from '#src/components/ui/toast.tsx';
+import { LaserCautions } from '#src/features/catalog/components/laser-cautions.tsx';
+import { downloadRenderFile, useBatch, useMarkBurned, useRetryRender, useTakeOutOfBatch } from '#src/features/production/api/production.ts';
+import { cx } from '#src/lib/cx.ts';
 
 export function BatchPage() {
   const { batchId = '' } = useParams();
-  return <WorkspaceLayout>{({ studio, role }) => <Batch slug={studio.slug} batchId={batchId} canProduce={can(role, 'order:produce')} />}</WorkspaceLayout>;
+  return (
+    <WorkspaceLayout>
+      {({ studio, role }) => <Batch slug={studio.slug} batchId={batchId} canProduce={can(role, 'order:produce')} />}
+    </WorkspaceLayout>
+  );
 }
 
 /** One batch: each item's render with live progress, its files, and the move to burned. */
@@ -56,7 +60,10 @@ function BatchItem({ slug, item, canProduce }: { slug: string; item: BatchView['
   const retry = useRetryRender(slug);
   const takeOut = useTakeOutOfBatch(slug);
   const { render } = item;
-  const report = (done: string) => ({ onSuccess: () => toast.show(done, 'success'), onError: (e: Error) => toast.show(e.message, 'error') });
+  const report = (done: string) => ({
+    onSuccess: () => toast.show(done, 'success'),
+    onError: (e: Error) => toast.show(e.message, 'error'),
+  });
   return (
     <li>
       <Card className="flex flex-wrap gap-5">
@@ -74,7 +81,13 @@ function BatchItem({ slug, item, canProduce }: { slug: string; item: BatchView['
           {render.files.length > 0 && (
             <div className="flex flex-wrap gap-2">
               {render.files.map((file) => (
-                <Button key={file.kind} size="sm" variant="secondary" disabled={!canProduce} onClick={() => downloadRenderFile(slug, render.id, file.kind).catch((e: Error) => toast.show(e.message, 'error'))}>
+                <Button
+                  key={file.kind}
+                  size="sm"
+                  variant="secondary"
+                  disabled={!canProduce}
+                  onClick={() => downloadRenderFile(slug, render.id, file.kind).catch((e: Error) => toast.show(e.message, 'error'))}
+                >
                   Download {file.label.toLowerCase()} ({formatBytes(file.bytes)})
                 </Button>
               ))}
@@ -84,7 +97,11 @@ function BatchItem({ slug, item, canProduce }: { slug: string; item: BatchView['
         {canProduce && (
           <div className="flex flex-col items-stretch gap-2">
             {item.stage === 'in_production' && (
-              <Button disabled={render.status !== 'done'} busy={burned.isPending} onClick={() => burned.mutate(item.itemId, report(`Order ${item.orderNumber}: marked burned.`))}>
+              <Button
+                disabled={render.status !== 'done'}
+                busy={burned.isPending}
+                onClick={() => burned.mutate(item.itemId, report(`Order ${item.orderNumber}: marked burned.`))}
+              >
                 Mark burned
               </Button>
             )}
@@ -94,7 +111,11 @@ function BatchItem({ slug, item, canProduce }: { slug: string; item: BatchView['
               </Button>
             )}
             {item.stage === 'in_production' && (
-              <Button variant="quiet" busy={takeOut.isPending} onClick={() => takeOut.mutate(item.itemId, report('Taken out of the batch; it waits on the production page.'))}>
+              <Button
+                variant="quiet"
+                busy={takeOut.isPending}
+                onClick={() => takeOut.mutate(item.itemId, report('Taken out of the batch; it waits on the production page.'))}
+              >
                 Take out of batch
               </Button>
             )}
@@ -105,7 +126,12 @@ function BatchItem({ slug, item, canProduce }: { slug: string; item: BatchView['
   );
 }
 
-const STATUS_TEXT: Record<RenderView['status'], string> = { queued: 'Waiting for a worker', running: 'Rendering', done: 'Files ready', failed: 'Render failed' };
+const STATUS_TEXT: Record<RenderView['status'], string> = {
+  queued: 'Waiting for a worker',
+  running: 'Rendering',
+  done: 'Files ready',
+  failed: 'Render failed',
+};
 
 function RenderProgress({ render, label }: { render: RenderView; label: string }) {
   const failed = render.status === 'failed';
@@ -119,13 +145,35 @@ function RenderProgress({ render, label }: { render: RenderView; label: string }
         </span>
         <span>{render.progress} %</span>
       </div>
-      <div role="progressbar" aria-label={label} aria-valuemin={0} aria-valuemax={100} aria-valuenow={render.progress} className="h-2 overflow-hidden rounded-full bg-graphite-100">
-        <div className={cx('h-full rounded-full transition-[width]', failed ? 'bg-rust-600' : render.status === 'done' ? 'bg-moss-600' : 'bg-accent')} style={{ width: `${Math.max(render.progress, 3)}%` }} />
+      <div
+        role="progressbar"
+        aria-label={label}
+        aria-valuemin={0}
+        aria-valuemax={100}
+        aria-valuenow={render.progress}
+        className="h-2 overflow-hidden rounded-full bg-graphite-100"
+      >
+        <div
+          className={cx(
+            'h-full rounded-full transition-[width]',
+            failed ? 'bg-rust-600' : render.status === 'done' ? 'bg-moss-600' : 'bg-accent',
+          )}
+          style={{ width: `${Math.max(render.progress, 3)}%` }}
+        />
       </div>
-      {render.error && <p className={cx('text-xs', failed ? 'font-semibold text-rust-600' : 'text-graphite-600')}>{failed ? `Error: ${render.error}` : `Last attempt failed (${render.error}); trying again.`}</p>}
-      {render.stalled && <p className="text-xs font-semibold text-rust-600">The worker has not reported for a while; it may have stopped. Render again to hand the job to another.</p>}
+      {render.error && (
+        <p className={cx('text-xs', failed ? 'font-semibold text-rust-600' : 'text-graphite-600')}>
+          {failed ? `Error: ${render.error}` : `Last attempt failed (${render.error}); trying again.`}
+        </p>
+      )}
+      {render.stalled && (
+        <p className="text-xs font-semibold text-rust-600">
+          The worker has not reported for a while; it may have stopped. Render again to hand the job to another.
+        </p>
+      )}
     </div>
   );
 }
 
-const formatBytes = (bytes: number) => (bytes >= 1_000_000 ? `${(bytes / 1_000_000).toFixed(1)} MB` : `${Math.max(1, Math.round(bytes / 1000))} KB`);
+const formatBytes = (bytes: number) =>
+  bytes >= 1_000_000 ? `${(bytes / 1_000_000).toFixed(1)} MB` : `${Math.max(1, Math.round(bytes / 1000))} KB`;

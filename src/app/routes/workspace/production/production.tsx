@@ -1,19 +1,21 @@
 import { Link, useNavigate } from 'react-router-dom';
-import { formatBurnTime } from '../../../../../shared/imaging/burn-time.ts';
-import { can } from '../../../../../shared/permissions.ts';
-import type { ProductionBoard } from '../../../../../shared/schemas/production.ts';
-import { WorkspaceLayout } from '../../../../components/layouts/workspace-layout.tsx';
-import { Button } from '../../../../components/ui/button.tsx';
-import { Card, CardTitle } from '../../../../components/ui/card.tsx';
-import { Notice } from '../../../../components/ui/notice.tsx';
-import { Table, TBody, TD, TH, THead, TR } from '../../../../components/ui/table.tsx';
-import { useToast } from '../../../../components/ui/toast.tsx';
-import { LaserCautions } from '../../../../features/catalog/components/laser-cautions.tsx';
-import { useCreateBatch, useProductionBoard } from '../../../../features/production/api/production.ts';
-import { useChosen } from '../../../../lib/use-chosen.ts';
+import { formatBurnTime } from '#shared/imaging/burn-time.ts';
+import { can } from '#shared/permissions.ts';
+import type { ProductionBoard } from '#shared/schemas/production.ts';
+import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { Button } from '#src/components/ui/button.tsx';
+import { Card, CardTitle } from '#src/components/ui/card.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { Table, TBody, TD, TH, THead, TR } from '#src/components/ui/table.tsx';
+import { useToast } from '#src/components/ui/toast.tsx';
+import { LaserCautions } from '#src/features/catalog/components/laser-cautions.tsx';
+import { useCreateBatch, useProductionBoard } from '#src/features/production/api/production.ts';
+import { useChosen } from '#src/lib/use-chosen.ts';
 
 export function ProductionPage() {
-  return <WorkspaceLayout>{({ studio, role }) => <Production slug={studio.slug} canProduce={can(role, 'order:produce')} />}</WorkspaceLayout>;
+  return (
+    <WorkspaceLayout>{({ studio, role }) => <Production slug={studio.slug} canProduce={can(role, 'order:produce')} />}</WorkspaceLayout>
+  );
 }
 
 /** Approved items waiting, grouped as they burn together, and the batches started so far. */
@@ -22,11 +24,18 @@ function Production({ slug, canProduce }: { slug: string; canProduce: boolean })
   return (
     <div className="flex flex-col gap-6">
       <h1 className="text-3xl font-extrabold">Production</h1>
-      <p className="max-w-3xl text-graphite-700">Approved items wait here, grouped by material and machine recipe: items in one group burn with the same settings. Start a batch to make their engrave files, grayscale masters and job sheets.</p>
+      <p className="max-w-3xl text-graphite-700">
+        Approved items wait here, grouped by material and machine recipe: items in one group burn with the same settings. Start a batch to
+        make their engrave files, grayscale masters and job sheets.
+      </p>
       {board.error && <Notice tone="error">{board.error.message}</Notice>}
       {board.isPending && <p className="text-graphite-500">Loading…</p>}
-      {board.data && board.data.groups.length === 0 && <Notice>No approved items are waiting. Items arrive here once their proof is approved (or they are approved without one).</Notice>}
-      {board.data?.groups.map((group) => <WaitingGroup key={group.key} slug={slug} group={group} canProduce={canProduce} />)}
+      {board.data && board.data.groups.length === 0 && (
+        <Notice>No approved items are waiting. Items arrive here once their proof is approved (or they are approved without one).</Notice>
+      )}
+      {board.data?.groups.map((group) => (
+        <WaitingGroup key={group.key} slug={slug} group={group} canProduce={canProduce} />
+      ))}
       {board.data && <Batches slug={slug} batches={board.data.batches} />}
       <LaserCautions />
     </div>
@@ -39,16 +48,34 @@ function WaitingGroup({ slug, group, canProduce }: { slug: string; group: Produc
   const toast = useToast();
   const navigate = useNavigate();
   const ids = group.items.filter((i) => chosen.has(i.itemId)).map((i) => i.itemId);
-  const total = group.items.filter((i) => chosen.has(i.itemId)).reduce<number | null>((sum, i) => (sum === null || i.estimatedBurnSeconds === null ? null : sum + i.estimatedBurnSeconds * i.quantity), 0);
+  const total = group.items
+    .filter((i) => chosen.has(i.itemId))
+    .reduce<number | null>(
+      (sum, i) => (sum === null || i.estimatedBurnSeconds === null ? null : sum + i.estimatedBurnSeconds * i.quantity),
+      0,
+    );
   const title = `${group.materialName} · ${group.machineName ?? 'no machine recipe'}`;
   return (
     <Card>
       <CardTitle aside={group.recipe && <span className="text-sm text-graphite-600">{group.recipe}</span>}>{title}</CardTitle>
-      {!group.machineName && <Notice tone="caution">This material has no recipe on any machine: the job sheets will say to set speed and power by hand. Add a recipe in Catalog → Recipes to have them filled in.</Notice>}
+      {!group.machineName && (
+        <Notice tone="caution">
+          This material has no recipe on any machine: the job sheets will say to set speed and power by hand. Add a recipe in Catalog →
+          Recipes to have them filled in.
+        </Notice>
+      )}
       <ul className="mt-3 flex flex-col divide-y divide-graphite-100" aria-label={`Waiting: ${title}`}>
         {group.items.map((item) => (
           <li key={item.itemId} className="flex items-center gap-3 py-2 text-sm">
-            {canProduce && <input type="checkbox" aria-label={`Include order ${item.orderNumber}, ${item.label}`} checked={chosen.has(item.itemId)} onChange={() => toggle(item.itemId)} className="size-4" />}
+            {canProduce && (
+              <input
+                type="checkbox"
+                aria-label={`Include order ${item.orderNumber}, ${item.label}`}
+                checked={chosen.has(item.itemId)}
+                onChange={() => toggle(item.itemId)}
+                className="size-4"
+              />
+            )}
             <img src={item.thumbUrl} alt="" className="size-10 rounded object-cover" />
             <span className="flex-1">
               <Link to={`/studio/${slug}/orders/${item.orderId}`} className="font-bold hover:underline">
@@ -57,7 +84,9 @@ function WaitingGroup({ slug, group, canProduce }: { slug: string; group: Produc
               · {item.label}
               {item.quantity > 1 && ` × ${item.quantity}`} · {item.buyerName}
             </span>
-            <span className="text-graphite-600">{item.estimatedBurnSeconds === null ? 'burn time not estimated' : `about ${formatBurnTime(item.estimatedBurnSeconds)} each`}</span>
+            <span className="text-graphite-600">
+              {item.estimatedBurnSeconds === null ? 'burn time not estimated' : `about ${formatBurnTime(item.estimatedBurnSeconds)} each`}
+            </span>
           </li>
         ))}
       </ul>
@@ -78,7 +107,9 @@ function WaitingGroup({ slug, group, canProduce }: { slug: string; group: Produc
           >
             Start a batch of {ids.length} {ids.length === 1 ? 'item' : 'items'}
           </Button>
-          {total !== null && ids.length > 0 && <span className="text-sm text-graphite-600">Estimated machine time: {formatBurnTime(total)}</span>}
+          {total !== null && ids.length > 0 && (
+            <span className="text-sm text-graphite-600">Estimated machine time: {formatBurnTime(total)}</span>
+          )}
         </div>
       )}
     </Card>

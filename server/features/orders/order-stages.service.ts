@@ -1,8 +1,8 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { AppError } from '../../../shared/errors.ts';
-import { assertItemAction, ITEM_ACTIONS, type ItemAction } from '../../../shared/orders/stages.ts';
-import { isUuid } from '../../lib/tokens.ts';
-import type { Studio } from '../studios/studio.entity.ts';
+import { AppError } from '#shared/errors.ts';
+import { assertItemAction, ITEM_ACTIONS, type ItemAction } from '#shared/orders/stages.ts';
+import { isUuid } from '#server/lib/tokens.ts';
+import type { Studio } from '#server/features/studios/studio.entity.ts';
 import { OrderEvent, OrderItem } from './order.entity.ts';
 
 /** One item of the studio, with its order and photo; another studio's answers 404. */

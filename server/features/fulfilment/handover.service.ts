@@ -1,14 +1,14 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { AppError } from '../../../shared/errors.ts';
-import { assertMove, ORDER_TRANSITIONS } from '../../../shared/orders/stages.ts';
-import type { ShipInput } from '../../../shared/schemas/production.ts';
-import { displayName, type User } from '../accounts/user.entity.ts';
-import { queueEmail } from '../outbox/outbox.service.ts';
-import type { Studio } from '../studios/studio.entity.ts';
-import { moveItem } from './item-moves.ts';
-import { handedOverMail } from './order-mail.ts';
-import { OrderEvent, type Order } from './order.entity.ts';
-import { findOrder } from './review.service.ts';
+import { AppError } from '#shared/errors.ts';
+import { assertMove, ORDER_TRANSITIONS } from '#shared/orders/stages.ts';
+import type { ShipInput } from '#shared/schemas/production.ts';
+import { displayName, type User } from '#server/features/accounts/user.entity.ts';
+import { queueEmail } from '#server/features/outbox/outbox.service.ts';
+import type { Studio } from '#server/features/studios/studio.entity.ts';
+import { moveItem } from '../orders/order-stages.service.ts';
+import { handedOverMail } from '../orders/order-mail.ts';
+import { OrderEvent, type Order } from '../orders/order.entity.ts';
+import { findOrder } from '#server/features/orders/orders.service.ts';
 
 const DONE = ['shipped', 'picked_up', 'cancelled'];
 
@@ -20,7 +20,8 @@ export async function handOver(em: EntityManager, studio: Studio, orderId: strin
   const order = await findOrder(em, studio, orderId);
   const items = [...new Set(input.itemIds)].map((id) => order.items.getItems().find((item) => item.id === id));
   if (items.some((item) => !item)) throw new AppError('NOT_FOUND', 'Some of these items are not in this order.');
-  if (order.status !== 'paid') throw new AppError('CONFLICT', `This order is ${order.status.replaceAll('_', ' ')}: only paid orders are shipped.`);
+  if (order.status !== 'paid')
+    throw new AppError('CONFLICT', `This order is ${order.status.replaceAll('_', ' ')}: only paid orders are shipped.`);
   const by = displayName(user);
   const at = new Date().toISOString();
   for (const item of items) {
@@ -40,7 +41,16 @@ export async function handOver(em: EntityManager, studio: Studio, orderId: strin
   }
   queueEmail(em, {
     to: order.buyerEmail,
-    ...handedOverMail({ studioName: studio.name, number: order.number, buyerName: order.buyerName, what: items.map((i) => `${i!.snapshot.blank.name} (${i!.snapshot.size.label})`), method: input.method, carrier: input.method === 'ship' ? input.carrier : undefined, trackingNumber: input.method === 'ship' ? input.trackingNumber : undefined, complete }),
+    ...handedOverMail({
+      studioName: studio.name,
+      number: order.number,
+      buyerName: order.buyerName,
+      what: items.map((i) => `${i!.snapshot.blank.name} (${i!.snapshot.size.label})`),
+      method: input.method,
+      carrier: input.method === 'ship' ? input.carrier : undefined,
+      trackingNumber: input.method === 'ship' ? input.trackingNumber : undefined,
+      complete,
+    }),
   });
   await em.flush();
   return order;

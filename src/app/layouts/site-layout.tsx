@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import { UserMenu } from '../../features/auth/components/user-menu.tsx';
+import { UserMenu } from '#src/features/auth/components/user-menu.tsx';
 
 /** Etchwell's own pages (home, sign-in, not found): the platform header and footer. */
 export function SiteLayout({ children }: { children: ReactNode }) {

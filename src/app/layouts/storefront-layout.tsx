@@ -1,11 +1,11 @@
 import type { CSSProperties, ReactNode } from 'react';
 import { Link, useParams } from 'react-router-dom';
-import { AppError } from '../../../shared/errors.ts';
-import type { PublicStudio } from '../../../shared/studio.ts';
-import { usePublicStudio } from '../../features/storefront/api/get-studio.ts';
-import { useCart } from '../../features/cart/cart-store.ts';
-import { NotFoundPage } from '../../app/routes/not-found.tsx';
-import { Notice } from '../ui/notice.tsx';
+import { AppError } from '#shared/errors.ts';
+import type { PublicStudio } from '#shared/studio.ts';
+import { usePublicStudio } from '#src/features/storefront/api/get-studio.ts';
+import { useCart } from '#src/features/cart/cart-store.ts';
+import { NotFoundPage } from '#src/app/routes/not-found.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
 
 /** A studio's storefront frame: its name and colour, the cart, and the closed notice when suspended. */
 export function StorefrontLayout({ children }: { children: (studio: PublicStudio) => ReactNode }) {
@@ -34,7 +34,10 @@ export function StorefrontLayout({ children }: { children: (studio: PublicStudio
             {name}
           </Link>
           {status === 'active' && (
-            <Link to={`/s/${studioSlug}/cart`} className="rounded-full px-4 py-2 font-bold text-graphite-800 ring-1 ring-inset ring-graphite-200 hover:bg-birch-100">
+            <Link
+              to={`/s/${studioSlug}/cart`}
+              className="rounded-full px-4 py-2 font-bold text-graphite-800 ring-1 ring-inset ring-graphite-200 hover:bg-birch-100"
+            >
               Cart{cart.count > 0 && <span className="ml-2 rounded-full bg-accent px-2 py-0.5 text-sm text-white">{cart.count}</span>}
             </Link>
           )}

@@ -1,20 +1,19 @@
 import { randomUUID } from 'node:crypto';
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { assertItemAction } from '../../../shared/orders/stages.ts';
-import { recipePrep } from '../../../shared/orders/prep-pipeline.ts';
-import type { Storage } from '../../adapters/storage.ts';
+import { assertItemAction } from '#shared/orders/stages.ts';
+import { recipePrep } from '#shared/orders/prep-pipeline.ts';
+import type { Storage } from '#server/adapters/storage.ts';
 import { renderProofImage } from './proof-image.ts';
-import { AppError } from '../../../shared/errors.ts';
-import { prepSettingsSchema, type PrepSettings, type ProofDecision } from '../../../shared/schemas/prep.ts';
-import { hashToken, newLinkToken } from '../../lib/tokens.ts';
-import { displayName, type User } from '../accounts/user.entity.ts';
-import { queueEmail } from '../outbox/outbox.service.ts';
-import type { Studio } from '../studios/studio.entity.ts';
-import { proofMail } from './order-mail.ts';
-import { findItem, moveItem } from './item-moves.ts';
-import { OrderEvent, OrderItem } from './order.entity.ts';
-import { lookOf } from './order.views.ts';
-
+import { AppError } from '#shared/errors.ts';
+import { prepSettingsSchema, type PrepSettings, type ProofDecision } from '#shared/schemas/prep.ts';
+import { hashToken, newLinkToken } from '#server/lib/tokens.ts';
+import { displayName, type User } from '#server/features/accounts/user.entity.ts';
+import { queueEmail } from '#server/features/outbox/outbox.service.ts';
+import type { Studio } from '#server/features/studios/studio.entity.ts';
+import { proofMail } from '../orders/order-mail.ts';
+import { findItem, moveItem } from '../orders/order-stages.service.ts';
+import { OrderEvent, OrderItem } from '../orders/order.entity.ts';
+import { lookOf } from '../orders/order.views.ts';
 
 /** Prep settings an item starts from: its recipe's (`recipePrep`, shared with the storefront's mock-up). */
 export const defaultPrep = (item: OrderItem): PrepSettings => recipePrep(lookOf(item));
@@ -25,21 +24,37 @@ export const currentPrep = (item: OrderItem): PrepSettings => {
   return saved ? prepSettingsSchema.parse(saved) : defaultPrep(item);
 };
 
-
-
 /** Saves prep settings as a new version; only while the item is being prepared. */
 export async function savePrep(em: EntityManager, studio: Studio, itemId: string, user: User, settings: PrepSettings): Promise<OrderItem> {
   const item = await findItem(em, studio, itemId);
-  if (item.stage !== 'prep') throw new AppError('CONFLICT', `This item is ${item.stage.replaceAll('_', ' ')}: prep settings can be changed only while it is being prepared.`);
+  if (item.stage !== 'prep')
+    throw new AppError(
+      'CONFLICT',
+      `This item is ${item.stage.replaceAll('_', ' ')}: prep settings can be changed only while it is being prepared.`,
+    );
   const version = (item.prepVersions.at(-1)?.version ?? 0) + 1;
   item.prepVersions = [...item.prepVersions, { version, settings, savedBy: displayName(user), savedAt: new Date().toISOString() }];
-  em.create(OrderEvent, { studio, order: item.order, item, type: 'prep_saved', actor: displayName(user), text: `Prep settings version ${version} saved by ${displayName(user)}.` });
+  em.create(OrderEvent, {
+    studio,
+    order: item.order,
+    item,
+    type: 'prep_saved',
+    actor: displayName(user),
+    text: `Prep settings version ${version} saved by ${displayName(user)}.`,
+  });
   await em.flush();
   return item;
 }
 
 /** Sends the buyer a proof: the mock-up of the current prep, with links to approve or ask for changes. */
-export async function sendProof(em: EntityManager, storage: Storage, studio: Studio, itemId: string, user: User, appUrl: string): Promise<OrderItem> {
+export async function sendProof(
+  em: EntityManager,
+  storage: Storage,
+  studio: Studio,
+  itemId: string,
+  user: User,
+  appUrl: string,
+): Promise<OrderItem> {
   const item = await findItem(em, studio, itemId);
   assertItemAction('sendProof', item.stage);
   // Rendered before anything is written: a proof that cannot be drawn is never sent.
@@ -50,7 +65,16 @@ export async function sendProof(em: EntityManager, storage: Storage, studio: Stu
   moveItem(em, item, 'sendProof', displayName(user), `Proof sent to the buyer by ${displayName(user)}.`, 'proof_sent');
   item.proofTokenHash = token.hash;
   item.proofImageKey = imageKey;
-  queueEmail(em, { to: item.order.buyerEmail, ...proofMail({ studioName: studio.name, number: item.order.number, buyerName: item.order.buyerName, what: `${item.snapshot.blank.name}, ${item.snapshot.size.label}`, url: `${appUrl}/s/${studio.slug}/proofs/${token.token}` }) });
+  queueEmail(em, {
+    to: item.order.buyerEmail,
+    ...proofMail({
+      studioName: studio.name,
+      number: item.order.number,
+      buyerName: item.order.buyerName,
+      what: `${item.snapshot.blank.name}, ${item.snapshot.size.label}`,
+      url: `${appUrl}/s/${studio.slug}/proofs/${token.token}`,
+    }),
+  });
   await em.flush();
   return item;
 }
@@ -58,15 +82,29 @@ export async function sendProof(em: EntityManager, storage: Storage, studio: Stu
 /** For studios (or items) that need no proof: straight from prep to approved. */
 export async function approveWithoutProof(em: EntityManager, studio: Studio, itemId: string, user: User): Promise<OrderItem> {
   const item = await findItem(em, studio, itemId);
-  if (studio.proofsRequired) throw new AppError('CONFLICT', 'This studio sends every buyer a proof before engraving. Send a proof, or change that in Settings.');
-  moveItem(em, item, 'approveWithoutProof', displayName(user), `Approved for engraving without a proof by ${displayName(user)}.`, 'approved');
+  if (studio.proofsRequired)
+    throw new AppError('CONFLICT', 'This studio sends every buyer a proof before engraving. Send a proof, or change that in Settings.');
+  moveItem(
+    em,
+    item,
+    'approveWithoutProof',
+    displayName(user),
+    `Approved for engraving without a proof by ${displayName(user)}.`,
+    'approved',
+  );
   await em.flush();
   return item;
 }
 
 export async function findProof(em: EntityManager, studio: Studio, token: string): Promise<OrderItem> {
-  const item = token ? await em.findOne(OrderItem, { studio, proofTokenHash: hashToken(token) }, { populate: ['order', 'order.studio', 'photo'] }) : null;
-  if (!item || item.stage !== 'proof_sent') throw new AppError('NOT_FOUND', 'This proof has been answered already or is no longer valid. Your order page shows where things stand.');
+  const item = token
+    ? await em.findOne(OrderItem, { studio, proofTokenHash: hashToken(token) }, { populate: ['order', 'order.studio', 'photo'] })
+    : null;
+  if (!item || item.stage !== 'proof_sent')
+    throw new AppError(
+      'NOT_FOUND',
+      'This proof has been answered already or is no longer valid. Your order page shows where things stand.',
+    );
   return item;
 }
 

@@ -1,9 +1,9 @@
 import express, { Router } from 'express';
-import type { Payments } from '../../adapters/payments.ts';
-import type { Env } from '../../env.ts';
-import type { Logger } from '../../logger.ts';
-import type { Orm } from '../../db/orm.ts';
-import { AppError } from '../../../shared/errors.ts';
+import type { Payments } from '#server/adapters/payments.ts';
+import type { Env } from '#server/env.ts';
+import type { Logger } from '#server/logger.ts';
+import type { Orm } from '#server/db/orm.ts';
+import { AppError } from '#shared/errors.ts';
 import { handlePaymentEvent } from './payment-events.service.ts';
 
 /**

@@ -1,12 +1,12 @@
 import type { ReactNode } from 'react';
 import { NavLink, useParams } from 'react-router-dom';
-import { can } from '../../../shared/permissions.ts';
-import { AppError } from '../../../shared/errors.ts';
-import { useWorkspace, type Workspace } from '../../features/workspace/api/get-workspace.ts';
-import { UserMenu } from '../../features/auth/components/user-menu.tsx';
-import { RequireSignIn } from '../../app/routes/workspace/require-sign-in.tsx';
-import { Notice } from '../ui/notice.tsx';
-import { cx } from '../../lib/cx.ts';
+import { can } from '#shared/permissions.ts';
+import { AppError } from '#shared/errors.ts';
+import { useWorkspace, type Workspace } from '#src/features/workspace/api/get-workspace.ts';
+import { UserMenu } from '#src/features/auth/components/user-menu.tsx';
+import { RequireSignIn } from '#src/app/routes/workspace/require-sign-in.tsx';
+import { Notice } from '#src/components/ui/notice.tsx';
+import { cx } from '#src/lib/cx.ts';
 
 /** The workspace frame: studio name, the pages this member may open, and the account menu. */
 export function WorkspaceLayout({ children }: { children: (workspace: Workspace) => ReactNode }) {
@@ -37,7 +37,11 @@ function WorkspaceFrame({ children }: { children: (workspace: Workspace) => Reac
           <div className="flex items-center gap-3">
             <img src="/favicon.svg" alt="" className="size-7" />
             <span className="text-lg font-extrabold">{workspace.data?.studio.name ?? 'Workspace'}</span>
-            {workspace.data && <span className="rounded-full bg-birch-100 px-2 py-0.5 text-xs font-bold uppercase tracking-wide text-graphite-600">{workspace.data.role}</span>}
+            {workspace.data && (
+              <span className="rounded-full bg-birch-100 px-2 py-0.5 text-xs font-bold uppercase tracking-wide text-graphite-600">
+                {workspace.data.role}
+              </span>
+            )}
           </div>
           <UserMenu />
         </div>
@@ -50,7 +54,12 @@ function WorkspaceFrame({ children }: { children: (workspace: Workspace) => Reac
                 key={item.to}
                 to={item.to}
                 end={item.end}
-                className={({ isActive }) => cx('shrink-0 whitespace-nowrap border-b-2 px-3 py-2.5 text-sm font-semibold', isActive ? 'border-ember-500 text-graphite-950' : 'border-transparent text-graphite-500 hover:text-graphite-800')}
+                className={({ isActive }) =>
+                  cx(
+                    'shrink-0 whitespace-nowrap border-b-2 px-3 py-2.5 text-sm font-semibold',
+                    isActive ? 'border-ember-500 text-graphite-950' : 'border-transparent text-graphite-500 hover:text-graphite-800',
+                  )
+                }
               >
                 {item.label}
               </NavLink>
@@ -61,7 +70,9 @@ function WorkspaceFrame({ children }: { children: (workspace: Workspace) => Reac
         {workspace.isPending && <p className="text-graphite-500">Opening the workspace…</p>}
         {workspace.error && (
           <Notice tone="error" title="This workspace could not be opened">
-            {workspace.error instanceof AppError && workspace.error.code === 'NOT_FOUND' ? 'There is no studio at this address, or you are not a member of it.' : workspace.error.message}
+            {workspace.error instanceof AppError && workspace.error.code === 'NOT_FOUND'
+              ? 'There is no studio at this address, or you are not a member of it.'
+              : workspace.error.message}
           </Notice>
         )}
         {workspace.data && children(workspace.data)}

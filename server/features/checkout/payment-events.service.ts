@@ -1,18 +1,18 @@
 import { LockMode } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import type Stripe from 'stripe';
-import { formatMoney } from '../../../shared/money.ts';
-import { assertMove } from '../../../shared/orders/stages.ts';
-import { ITEM_TRANSITIONS, ORDER_TRANSITIONS } from '../../../shared/orders/stages.ts';
-import type { Payments } from '../../adapters/payments.ts';
-import type { Env } from '../../env.ts';
-import type { Orm } from '../../db/orm.ts';
-import { TENANT_FILTER } from '../../db/tenant.ts';
-import { BlankSize } from '../catalog/catalog.entity.ts';
-import { queueEmail } from '../outbox/outbox.service.ts';
-import { Membership } from '../team/membership.entity.ts';
-import { latePaymentMail, newOrderMail, orderReceivedMail, soldOutMail } from './order-mail.ts';
-import { Order, OrderEvent } from './order.entity.ts';
+import { formatMoney } from '#shared/money.ts';
+import { assertMove } from '#shared/orders/stages.ts';
+import { ITEM_TRANSITIONS, ORDER_TRANSITIONS } from '#shared/orders/stages.ts';
+import type { Payments } from '#server/adapters/payments.ts';
+import type { Env } from '#server/env.ts';
+import type { Orm } from '#server/db/orm.ts';
+import { TENANT_FILTER } from '#server/db/tenant.ts';
+import { BlankSize } from '#server/features/catalog/catalog.entity.ts';
+import { queueEmail } from '#server/features/outbox/outbox.service.ts';
+import { Membership } from '#server/features/team/membership.entity.ts';
+import { latePaymentMail, newOrderMail, orderReceivedMail, soldOutMail } from '../orders/order-mail.ts';
+import { Order, OrderEvent } from '../orders/order.entity.ts';
 
 export type EventOutcome = 'handled' | 'duplicate' | 'ignored';
 
@@ -22,8 +22,11 @@ export type EventOutcome = 'handled' | 'duplicate' | 'ignored';
  * rolls everything back, the webhook answers 500, and the provider delivers it again.
  */
 export async function handlePaymentEvent(orm: Orm, deps: { payments: Payments; env: Env }, event: Stripe.Event): Promise<EventOutcome> {
-  return (orm.em.fork() as EntityManager).transactional(async (em) => {
-    const claimed = await em.execute<Array<{ id: string }>>('insert into "payment_event" ("id", "type") values (?, ?) on conflict do nothing returning "id"', [event.id, event.type]);
+  return orm.em.fork().transactional(async (em) => {
+    const claimed = await em.execute<Array<{ id: string }>>(
+      'insert into "payment_event" ("id", "type") values (?, ?) on conflict do nothing returning "id"',
+      [event.id, event.type],
+    );
     if (!claimed.length) return 'duplicate';
     switch (event.type) {
       case 'checkout.session.completed':
@@ -40,7 +43,11 @@ export async function handlePaymentEvent(orm: Orm, deps: { payments: Payments; e
 
 async function orderFor(em: EntityManager, orderId: string | undefined): Promise<Order | null> {
   if (!orderId) return null;
-  const order = await em.findOne(Order, { id: orderId }, { filters: { [TENANT_FILTER]: false }, populate: ['studio'], lockMode: LockMode.PESSIMISTIC_WRITE });
+  const order = await em.findOne(
+    Order,
+    { id: orderId },
+    { filters: { [TENANT_FILTER]: false }, populate: ['studio'], lockMode: LockMode.PESSIMISTIC_WRITE },
+  );
   if (order) em.setFilterParams(TENANT_FILTER, { studioId: order.studio.id });
   return order;
 }
@@ -50,20 +57,41 @@ async function orderFor(em: EntityManager, orderId: string | undefined): Promise
  * the events came out of order): the stock is no longer held, so the money goes back in full and
  * the buyer is told. Acted on once, like every event.
  */
-async function latePayment(em: EntityManager, deps: { payments: Payments }, order: Order, session: Stripe.Checkout.Session): Promise<EventOutcome> {
+async function latePayment(
+  em: EntityManager,
+  deps: { payments: Payments },
+  order: Order,
+  session: Stripe.Checkout.Session,
+): Promise<EventOutcome> {
   const paymentIntentId = typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
   if (!paymentIntentId) return 'ignored';
-  await deps.payments.stripe.refunds.create({ payment_intent: paymentIntentId, reason: 'requested_by_customer', metadata: { orderId: order.id } }, { idempotencyKey: `late-payment-${order.id}` });
+  await deps.payments.stripe.refunds.create(
+    { payment_intent: paymentIntentId, reason: 'requested_by_customer', metadata: { orderId: order.id } },
+    { idempotencyKey: `late-payment-${order.id}` },
+  );
   const total = formatMoney(order.totalMinor, order.currency);
   order.paymentIntentId = paymentIntentId;
   order.refundedMinor = order.totalMinor;
   order.note = `Your payment of ${total} arrived after this order had lapsed, so it was refunded in full. Please order again.`;
-  em.create(OrderEvent, { studio: order.studio, order, type: 'late_payment_refunded', actor: 'payments', text: `A payment of ${total} arrived after the order had lapsed: refunded in full.` });
-  queueEmail(em, { to: order.buyerEmail, ...latePaymentMail({ studioName: order.studio.name, number: order.number, buyerName: order.buyerName, total }) });
+  em.create(OrderEvent, {
+    studio: order.studio,
+    order,
+    type: 'late_payment_refunded',
+    actor: 'payments',
+    text: `A payment of ${total} arrived after the order had lapsed: refunded in full.`,
+  });
+  queueEmail(em, {
+    to: order.buyerEmail,
+    ...latePaymentMail({ studioName: order.studio.name, number: order.number, buyerName: order.buyerName, total }),
+  });
   return 'handled';
 }
 
-async function sessionCompleted(em: EntityManager, deps: { payments: Payments; env: Env }, session: Stripe.Checkout.Session): Promise<EventOutcome> {
+async function sessionCompleted(
+  em: EntityManager,
+  deps: { payments: Payments; env: Env },
+  session: Stripe.Checkout.Session,
+): Promise<EventOutcome> {
   const order = await orderFor(em, session.metadata?.orderId);
   if (!order || order.checkoutSessionId !== session.id || session.payment_status !== 'paid') return 'ignored';
   if (order.status === 'cancelled' && !order.paymentIntentId) return latePayment(em, deps, order, session);
@@ -85,13 +113,26 @@ async function sessionCompleted(em: EntityManager, deps: { payments: Payments; e
   });
   if (short) {
     const what = `${short.snapshot.blank.name}, ${short.snapshot.size.label}`;
-    if (paymentIntentId) await deps.payments.stripe.refunds.create({ payment_intent: paymentIntentId, reason: 'requested_by_customer', metadata: { orderId: order.id } }, { idempotencyKey: `sold-out-${order.id}` });
+    if (paymentIntentId)
+      await deps.payments.stripe.refunds.create(
+        { payment_intent: paymentIntentId, reason: 'requested_by_customer', metadata: { orderId: order.id } },
+        { idempotencyKey: `sold-out-${order.id}` },
+      );
     assertMove('order', ORDER_TRANSITIONS, order.status, 'cancelled');
     order.status = 'cancelled';
     order.note = `${what} sold out while you were paying. Your payment of ${total} was refunded in full.`;
     for (const item of items) item.stage = 'cancelled';
-    em.create(OrderEvent, { studio, order, type: 'sold_out', actor: 'payments', text: `Paid, but ${what} had sold out: refunded ${total} and cancelled.` });
-    queueEmail(em, { to: order.buyerEmail, ...soldOutMail({ studioName: studio.name, number: order.number, buyerName: order.buyerName, what, total }) });
+    em.create(OrderEvent, {
+      studio,
+      order,
+      type: 'sold_out',
+      actor: 'payments',
+      text: `Paid, but ${what} had sold out: refunded ${total} and cancelled.`,
+    });
+    queueEmail(em, {
+      to: order.buyerEmail,
+      ...soldOutMail({ studioName: studio.name, number: order.number, buyerName: order.buyerName, what, total }),
+    });
     return 'handled';
   }
   for (const size of sizes) {
@@ -105,22 +146,37 @@ async function sessionCompleted(em: EntityManager, deps: { payments: Payments; e
     assertMove('item', ITEM_TRANSITIONS, item.stage, 'photo_review');
     item.stage = 'photo_review';
   }
-  em.create(OrderEvent, { studio, order, type: 'paid', actor: 'payments', text: `Payment of ${total} received. The photos are waiting for review.` });
+  em.create(OrderEvent, {
+    studio,
+    order,
+    type: 'paid',
+    actor: 'payments',
+    text: `Payment of ${total} received. The photos are waiting for review.`,
+  });
 
-  const lines = items.map((i) => ({ name: `${i.snapshot.blank.name}, ${i.snapshot.size.label}`, quantity: i.quantity, price: formatMoney(i.unitPriceMinor * i.quantity, order.currency) }));
+  const lines = items.map((i) => ({
+    name: `${i.snapshot.blank.name}, ${i.snapshot.size.label}`,
+    quantity: i.quantity,
+    price: formatMoney(i.unitPriceMinor * i.quantity, order.currency),
+  }));
   const mail = { studioName: studio.name, number: order.number, buyerName: order.buyerName, lines, total };
   // The private link was sent to the pay page as its return address; the e-mail carries it too.
   const key = new URL(session.success_url ?? 'http://x/').searchParams.get('key');
   const orderUrl = `${deps.env.APP_URL}/s/${studio.slug}/orders/${order.id}${key ? `?key=${key}` : ''}`;
   queueEmail(em, { to: order.buyerEmail, ...orderReceivedMail({ ...mail, url: orderUrl }) });
-  for (const to of await studioAddresses(em, order)) queueEmail(em, { to, ...newOrderMail({ ...mail, url: `${deps.env.APP_URL}/studio/${studio.slug}` }) });
+  for (const to of await studioAddresses(em, order))
+    queueEmail(em, { to, ...newOrderMail({ ...mail, url: `${deps.env.APP_URL}/studio/${studio.slug}` }) });
   return 'handled';
 }
 
 /** The studio's contact address, or else its owners'. */
 async function studioAddresses(em: EntityManager, order: Order): Promise<string[]> {
   if (order.studio.contactEmail) return [order.studio.contactEmail];
-  const owners = await em.find(Membership, { studio: order.studio, role: 'owner' }, { populate: ['user'], filters: { [TENANT_FILTER]: false } });
+  const owners = await em.find(
+    Membership,
+    { studio: order.studio, role: 'owner' },
+    { populate: ['user'], filters: { [TENANT_FILTER]: false } },
+  );
   return owners.map((m) => m.user.email);
 }
 
@@ -132,7 +188,13 @@ async function sessionExpired(em: EntityManager, session: Stripe.Checkout.Sessio
   order.status = 'cancelled';
   order.note = 'The time to pay ran out, so the order was not placed. Nothing was charged.';
   for (const item of order.items) item.stage = 'cancelled';
-  em.create(OrderEvent, { studio: order.studio, order, type: 'expired', actor: 'payments', text: 'The time to pay ran out; the order was released. Nothing was charged.' });
+  em.create(OrderEvent, {
+    studio: order.studio,
+    order,
+    type: 'expired',
+    actor: 'payments',
+    text: 'The time to pay ran out; the order was released. Nothing was charged.',
+  });
   return 'handled';
 }
 
@@ -140,6 +202,12 @@ async function paymentFailed(em: EntityManager, intent: Stripe.PaymentIntent): P
   const order = await orderFor(em, intent.metadata?.orderId);
   if (!order || order.status !== 'awaiting_payment') return 'ignored';
   const reason = intent.last_payment_error?.message ?? 'The payment was declined.';
-  em.create(OrderEvent, { studio: order.studio, order, type: 'payment_failed', actor: 'payments', text: `A payment attempt failed: ${reason}` });
+  em.create(OrderEvent, {
+    studio: order.studio,
+    order,
+    type: 'payment_failed',
+    actor: 'payments',
+    text: `A payment attempt failed: ${reason}`,
+  });
   return 'handled';
 }

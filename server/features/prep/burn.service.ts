@@ -1,8 +1,8 @@
-import { orientedArea } from '../../../shared/imaging/sizing.ts';
-import type { PrepSettings } from '../../../shared/schemas/prep.ts';
-import type { Storage } from '../../adapters/storage.ts';
-import { burnPiece, type Burned, type Piece } from '../../imaging/piece.ts';
-import type { OrderItem } from './order.entity.ts';
+import { orientedArea } from '#shared/imaging/sizing.ts';
+import type { PrepSettings } from '#shared/schemas/prep.ts';
+import type { Storage } from '#server/adapters/storage.ts';
+import { burnPiece, type Burned, type Piece } from '#server/imaging/piece.ts';
+import type { OrderItem } from '../orders/order.entity.ts';
 
 /**
  * An order item as a piece to burn (`server/imaging/piece.ts`): its placement, its area turned

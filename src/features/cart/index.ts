@@ -1,0 +1,2 @@
+// What other features may use of the cart.
+export { useCart, type CartLine } from './cart-store.ts';

@@ -1,0 +1,3 @@
+// What other features may use of the designer: the mock-up worker's job and look, for previews
+// drawn elsewhere with the same pipeline.
+export type { MockupJob, MockupLook } from './mockup-protocol.ts';
