@@ -30,3 +30,6 @@ export const ROLE_PERMISSIONS: Record<Role, readonly Permission[]> = {
 export function can(role: Role | undefined | null, permission: Permission): boolean {
   return role ? ROLE_PERMISSIONS[role].includes(permission) : false;
 }
+
+/** How people read each role, wherever it is shown: the workspace header, Team, invitations. */
+export const ROLE_LABELS: Record<Role, string> = { owner: 'Owner', staff: 'Team member' };

@@ -12,43 +12,65 @@ export function fractionDigits(currency: string): number {
   return new Intl.NumberFormat('en', { style: 'currency', currency }).resolvedOptions().maximumFractionDigits ?? 2;
 }
 
-const STYLE = `
-  *{box-sizing:border-box} body{margin:0;font:16px/1.5 system-ui,sans-serif;background:#eef1f4;color:#1b2430}
-  main{max-width:880px;margin:40px auto;display:grid;grid-template-columns:1fr 1fr;gap:0;background:#fff;border-radius:14px;overflow:hidden;box-shadow:0 8px 30px rgba(20,30,40,.12)}
-  section{padding:32px} .summary{background:#1b2430;color:#e9eef3} .summary h1{font-size:18px;margin:0 0 4px}
-  .total{font-size:34px;font-weight:700;margin:8px 0 24px} table{width:100%;border-collapse:collapse;font-size:14px}
-  td{padding:6px 0;border-bottom:1px solid #2c3846} td.r{text-align:right} .note{font-size:12px;opacity:.7;margin-top:24px}
-  label{display:block;font-size:13px;font-weight:600;margin:14px 0 4px} input{width:100%;padding:10px 12px;border:1px solid #c5ced8;border-radius:8px;font:inherit}
-  .row{display:grid;grid-template-columns:1fr 1fr;gap:12px} button{margin-top:22px;width:100%;padding:12px;border:0;border-radius:8px;background:#2f6fdf;color:#fff;font:600 16px system-ui;cursor:pointer}
-  .error{background:#fde8e8;color:#8a1c1c;border-radius:8px;padding:10px 12px;font-size:14px;margin-bottom:6px} a{color:inherit}
-  .badge{display:inline-block;font-size:11px;font-weight:700;letter-spacing:.08em;background:#f6c343;color:#1b2430;border-radius:4px;padding:2px 6px;margin-bottom:14px}
-  @media (max-width:720px){main{grid-template-columns:1fr;margin:0;border-radius:0}}`;
+/** The practice cards the page offers, by what happens when each is used. */
+export const PRACTICE_OUTCOMES = [
+  { card: '4242 4242 4242 4242', words: 'Goes through' },
+  { card: '4000 0000 0000 0002', words: 'Refused' },
+  { card: '4000 0000 0000 9995', words: 'Not enough funds' },
+] as const;
 
-/** The hosted-style pay page of the local payments stand-in. */
+// Etchwell's own colours: birch paper, graphite text, ember for the one action.
+const STYLE = `
+  *{box-sizing:border-box} body{margin:0;font:16px/1.5 system-ui,sans-serif;background:#f4eee4;color:#2a2521}
+  .strip{background:#2a2521;color:#fbf8f3;text-align:center;font-size:14px;font-weight:600;padding:10px 16px}
+  main{max-width:480px;margin:32px auto;padding:0 16px}
+  .card{background:#fbf8f3;border:1px solid #e8dfcf;border-radius:18px;padding:24px}
+  h1{font-size:15px;font-weight:600;margin:0;color:#6b625a} .total{font-size:32px;font-weight:800;margin:2px 0 12px}
+  ul.lines{list-style:none;margin:0 0 20px;padding:0;font-size:14px} ul.lines li{display:flex;justify-content:space-between;gap:12px;padding:6px 0;border-top:1px dashed #e8dfcf}
+  label{display:block;font-size:14px;font-weight:600;margin:14px 0 4px}
+  input{width:100%;min-height:44px;padding:10px 12px;border:1px solid #cfc4b3;border-radius:10px;font:inherit;background:#fff}
+  input:focus-visible,button:focus-visible,a:focus-visible{outline:3px solid #c2410c;outline-offset:2px}
+  .pair{display:grid;grid-template-columns:1fr 1fr;gap:12px}
+  .pay{margin-top:22px;width:100%;min-height:48px;border:0;border-radius:999px;background:#c2410c;color:#fff;font:700 16px system-ui;cursor:pointer}
+  fieldset{border:0;margin:0 0 4px;padding:0} legend{font-size:14px;font-weight:600;margin-bottom:6px}
+  .outcomes{display:flex;flex-wrap:wrap;gap:8px} .outcomes button{min-height:40px;padding:6px 12px;border:1px solid #cfc4b3;border-radius:999px;background:#fff;font:600 14px system-ui;color:#2a2521;cursor:pointer}
+  .outcomes small{display:block;font-weight:400;color:#6b625a}
+  .error{background:#fbe3dc;color:#7c2d12;border-radius:10px;padding:10px 12px;font-size:14px;margin:12px 0 0}
+  .back{display:inline-block;margin-top:18px;font-size:14px;color:#2a2521;min-height:24px}`;
+
+// Fills the card number from an outcome button; without scripts the numbers are there to type.
+const SCRIPT = `document.querySelectorAll('[data-card]').forEach(function(b){b.addEventListener('click',function(){var f=document.getElementById('card');f.value=b.getAttribute('data-card');f.focus();});});`;
+
+/** The pay page of the local payments stand-in: practice only, in Etchwell's own look and words. */
 export function payPage(input: { session: CheckoutSession; items: LineItem[]; merchant: string; error?: string; email?: string }): string {
   const { session, items } = input;
-  const rows = items
-    .map((i) => `<tr><td>${escapeHtml(i.description)} × ${i.quantity}</td><td class="r">${money(i.amount_total, i.currency)}</td></tr>`)
+  const total = money(session.amount_total, session.currency);
+  const lines = items
+    .map((i) => `<li><span>${escapeHtml(i.description)} × ${i.quantity}</span><span>${money(i.amount_total, i.currency)}</span></li>`)
     .join('');
+  const back = session.cancel_url ? `<a class="back" href="${escapeHtml(session.cancel_url)}">← Back to the shop without paying</a>` : '';
   const closed =
     session.status !== 'open'
-      ? `<p>${session.status === 'expired' ? 'This payment page has expired.' : 'This payment is already complete.'}</p>${session.cancel_url ? `<p><a href="${escapeHtml(session.cancel_url)}">Return to the shop</a></p>` : ''}`
+      ? `<p>${session.status === 'expired' ? 'The time to pay on this page has run out.' : 'This has been paid already.'}</p>${back}`
       : '';
+  const outcomes = PRACTICE_OUTCOMES.map(
+    (o) => `<button type="button" data-card="${o.card}">${o.words}<small>${o.card}</small></button>`,
+  ).join('');
   const form = `
     <form method="post" action="/pay/${session.id}" autocomplete="off">
-      ${input.error ? `<div class="error" role="alert">${escapeHtml(input.error)}</div>` : ''}
+      <fieldset><legend>Pick what should happen</legend><div class="outcomes">${outcomes}</div></fieldset>
+      ${input.error ? `<p class="error" role="alert">${escapeHtml(input.error)}</p>` : ''}
       <label for="email">E-mail</label><input id="email" name="email" type="email" required value="${escapeHtml(input.email ?? session.customer_email ?? '')}">
-      <label for="card">Card number</label><input id="card" name="card" inputmode="numeric" placeholder="4242 4242 4242 4242" required>
-      <div class="row"><div><label for="expiry">Expiry (MM / YY)</label><input id="expiry" name="expiry" placeholder="12 / 34" required></div>
-      <div><label for="cvc">Security code</label><input id="cvc" name="cvc" inputmode="numeric" placeholder="123" required></div></div>
-      <label for="name">Name on card</label><input id="name" name="name" required>
-      <button type="submit">Pay ${money(session.amount_total, session.currency)}</button>
+      <label for="card">Card number</label><input id="card" name="card" inputmode="numeric" required>
+      <div class="pair"><div><label for="expiry">Expiry (MM / YY)</label><input id="expiry" name="expiry" placeholder="12 / 34" required></div>
+      <div><label for="cvc">Security code</label><input id="cvc" name="cvc" inputmode="numeric" placeholder="3 digits" required></div></div>
+      <label for="name">Name on card</label><input id="name" name="name" autocomplete="off" required>
+      <button class="pay" type="submit">Pay ${total}</button>
     </form>
-    ${session.cancel_url ? `<p class="note"><a href="${escapeHtml(session.cancel_url)}">Cancel and return to the shop</a></p>` : ''}`;
+    ${back}`;
   return `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width,initial-scale=1">
-<title>Pay ${escapeHtml(input.merchant)}</title><link rel="icon" href="data:,"><style>${STYLE}</style></head><body><main>
-<section class="summary"><span class="badge">TEST MODE</span><h1>${escapeHtml(input.merchant)}</h1>
-<div class="total">${money(session.amount_total, session.currency)}</div><table>${rows}</table>
-<p class="note">Local payments stand-in: no money moves. Test cards: 4242 4242 4242 4242 pays; 4000 0000 0000 0002 is declined; 4000 0000 0000 9995 is declined for insufficient funds.</p></section>
-<section><h2 style="margin-top:0;font-size:18px">Pay by card</h2>${closed || form}</section></main></body></html>`;
+<title>Practice payment · ${escapeHtml(input.merchant)}</title><link rel="icon" href="data:,"><style>${STYLE}</style></head><body>
+<p class="strip">Practice payment — no money moves</p>
+<main><div class="card"><h1>${escapeHtml(input.merchant)}</h1><div class="total">${total}</div><ul class="lines">${lines}</ul>
+${closed || form}</div></main><script>${SCRIPT}</script></body></html>`;
 }

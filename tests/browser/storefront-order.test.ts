@@ -62,7 +62,9 @@ describe('a buyer orders a glass portrait and pays', () => {
       .poll(() => page.getByRole('status').filter({ hasText: 'resolution' }).textContent(), { timeout: 15_000 })
       .toMatch(/Fair resolution: 215 pixels per inch at 7.5 × 9.5 in/);
     expect(await page.getByRole('progressbar').count()).toBe(0);
-    await expect.poll(() => page.getByTestId('render-time').count(), { timeout: 15_000 }).toBe(1);
+    await expect.poll(() => page.locator('canvas[data-drawn="true"]').count(), { timeout: 15_000 }).toBe(1);
+    // The buyer sees the picture, not how long it took to draw.
+    expect(await page.getByText(/drawn in \d+ ms/).count()).toBe(0);
     await page.getByRole('button', { name: 'Your photo' }).click();
     await page.getByRole('button', { name: 'As it will burn' }).click();
     await page.getByLabel('Zoom', { exact: true }).fill('1.2');

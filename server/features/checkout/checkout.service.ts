@@ -15,6 +15,7 @@ import { snapshotForOrder } from '#server/features/catalog/catalog.service.ts';
 import { findBuyerPhoto } from '#server/features/photos/photos.service.ts';
 import { ShippingRate } from '#server/features/shipping/shipping-rate.entity.ts';
 import type { Studio } from '#server/features/studios/studio.entity.ts';
+import { move } from '#server/features/orders/order-stages.service.ts';
 import { Order, OrderEvent, OrderItem } from '../orders/order.entity.ts';
 
 type CheckoutInput = z.output<typeof checkoutInputSchema>;
@@ -197,15 +198,12 @@ export async function placeOrder(
     await em.flush();
     return { order, paymentUrl: session.url!, accessKey: access.token };
   } catch (cause) {
-    order.status = 'cancelled';
+    move(
+      em,
+      { order, status: 'cancelled', items: 'cancelled' },
+      { type: 'cancelled', actor: 'payments', text: 'Payment could not be started; nothing was charged.' },
+    );
     order.note = 'Payment could not be started.';
-    em.create(OrderEvent, {
-      studio,
-      order,
-      type: 'cancelled',
-      actor: 'payments',
-      text: 'Payment could not be started; nothing was charged.',
-    });
     await em.flush();
     throw new AppError('SERVICE_UNAVAILABLE', 'Payment could not be started just now. Nothing was charged; please try again in a moment.', {
       cause,

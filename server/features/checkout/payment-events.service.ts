@@ -2,8 +2,6 @@ import { LockMode } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import type Stripe from 'stripe';
 import { formatMoney } from '#shared/money.ts';
-import { assertMove } from '#shared/orders/stages.ts';
-import { ITEM_TRANSITIONS, ORDER_TRANSITIONS } from '#shared/orders/stages.ts';
 import type { Payments } from '#server/adapters/payments.ts';
 import type { Env } from '#server/env.ts';
 import type { Orm } from '#server/db/orm.ts';
@@ -12,6 +10,7 @@ import { BlankSize } from '#server/features/catalog/catalog.entity.ts';
 import { queueEmail } from '#server/features/outbox/outbox.service.ts';
 import { Membership } from '#server/features/team/membership.entity.ts';
 import { latePaymentMail, newOrderMail, orderReceivedMail, soldOutMail } from '../orders/order-mail.ts';
+import { move } from '#server/features/orders/order-stages.service.ts';
 import { Order, OrderEvent } from '../orders/order.entity.ts';
 
 export type EventOutcome = 'handled' | 'duplicate' | 'ignored';
@@ -118,17 +117,12 @@ async function sessionCompleted(
         { payment_intent: paymentIntentId, reason: 'requested_by_customer', metadata: { orderId: order.id } },
         { idempotencyKey: `sold-out-${order.id}` },
       );
-    assertMove('order', ORDER_TRANSITIONS, order.status, 'cancelled');
-    order.status = 'cancelled';
+    move(
+      em,
+      { order, status: 'cancelled', items: 'cancelled' },
+      { type: 'sold_out', actor: 'payments', text: `Paid, but ${what} had sold out: refunded ${total} and cancelled.` },
+    );
     order.note = `${what} sold out while you were paying. Your payment of ${total} was refunded in full.`;
-    for (const item of items) item.stage = 'cancelled';
-    em.create(OrderEvent, {
-      studio,
-      order,
-      type: 'sold_out',
-      actor: 'payments',
-      text: `Paid, but ${what} had sold out: refunded ${total} and cancelled.`,
-    });
     queueEmail(em, {
       to: order.buyerEmail,
       ...soldOutMail({ studioName: studio.name, number: order.number, buyerName: order.buyerName, what, total }),
@@ -139,20 +133,12 @@ async function sessionCompleted(
     if (size.stock === null) continue;
     size.stock -= items.filter((i) => i.size?.id === size.id).reduce((n, i) => n + i.quantity, 0);
   }
-  assertMove('order', ORDER_TRANSITIONS, order.status, 'paid');
-  order.status = 'paid';
+  move(
+    em,
+    { order, status: 'paid', items: 'photo_review' },
+    { type: 'paid', actor: 'payments', text: `Payment of ${total} received. The photos are waiting for review.` },
+  );
   order.paidAt = new Date();
-  for (const item of items) {
-    assertMove('item', ITEM_TRANSITIONS, item.stage, 'photo_review');
-    item.stage = 'photo_review';
-  }
-  em.create(OrderEvent, {
-    studio,
-    order,
-    type: 'paid',
-    actor: 'payments',
-    text: `Payment of ${total} received. The photos are waiting for review.`,
-  });
 
   const lines = items.map((i) => ({
     name: `${i.snapshot.blank.name}, ${i.snapshot.size.label}`,
@@ -185,16 +171,12 @@ async function sessionExpired(em: EntityManager, session: Stripe.Checkout.Sessio
   // An expiry that arrives after the payment (events may come in any order) changes nothing.
   if (!order || order.checkoutSessionId !== session.id || order.status !== 'awaiting_payment') return 'ignored';
   await em.populate(order, ['items']);
-  order.status = 'cancelled';
+  move(
+    em,
+    { order, status: 'cancelled', items: 'cancelled' },
+    { type: 'expired', actor: 'payments', text: 'The time to pay ran out; the order was released. Nothing was charged.' },
+  );
   order.note = 'The time to pay ran out, so the order was not placed. Nothing was charged.';
-  for (const item of order.items) item.stage = 'cancelled';
-  em.create(OrderEvent, {
-    studio: order.studio,
-    order,
-    type: 'expired',
-    actor: 'payments',
-    text: 'The time to pay ran out; the order was released. Nothing was charged.',
-  });
   return 'handled';
 }
 

@@ -1,12 +1,13 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { AppError } from '#shared/errors.ts';
 import { formatMoney } from '#shared/money.ts';
-import { assertMove, ITEM_TRANSITIONS, ORDER_TRANSITIONS, type ItemStage } from '#shared/orders/stages.ts';
+import { assertMove, ORDER_TRANSITIONS, type ItemStage } from '#shared/orders/stages.ts';
 import type { Payments } from '#server/adapters/payments.ts';
 import { displayName, type User } from '#server/features/accounts/user.entity.ts';
 import { queueEmail } from '#server/features/outbox/outbox.service.ts';
 import type { Studio } from '#server/features/studios/studio.entity.ts';
 import { cancelledMail, refundedMail } from '../orders/order-mail.ts';
+import { move } from '#server/features/orders/order-stages.service.ts';
 import { OrderEvent, type Order } from '../orders/order.entity.ts';
 import { findOrder } from '#server/features/orders/orders.service.ts';
 import { recordAudit } from '#server/features/audit/audit.service.ts';
@@ -58,18 +59,15 @@ export async function refundOrder(
     });
   await payBack(payments, order, amount, input.reason);
   const whole = order.refundedMinor === order.totalMinor;
-  if (whole) {
-    assertMove('order', ORDER_TRANSITIONS, order.status, 'refunded');
-    order.status = 'refunded';
-  }
   const money = formatMoney(amount, order.currency);
-  em.create(OrderEvent, {
-    studio,
-    order,
+  const line = {
     type: 'refunded',
     actor: displayName(user),
     text: `${whole ? 'Refunded in full' : 'Refunded in part'}: ${money}, by ${displayName(user)}. Reason: ${input.reason}`,
-  });
+  };
+  // A refund in part is money only; the whole amount back ends the order.
+  if (whole) move(em, { order, status: 'refunded' }, line);
+  else em.create(OrderEvent, { studio, order, ...line });
   recordAudit(em, studio, user, {
     action: 'order.refunded',
     subject: `Order ${order.number}`,
@@ -108,14 +106,18 @@ export async function cancelOrder(
       'CONFLICT',
       `${started.snapshot.blank.name} is already ${started.stage.replaceAll('_', ' ')}: the order can be refunded but no longer cancelled.`,
     );
+  // Asked before any money moves; `move` below asks again as it changes the stages.
   assertMove('order', ORDER_TRANSITIONS, order.status, 'cancelled');
   const wasPaid = order.status === 'paid';
   const left = order.totalMinor - order.refundedMinor;
   if (wasPaid && left > 0) await payBack(payments, order, left, reason);
-  order.status = 'cancelled';
+  const refunded = wasPaid && left > 0 ? ` ${formatMoney(left, order.currency)} refunded.` : '';
+  move(
+    em,
+    { order, status: 'cancelled', items: 'cancelled' },
+    { type: 'cancelled', actor: displayName(user), text: `Cancelled by ${displayName(user)}. Reason: ${reason}.${refunded}` },
+  );
   for (const item of items) {
-    assertMove('item', ITEM_TRANSITIONS, item.stage, 'cancelled');
-    item.stage = 'cancelled';
     // Stock was taken at payment; it goes back.
     if (wasPaid && item.size)
       await em.execute('update "blank_size" set "stock" = "stock" + ? where "id" = ? and "studio_id" = ? and "stock" is not null', [
@@ -124,14 +126,6 @@ export async function cancelOrder(
         studio.id,
       ]);
   }
-  const refunded = wasPaid && left > 0 ? ` ${formatMoney(left, order.currency)} refunded.` : '';
-  em.create(OrderEvent, {
-    studio,
-    order,
-    type: 'cancelled',
-    actor: displayName(user),
-    text: `Cancelled by ${displayName(user)}. Reason: ${reason}.${refunded}`,
-  });
   recordAudit(em, studio, user, {
     action: 'order.cancelled',
     subject: `Order ${order.number}`,

@@ -1,13 +1,12 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { AppError } from '#shared/errors.ts';
-import { assertMove, ORDER_TRANSITIONS } from '#shared/orders/stages.ts';
 import type { ShipInput } from '#shared/schemas/production.ts';
 import { displayName, type User } from '#server/features/accounts/user.entity.ts';
 import { queueEmail } from '#server/features/outbox/outbox.service.ts';
 import type { Studio } from '#server/features/studios/studio.entity.ts';
-import { moveItem } from '../orders/order-stages.service.ts';
+import { moveItem, move } from '#server/features/orders/order-stages.service.ts';
 import { handedOverMail } from '../orders/order-mail.ts';
-import { OrderEvent, type Order } from '../orders/order.entity.ts';
+import { type Order } from '../orders/order.entity.ts';
 import { findOrder } from '#server/features/orders/orders.service.ts';
 
 const DONE = ['shipped', 'picked_up', 'cancelled'];
@@ -35,9 +34,11 @@ export async function handOver(em: EntityManager, studio: Studio, orderId: strin
   }
   const complete = order.items.getItems().every((item) => DONE.includes(item.stage));
   if (complete) {
-    assertMove('order', ORDER_TRANSITIONS, order.status, 'fulfilled');
-    order.status = 'fulfilled';
-    em.create(OrderEvent, { studio, order, type: 'fulfilled', actor: by, text: 'Every item has left the studio: the order is complete.' });
+    move(
+      em,
+      { order, status: 'fulfilled' },
+      { type: 'fulfilled', actor: by, text: 'Every item has left the studio: the order is complete.' },
+    );
   }
   queueEmail(em, {
     to: order.buyerEmail,

@@ -1,9 +1,12 @@
 import type { ReactNode } from 'react';
-import { Link } from 'react-router-dom';
+import { Link, Outlet } from 'react-router-dom';
 import { UserMenu } from '#src/features/auth/components/user-menu.tsx';
 
-/** Etchwell's own pages (home, sign-in, not found): the platform header and footer. */
-export function SiteLayout({ children }: { children: ReactNode }) {
+/**
+ * Etchwell's own pages (home, sign-in, not found): the platform header and footer. The layout
+ * route of those pages (its outlet shows the page), or a frame around `children`.
+ */
+export function SiteLayout({ children }: { children?: ReactNode }) {
   return (
     <div className="flex min-h-screen flex-col">
       <header className="border-b border-graphite-100 bg-white/80 backdrop-blur">
@@ -15,7 +18,7 @@ export function SiteLayout({ children }: { children: ReactNode }) {
           <UserMenu />
         </div>
       </header>
-      <main className="flex-1">{children}</main>
+      <main className="flex-1">{children ?? <Outlet />}</main>
       <footer className="border-t border-graphite-100 py-6 text-center text-xs text-graphite-500">
         Etchwell — photo engraving, from the buyer&rsquo;s phone to the laser.
       </footer>

@@ -1,5 +1,5 @@
 import type { CSSProperties, ReactNode } from 'react';
-import { Link, useParams } from 'react-router-dom';
+import { Link, Outlet, useOutletContext, useParams } from 'react-router-dom';
 import { AppError } from '#shared/errors.ts';
 import type { PublicStudio } from '#shared/studio.ts';
 import { usePublicStudio } from '#src/features/storefront/api/get-studio.ts';
@@ -7,8 +7,11 @@ import { useCart } from '#src/features/cart/cart-store.ts';
 import { NotFoundPage } from '#src/app/routes/not-found.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
 
-/** A studio's storefront frame: its name and colour, the cart, and the closed notice when suspended. */
-export function StorefrontLayout({ children }: { children: (studio: PublicStudio) => ReactNode }) {
+/**
+ * The layout route of a studio's storefront: its name and colour, the cart, and the closed notice
+ * when suspended. Its pages render in the outlet and read the studio with `WithStorefront`.
+ */
+export function StorefrontLayout() {
   const { studioSlug = '' } = useParams();
   const studio = usePublicStudio(studioSlug);
   const cart = useCart(studioSlug);
@@ -49,10 +52,15 @@ export function StorefrontLayout({ children }: { children: (studio: PublicStudio
             {name} is not taking orders at the moment. Orders already placed are not affected.
           </Notice>
         ) : (
-          children(studio.data)
+          <Outlet context={studio.data} />
         )}
       </main>
       <footer className="py-6 text-center text-xs text-graphite-500">Storefront powered by Etchwell</footer>
     </div>
   );
+}
+
+/** A storefront page's access to the studio its layout route loaded. */
+export function WithStorefront({ children }: { children: (studio: PublicStudio) => ReactNode }) {
+  return <>{children(useOutletContext<PublicStudio>())}</>;
 }

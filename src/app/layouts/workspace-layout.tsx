@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
-import { NavLink, useParams } from 'react-router-dom';
-import { can } from '#shared/permissions.ts';
+import { NavLink, Outlet, useOutletContext, useParams } from 'react-router-dom';
+import { can, ROLE_LABELS } from '#shared/permissions.ts';
 import { AppError } from '#shared/errors.ts';
 import { useWorkspace, type Workspace } from '#src/features/workspace/api/get-workspace.ts';
 import { UserMenu } from '#src/features/auth/components/user-menu.tsx';
@@ -8,16 +8,24 @@ import { RequireSignIn } from '#src/app/routes/workspace/require-sign-in.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
 import { cx } from '#src/lib/cx.ts';
 
-/** The workspace frame: studio name, the pages this member may open, and the account menu. */
-export function WorkspaceLayout({ children }: { children: (workspace: Workspace) => ReactNode }) {
+/**
+ * The layout route of a studio's workspace: studio name, the pages this member may open, and the
+ * account menu. Its pages render in the outlet and read the workspace with `WithWorkspace`.
+ */
+export function WorkspaceLayout() {
   return (
     <RequireSignIn>
-      <WorkspaceFrame>{children}</WorkspaceFrame>
+      <WorkspaceFrame />
     </RequireSignIn>
   );
 }
 
-function WorkspaceFrame({ children }: { children: (workspace: Workspace) => ReactNode }) {
+/** A workspace page's access to the studio and role its layout route loaded. */
+export function WithWorkspace({ children }: { children: (workspace: Workspace) => ReactNode }) {
+  return <>{children(useOutletContext<Workspace>())}</>;
+}
+
+function WorkspaceFrame() {
   const { studioSlug = '' } = useParams();
   const workspace = useWorkspace(studioSlug);
   const nav = [
@@ -38,8 +46,8 @@ function WorkspaceFrame({ children }: { children: (workspace: Workspace) => Reac
             <img src="/favicon.svg" alt="" className="size-7" />
             <span className="text-lg font-extrabold">{workspace.data?.studio.name ?? 'Workspace'}</span>
             {workspace.data && (
-              <span className="rounded-full bg-birch-100 px-2 py-0.5 text-xs font-bold uppercase tracking-wide text-graphite-600">
-                {workspace.data.role}
+              <span className="rounded-full bg-birch-100 px-2 py-0.5 text-xs font-bold text-graphite-600">
+                {ROLE_LABELS[workspace.data.role]}
               </span>
             )}
           </div>
@@ -75,7 +83,7 @@ function WorkspaceFrame({ children }: { children: (workspace: Workspace) => Reac
               : workspace.error.message}
           </Notice>
         )}
-        {workspace.data && children(workspace.data)}
+        {workspace.data && <Outlet context={workspace.data} />}
       </main>
     </div>
   );

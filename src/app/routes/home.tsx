@@ -1,5 +1,4 @@
 import { Link } from 'react-router-dom';
-import { SiteLayout } from '#src/app/layouts/site-layout.tsx';
 import { Card } from '#src/components/ui/card.tsx';
 import { buttonClasses } from '#src/components/ui/button.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
@@ -22,7 +21,7 @@ const steps = [
 
 export function HomePage() {
   return (
-    <SiteLayout>
+    <>
       <section className="mx-auto max-w-6xl px-6 pb-12 pt-16">
         <p className="mb-3 text-sm font-bold uppercase tracking-widest text-ember-600">For photo engraving studios</p>
         <h1 className="max-w-3xl text-4xl font-extrabold leading-tight text-graphite-950 sm:text-5xl">
@@ -67,6 +66,6 @@ export function HomePage() {
           and local codes.
         </Notice>
       </section>
-    </SiteLayout>
+    </>
   );
 }

@@ -3,7 +3,6 @@ import { Link, useNavigate, useParams } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
 import { acceptWithAccountInputSchema } from '#shared/schemas/team.ts';
 import { AppError } from '#shared/errors.ts';
-import { SiteLayout } from '#src/app/layouts/site-layout.tsx';
 import { Card } from '#src/components/ui/card.tsx';
 import { TextField } from '#src/components/ui/text-field.tsx';
 import { Button, buttonClasses } from '#src/components/ui/button.tsx';
@@ -117,7 +116,7 @@ export function InvitePage() {
   }
 
   return (
-    <SiteLayout>
+    <>
       <section className="mx-auto max-w-md px-6 py-16">
         <h1 className="mb-6 text-3xl font-extrabold">Invitation</h1>
         <Card>
@@ -129,6 +128,6 @@ export function InvitePage() {
           {body}
         </Card>
       </section>
-    </SiteLayout>
+    </>
   );
 }

@@ -2,7 +2,6 @@ import { Link } from 'react-router-dom';
 import { useQuery } from '@tanstack/react-query';
 import { ORDER_STATUS_LABELS } from '#shared/orders/stages.ts';
 import { myOrdersSchema } from '#shared/schemas/checkout.ts';
-import { SiteLayout } from '#src/app/layouts/site-layout.tsx';
 import { Card } from '#src/components/ui/card.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
 import { apiFetch } from '#src/lib/api-client.ts';
@@ -11,11 +10,11 @@ import { RequireSignIn } from './workspace/require-sign-in.tsx';
 /** Every order placed with the signed-in person's address, at any studio. */
 export function MyOrdersPage() {
   return (
-    <SiteLayout>
+    <>
       <RequireSignIn>
         <MyOrders />
       </RequireSignIn>
-    </SiteLayout>
+    </>
   );
 }
 

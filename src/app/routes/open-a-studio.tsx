@@ -3,7 +3,6 @@ import { useNavigate } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
 import { openStudioInputSchema } from '#shared/schemas/accounts.ts';
 import { studioSlugSchema } from '#shared/studio.ts';
-import { SiteLayout } from '#src/app/layouts/site-layout.tsx';
 import { Card } from '#src/components/ui/card.tsx';
 import { TextField } from '#src/components/ui/text-field.tsx';
 import { Button } from '#src/components/ui/button.tsx';
@@ -60,7 +59,7 @@ export function OpenStudioPage() {
   }
 
   return (
-    <SiteLayout>
+    <>
       <section className="mx-auto max-w-lg px-6 py-16">
         <h1 className="mb-2 text-3xl font-extrabold">Open your studio</h1>
         <p className="mb-6 text-graphite-600">A storefront for your buyers and a workspace for your team, ready in a minute.</p>
@@ -102,6 +101,6 @@ export function OpenStudioPage() {
           </form>
         </Card>
       </section>
-    </SiteLayout>
+    </>
   );
 }

@@ -1,5 +1,4 @@
 import { Navigate } from 'react-router-dom';
-import { SiteLayout } from '#src/app/layouts/site-layout.tsx';
 import { Table, TBody, TD, TH, THActions, THead, TR } from '#src/components/ui/table.tsx';
 import { Button } from '#src/components/ui/button.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
@@ -12,9 +11,9 @@ import { RequireSignIn } from './workspace/require-sign-in.tsx';
 export function PlatformStudiosPage() {
   return (
     <RequireSignIn>
-      <SiteLayout>
+      <>
         <PlatformStudios />
-      </SiteLayout>
+      </>
     </RequireSignIn>
   );
 }

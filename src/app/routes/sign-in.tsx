@@ -3,7 +3,6 @@ import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import { emailSchema } from '#shared/schemas/accounts.ts';
-import { SiteLayout } from '#src/app/layouts/site-layout.tsx';
 import { Card } from '#src/components/ui/card.tsx';
 import { TextField } from '#src/components/ui/text-field.tsx';
 import { Button } from '#src/components/ui/button.tsx';
@@ -62,7 +61,7 @@ export function SignInPage() {
   }
 
   return (
-    <SiteLayout>
+    <>
       <section className="mx-auto max-w-md px-6 py-16">
         <h1 className="mb-6 text-3xl font-extrabold">Sign in</h1>
         {notice && (
@@ -112,14 +111,14 @@ export function SignInPage() {
           </Link>
         </p>
       </section>
-    </SiteLayout>
+    </>
   );
 }
 
 export function LinkSentPage() {
   const [params] = useSearchParams();
   return (
-    <SiteLayout>
+    <>
       <section className="mx-auto max-w-md px-6 py-16">
         <h1 className="mb-4 text-3xl font-extrabold">Check your inbox</h1>
         <Card>
@@ -142,6 +141,6 @@ export function LinkSentPage() {
           </p>
         </Card>
       </section>
-    </SiteLayout>
+    </>
   );
 }

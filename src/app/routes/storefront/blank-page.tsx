@@ -1,6 +1,6 @@
 import { Link, useParams } from 'react-router-dom';
 import { formatSize } from '#shared/units.ts';
-import { StorefrontLayout } from '#src/app/layouts/storefront-layout.tsx';
+import { WithStorefront } from '#src/app/layouts/storefront-layout.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
 import { Designer } from '#src/features/designer/components/designer.tsx';
 import { useStorefrontCatalog } from '#src/features/storefront/api/get-catalog.ts';
@@ -10,7 +10,7 @@ export function BlankPage() {
   const { studioSlug = '', blankId = '' } = useParams();
   const catalog = useStorefrontCatalog(studioSlug);
   return (
-    <StorefrontLayout>
+    <WithStorefront>
       {(studio) => {
         if (catalog.isPending) return <p className="text-graphite-500">Loading…</p>;
         if (catalog.error) return <Notice tone="error">{catalog.error.message}</Notice>;
@@ -51,6 +51,6 @@ export function BlankPage() {
           </div>
         );
       }}
-    </StorefrontLayout>
+    </WithStorefront>
   );
 }

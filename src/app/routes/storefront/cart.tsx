@@ -7,7 +7,7 @@ import { AppError } from '#shared/errors.ts';
 import { formatMoney } from '#shared/money.ts';
 import { checkoutInputSchema } from '#shared/schemas/checkout.ts';
 import type { PublicStudio } from '#shared/studio.ts';
-import { StorefrontLayout } from '#src/app/layouts/storefront-layout.tsx';
+import { WithStorefront } from '#src/app/layouts/storefront-layout.tsx';
 import { Button, buttonClasses } from '#src/components/ui/button.tsx';
 import { Card, CardTitle } from '#src/components/ui/card.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
@@ -16,7 +16,7 @@ import { useCart, type CartLine } from '#src/features/cart/cart-store.ts';
 import { placeOrder, useDeliveryOptions } from '#src/features/storefront/api/checkout.ts';
 
 export function CartPage() {
-  return <StorefrontLayout>{(studio) => <Cart studio={studio} />}</StorefrontLayout>;
+  return <WithStorefront>{(studio) => <Cart studio={studio} />}</WithStorefront>;
 }
 
 const detailsSchema = checkoutInputSchema.omit({ items: true });

@@ -3,7 +3,7 @@ import { useEffect } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { ITEM_STAGE_LABELS, ORDER_STATUS_LABELS } from '#shared/orders/stages.ts';
 import { AppError } from '#shared/errors.ts';
-import { StorefrontLayout } from '#src/app/layouts/storefront-layout.tsx';
+import { WithStorefront } from '#src/app/layouts/storefront-layout.tsx';
 import { Card, CardTitle } from '#src/components/ui/card.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
 import { useCart } from '#src/features/cart/cart-store.ts';
@@ -28,7 +28,7 @@ export function OrderPage() {
   }, [justPaid, status, cartFilled, clearCart]);
 
   return (
-    <StorefrontLayout>
+    <WithStorefront>
       {() => {
         if (order.isPending) return <p className="text-graphite-500">Opening your order…</p>;
         if (order.error)
@@ -124,6 +124,6 @@ export function OrderPage() {
           </div>
         );
       }}
-    </StorefrontLayout>
+    </WithStorefront>
   );
 }

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { useParams } from 'react-router-dom';
 import { useMutation, useQuery } from '@tanstack/react-query';
 import { proofViewSchema } from '#shared/schemas/workspace-orders.ts';
-import { StorefrontLayout } from '#src/app/layouts/storefront-layout.tsx';
+import { WithStorefront } from '#src/app/layouts/storefront-layout.tsx';
 import { Button } from '#src/components/ui/button.tsx';
 import { Card, CardTitle } from '#src/components/ui/card.tsx';
 import { TextAreaField } from '#src/components/ui/field.tsx';
@@ -21,7 +21,7 @@ export function ProofPage() {
   const [message, setMessage] = useState('');
   const answer = useMutation({ mutationFn: (body: unknown) => apiFetch(url, { method: 'POST', body }) });
   return (
-    <StorefrontLayout>
+    <WithStorefront>
       {(studio) => {
         if (answer.isSuccess)
           return (
@@ -86,6 +86,6 @@ export function ProofPage() {
           </div>
         );
       }}
-    </StorefrontLayout>
+    </WithStorefront>
   );
 }

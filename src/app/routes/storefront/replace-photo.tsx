@@ -5,7 +5,7 @@ import { effectivePpi, verdictFor } from '#shared/imaging/photo-checks.ts';
 import type { BuyerPhotoView } from '#shared/schemas/photos.ts';
 import { replacementViewSchema } from '#shared/schemas/workspace-orders.ts';
 import { formatSize } from '#shared/units.ts';
-import { StorefrontLayout } from '#src/app/layouts/storefront-layout.tsx';
+import { WithStorefront } from '#src/app/layouts/storefront-layout.tsx';
 import { Button } from '#src/components/ui/button.tsx';
 import { Card, CardTitle } from '#src/components/ui/card.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
@@ -29,7 +29,7 @@ export function ReplacePhotoPage() {
   const send = useMutation({ mutationFn: (body: unknown) => apiFetch(url, { method: 'POST', body }) });
 
   return (
-    <StorefrontLayout>
+    <WithStorefront>
       {(studio) => {
         if (asked.isPending) return <p className="text-graphite-500">Opening…</p>;
         if (send.isSuccess)
@@ -106,6 +106,6 @@ export function ReplacePhotoPage() {
           </div>
         );
       }}
-    </StorefrontLayout>
+    </WithStorefront>
   );
 }

@@ -1,5 +1,5 @@
 import { useParams } from 'react-router-dom';
-import { StorefrontLayout } from '#src/app/layouts/storefront-layout.tsx';
+import { WithStorefront } from '#src/app/layouts/storefront-layout.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
 import { useStorefrontCatalog } from '#src/features/storefront/api/get-catalog.ts';
 import { BlankList } from '#src/features/storefront/components/blank-list.tsx';
@@ -9,7 +9,7 @@ export function StorefrontHomePage() {
   const { studioSlug = '' } = useParams();
   const catalog = useStorefrontCatalog(studioSlug);
   return (
-    <StorefrontLayout>
+    <WithStorefront>
       {({ name, units }) => (
         <section aria-labelledby="for-sale">
           <h1 id="for-sale" className="mb-2 text-3xl font-extrabold">
@@ -28,6 +28,6 @@ export function StorefrontHomePage() {
           )}
         </section>
       )}
-    </StorefrontLayout>
+    </WithStorefront>
   );
 }

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { can } from '#shared/permissions.ts';
 import { AUDIT_ACTION_LABELS, AUDIT_GROUPS, type AuditGroup } from '#shared/schemas/audit.ts';
-import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { WithWorkspace } from '#src/app/layouts/workspace-layout.tsx';
 import { Button } from '#src/components/ui/button.tsx';
 import { SelectField } from '#src/components/ui/field.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
@@ -11,7 +11,7 @@ import { useAuditLog } from '#src/features/audit/api/audit.ts';
 
 export function AuditLogPage() {
   return (
-    <WorkspaceLayout>
+    <WithWorkspace>
       {({ studio, role }) =>
         can(role, 'audit:read') ? (
           <AuditLog slug={studio.slug} />
@@ -21,7 +21,7 @@ export function AuditLogPage() {
           </Notice>
         )
       }
-    </WorkspaceLayout>
+    </WithWorkspace>
   );
 }
 

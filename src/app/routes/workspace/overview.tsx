@@ -3,7 +3,7 @@ import { useQueryClient } from '@tanstack/react-query';
 import { Button } from '#src/components/ui/button.tsx';
 import { useToast } from '#src/components/ui/toast.tsx';
 import { signOutEverywhere } from '#src/features/auth/api/sign-in.ts';
-import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { WithWorkspace } from '#src/app/layouts/workspace-layout.tsx';
 import { Card, CardTitle } from '#src/components/ui/card.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
 import { TodayPanel } from '#src/features/orders/components/today.tsx';
@@ -16,7 +16,7 @@ const roleText = {
 
 export function WorkspaceOverviewPage() {
   return (
-    <WorkspaceLayout>
+    <WithWorkspace>
       {({ studio, role }) => (
         <div className="flex flex-col gap-6">
           <h1 className="text-3xl font-extrabold">{studio.name}</h1>
@@ -56,7 +56,7 @@ export function WorkspaceOverviewPage() {
           </Notice>
         </div>
       )}
-    </WorkspaceLayout>
+    </WithWorkspace>
   );
 }
 

@@ -1,7 +1,7 @@
 import { useState, type FormEvent } from 'react';
 import { can } from '#shared/permissions.ts';
 import { studioSettingsInputSchema } from '#shared/studio.ts';
-import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { WithWorkspace } from '#src/app/layouts/workspace-layout.tsx';
 import { Card, CardTitle } from '#src/components/ui/card.tsx';
 import { TextField } from '#src/components/ui/text-field.tsx';
 import { Button } from '#src/components/ui/button.tsx';
@@ -15,7 +15,7 @@ import { LogoCard } from '#src/features/workspace/components/logo-card.tsx';
 
 export function SettingsPage() {
   return (
-    <WorkspaceLayout>
+    <WithWorkspace>
       {(workspace) =>
         can(workspace.role, 'studio:settings') ? (
           <div className="flex max-w-2xl flex-col gap-6">
@@ -31,7 +31,7 @@ export function SettingsPage() {
           </Notice>
         )
       }
-    </WorkspaceLayout>
+    </WithWorkspace>
   );
 }
 

@@ -1,8 +1,8 @@
 import { useState, type FormEvent } from 'react';
 import { createInviteInputSchema } from '#shared/schemas/team.ts';
-import { can, ROLES, type Role } from '#shared/permissions.ts';
+import { can, ROLE_LABELS, ROLES, type Role } from '#shared/permissions.ts';
 import type { Member } from '#shared/schemas/team.ts';
-import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { WithWorkspace } from '#src/app/layouts/workspace-layout.tsx';
 import { Card, CardTitle } from '#src/components/ui/card.tsx';
 import { TextField } from '#src/components/ui/text-field.tsx';
 import { Button } from '#src/components/ui/button.tsx';
@@ -14,11 +14,9 @@ import { useChangeRole, useInvite, useRemoveMember, useTeam, useWithdrawInvite }
 import { useFieldErrors } from '#src/lib/use-field-errors.ts';
 import { useMe } from '#src/features/auth/api/get-me.ts';
 
-const roleLabel: Record<Role, string> = { owner: 'Owner', staff: 'Team member' };
-
 export function TeamPage() {
   return (
-    <WorkspaceLayout>
+    <WithWorkspace>
       {({ studio, role }) =>
         can(role, 'team:manage') ? (
           <Team slug={studio.slug} />
@@ -28,7 +26,7 @@ export function TeamPage() {
           </Notice>
         )
       }
-    </WorkspaceLayout>
+    </WithWorkspace>
   );
 }
 
@@ -73,7 +71,7 @@ function Team({ slug }: { slug: string }) {
             <select id="invite-role" name="role" defaultValue="staff" className="h-10 rounded-lg border border-graphite-200 bg-white px-3">
               {ROLES.map((r) => (
                 <option key={r} value={r}>
-                  {roleLabel[r]}
+                  {ROLE_LABELS[r]}
                 </option>
               ))}
             </select>
@@ -131,7 +129,7 @@ function Team({ slug }: { slug: string }) {
                       >
                         {ROLES.map((r) => (
                           <option key={r} value={r}>
-                            {roleLabel[r]}
+                            {ROLE_LABELS[r]}
                           </option>
                         ))}
                       </select>
@@ -167,7 +165,7 @@ function Team({ slug }: { slug: string }) {
                   {team.data.invites.map((i) => (
                     <TR key={i.id}>
                       <TD>{i.email}</TD>
-                      <TD>{roleLabel[i.role]}</TD>
+                      <TD>{ROLE_LABELS[i.role]}</TD>
                       <TD>{new Date(i.expiresAt).toLocaleDateString()}</TD>
                       <TD className="text-right">
                         <Button

@@ -222,6 +222,7 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
               width={canvasSize.width}
               height={canvasSize.height}
               tabIndex={photo ? 0 : -1}
+              data-drawn={mockup.result ? 'true' : undefined}
               role="img"
               aria-label={
                 photo
@@ -252,11 +253,6 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
               </button>
             ))}
           </div>
-          {mockup.result && (
-            <span className="text-graphite-500" data-testid="render-time">
-              drawn in {Math.round(mockup.result.ms)} ms
-            </span>
-          )}
         </div>
         {mockup.error && <Notice tone="error">{mockup.error}</Notice>}
         <p className="text-center text-xs text-graphite-500">

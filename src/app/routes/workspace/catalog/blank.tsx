@@ -13,7 +13,7 @@ import {
   type SizeView,
 } from '#shared/schemas/catalog.ts';
 import { formatSize, type LengthUnit } from '#shared/units.ts';
-import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { WithWorkspace } from '#src/app/layouts/workspace-layout.tsx';
 import { Button } from '#src/components/ui/button.tsx';
 import { Card, CardTitle } from '#src/components/ui/card.tsx';
 import { DataTable, tableColumns, type DataColumn } from '#src/components/ui/data-table.tsx';
@@ -33,11 +33,11 @@ import { ORIENTATION_LABELS } from '#src/features/catalog/labels.ts';
 export function BlankPage() {
   const { blankId = '' } = useParams();
   return (
-    <WorkspaceLayout>
+    <WithWorkspace>
       {({ studio, role }) => (
         <Blank slug={studio.slug} blankId={blankId} units={studio.units} currency={studio.currency} canEdit={can(role, 'catalog:write')} />
       )}
-    </WorkspaceLayout>
+    </WithWorkspace>
   );
 }
 

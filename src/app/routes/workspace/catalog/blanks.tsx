@@ -5,7 +5,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { can } from '#shared/permissions.ts';
 import { formatMoney } from '#shared/money.ts';
 import { blankInputSchema, type BlankInput, type BlankView, type MaterialView } from '#shared/schemas/catalog.ts';
-import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { WithWorkspace } from '#src/app/layouts/workspace-layout.tsx';
 import { Button } from '#src/components/ui/button.tsx';
 import { DataTable, tableColumns, type DataColumn } from '#src/components/ui/data-table.tsx';
 import { Dialog } from '#src/components/ui/dialog.tsx';
@@ -21,9 +21,9 @@ import { SHAPE_LABELS, statusOptions } from '#src/features/catalog/labels.ts';
 
 export function BlanksPage() {
   return (
-    <WorkspaceLayout>
+    <WithWorkspace>
       {({ studio, role }) => <Blanks slug={studio.slug} currency={studio.currency} canEdit={can(role, 'catalog:write')} />}
-    </WorkspaceLayout>
+    </WithWorkspace>
   );
 }
 

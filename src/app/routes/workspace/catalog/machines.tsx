@@ -2,7 +2,7 @@ import { useMemo, useState } from 'react';
 import { can } from '#shared/permissions.ts';
 import { LASER_KIND_LABELS, SPEED_UNIT_LABELS, type MachineView } from '#shared/schemas/catalog.ts';
 import { formatSize, type LengthUnit } from '#shared/units.ts';
-import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { WithWorkspace } from '#src/app/layouts/workspace-layout.tsx';
 import { Button } from '#src/components/ui/button.tsx';
 import { DataTable, tableColumns, type DataColumn } from '#src/components/ui/data-table.tsx';
 import { Dialog } from '#src/components/ui/dialog.tsx';
@@ -14,9 +14,9 @@ import { laserKindOptions } from '#src/features/catalog/labels.ts';
 
 export function MachinesPage() {
   return (
-    <WorkspaceLayout>
+    <WithWorkspace>
       {({ studio, role }) => <Machines slug={studio.slug} units={studio.units} canEdit={can(role, 'catalog:write')} />}
-    </WorkspaceLayout>
+    </WithWorkspace>
   );
 }
 

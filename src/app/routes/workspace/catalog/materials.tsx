@@ -1,7 +1,7 @@
 import { useMemo, useState } from 'react';
 import { can } from '#shared/permissions.ts';
 import { LASER_KIND_LABELS, type MaterialView } from '#shared/schemas/catalog.ts';
-import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { WithWorkspace } from '#src/app/layouts/workspace-layout.tsx';
 import { Button } from '#src/components/ui/button.tsx';
 import { DataTable, tableColumns, type DataColumn } from '#src/components/ui/data-table.tsx';
 import { Dialog } from '#src/components/ui/dialog.tsx';
@@ -13,7 +13,7 @@ import { Swatch } from '#src/features/catalog/components/swatch.tsx';
 import { FAMILY_LABELS, familyOptions } from '#src/features/catalog/labels.ts';
 
 export function MaterialsPage() {
-  return <WorkspaceLayout>{({ studio, role }) => <Materials slug={studio.slug} canEdit={can(role, 'catalog:write')} />}</WorkspaceLayout>;
+  return <WithWorkspace>{({ studio, role }) => <Materials slug={studio.slug} canEdit={can(role, 'catalog:write')} />}</WithWorkspace>;
 }
 
 const col = tableColumns<MaterialView>();

@@ -1,7 +1,7 @@
 import { useMemo, useState } from 'react';
 import { can } from '#shared/permissions.ts';
 import { SPEED_UNIT_LABELS, type RecipeView } from '#shared/schemas/catalog.ts';
-import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { WithWorkspace } from '#src/app/layouts/workspace-layout.tsx';
 import { Button } from '#src/components/ui/button.tsx';
 import { DataTable, tableColumns, type DataColumn } from '#src/components/ui/data-table.tsx';
 import { Dialog } from '#src/components/ui/dialog.tsx';
@@ -14,7 +14,7 @@ import { RecipeDialog } from '#src/features/catalog/components/recipe-dialog.tsx
 import { methodLabel } from '#src/features/catalog/labels.ts';
 
 export function RecipesPage() {
-  return <WorkspaceLayout>{({ studio, role }) => <Recipes slug={studio.slug} canEdit={can(role, 'catalog:write')} />}</WorkspaceLayout>;
+  return <WithWorkspace>{({ studio, role }) => <Recipes slug={studio.slug} canEdit={can(role, 'catalog:write')} />}</WithWorkspace>;
 }
 
 const col = tableColumns<RecipeView>();

@@ -14,7 +14,7 @@ import {
 import { BrushOverlay, CutoutControls, type Brush } from '#src/features/orders/components/cutout-brush.tsx';
 import { cx } from '#src/lib/cx.ts';
 import { staffItemSchema } from '#shared/schemas/workspace-orders.ts';
-import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { WithWorkspace } from '#src/app/layouts/workspace-layout.tsx';
 import { Button } from '#src/components/ui/button.tsx';
 import { Card, CardTitle } from '#src/components/ui/card.tsx';
 import { SelectField } from '#src/components/ui/field.tsx';
@@ -30,11 +30,11 @@ import { apiFetch } from '#src/lib/api-client.ts';
 export function StaffItemPage() {
   const { itemId = '' } = useParams();
   return (
-    <WorkspaceLayout>
+    <WithWorkspace>
       {({ studio, role, orders }) => (
         <StaffItem slug={studio.slug} itemId={itemId} canProduce={can(role, 'order:produce')} proofsRequired={orders.proofsRequired} />
       )}
-    </WorkspaceLayout>
+    </WithWorkspace>
   );
 }
 

@@ -1,6 +1,6 @@
 import { Link, useParams } from 'react-router-dom';
 import { ITEM_STAGE_LABELS, ORDER_STATUS_LABELS } from '#shared/orders/stages.ts';
-import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { WithWorkspace } from '#src/app/layouts/workspace-layout.tsx';
 import { Card, CardTitle } from '#src/components/ui/card.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
 import { OrderMoney, OrderTimeline } from '#src/features/orders/components/order-timeline.tsx';
@@ -15,11 +15,11 @@ import { handoverLine } from '#src/features/orders/handover-line.ts';
 export function StaffOrderPage() {
   const { orderId = '' } = useParams();
   return (
-    <WorkspaceLayout>
+    <WithWorkspace>
       {({ studio, role }) => (
         <StaffOrder slug={studio.slug} orderId={orderId} canRefund={can(role, 'order:refund')} canProduce={can(role, 'order:produce')} />
       )}
-    </WorkspaceLayout>
+    </WithWorkspace>
   );
 }
 

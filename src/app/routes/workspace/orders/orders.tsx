@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { ITEM_STAGES, ITEM_STAGE_LABELS, ORDER_STATUSES, ORDER_STATUS_LABELS } from '#shared/orders/stages.ts';
 import type { OrderListQuery } from '#shared/schemas/workspace-orders.ts';
-import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { WithWorkspace } from '#src/app/layouts/workspace-layout.tsx';
 import { Button } from '#src/components/ui/button.tsx';
 import { SelectField } from '#src/components/ui/field.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
@@ -13,7 +13,7 @@ import { useMaterials } from '#src/features/catalog/api/catalog.ts';
 import { useDebounced } from '#src/lib/use-debounced.ts';
 
 export function OrdersPage() {
-  return <WorkspaceLayout>{({ studio }) => <Orders slug={studio.slug} />}</WorkspaceLayout>;
+  return <WithWorkspace>{({ studio }) => <Orders slug={studio.slug} />}</WithWorkspace>;
 }
 
 /** Every order of the studio; search, filters, sorting and paging run on the server. */

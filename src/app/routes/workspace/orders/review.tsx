@@ -3,7 +3,7 @@ import { Link } from 'react-router-dom';
 import { can } from '#shared/permissions.ts';
 import { REVIEW_REASONS, type ReviewItem, type ReviewReason } from '#shared/schemas/workspace-orders.ts';
 import { formatSize, type LengthUnit } from '#shared/units.ts';
-import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { WithWorkspace } from '#src/app/layouts/workspace-layout.tsx';
 import { Button } from '#src/components/ui/button.tsx';
 import { Card, CardTitle } from '#src/components/ui/card.tsx';
 import { Dialog } from '#src/components/ui/dialog.tsx';
@@ -16,7 +16,7 @@ import { cx } from '#src/lib/cx.ts';
 
 export function ReviewPage() {
   return (
-    <WorkspaceLayout>
+    <WithWorkspace>
       {({ studio, role }) =>
         can(role, 'order:review') ? (
           <Review slug={studio.slug} units={studio.units} />
@@ -26,7 +26,7 @@ export function ReviewPage() {
           </Notice>
         )
       }
-    </WorkspaceLayout>
+    </WithWorkspace>
   );
 }
 

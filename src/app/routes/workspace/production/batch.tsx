@@ -3,7 +3,7 @@ import { formatBurnTime } from '#shared/imaging/burn-time.ts';
 import { ITEM_STAGE_LABELS } from '#shared/orders/stages.ts';
 import { can } from '#shared/permissions.ts';
 import type { BatchView, RenderView } from '#shared/schemas/production.ts';
-import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { WithWorkspace } from '#src/app/layouts/workspace-layout.tsx';
 import { Button } from '#src/components/ui/button.tsx';
 import { Card } from '#src/components/ui/card.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
@@ -15,9 +15,9 @@ import { cx } from '#src/lib/cx.ts';
 export function BatchPage() {
   const { batchId = '' } = useParams();
   return (
-    <WorkspaceLayout>
+    <WithWorkspace>
       {({ studio, role }) => <Batch slug={studio.slug} batchId={batchId} canProduce={can(role, 'order:produce')} />}
-    </WorkspaceLayout>
+    </WithWorkspace>
   );
 }
 

@@ -2,7 +2,7 @@ import { Link, useNavigate } from 'react-router-dom';
 import { formatBurnTime } from '#shared/imaging/burn-time.ts';
 import { can } from '#shared/permissions.ts';
 import type { ProductionBoard } from '#shared/schemas/production.ts';
-import { WorkspaceLayout } from '#src/app/layouts/workspace-layout.tsx';
+import { WithWorkspace } from '#src/app/layouts/workspace-layout.tsx';
 import { Button } from '#src/components/ui/button.tsx';
 import { Card, CardTitle } from '#src/components/ui/card.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
@@ -13,9 +13,7 @@ import { useCreateBatch, useProductionBoard } from '#src/features/production/api
 import { useChosen } from '#src/lib/use-chosen.ts';
 
 export function ProductionPage() {
-  return (
-    <WorkspaceLayout>{({ studio, role }) => <Production slug={studio.slug} canProduce={can(role, 'order:produce')} />}</WorkspaceLayout>
-  );
+  return <WithWorkspace>{({ studio, role }) => <Production slug={studio.slug} canProduce={can(role, 'order:produce')} />}</WithWorkspace>;
 }
 
 /** Approved items waiting, grouped as they burn together, and the batches started so far. */
