@@ -5,6 +5,15 @@
  */
 const seg = encodeURIComponent;
 
+/** Etchwell's own pages and the links its e-mails carry. */
+export const platformPaths = {
+  signIn: '/sign-in',
+  myOrders: '/account/orders',
+  invite: (token: string) => `/invites/${seg(token)}`,
+  /** The address-confirmation link: the API confirms, then sends the browser on. */
+  confirmEmail: (token: string) => `/api/accounts/verify-email?token=${seg(token)}`,
+};
+
 /** A buyer's pages in a studio's storefront. */
 export const storefrontPaths = {
   home: (studio: string) => `/s/${seg(studio)}`,

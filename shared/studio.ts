@@ -61,6 +61,13 @@ export const orderSettingsInputSchema = z
       'Choose the master’s resolution.',
     ),
     pickupNote: z.string().trim().max(300, 'Use at most 300 characters.'),
+    /** The number the next order gets; orders count up from it. Never below one already used. */
+    nextOrderNumber: z
+      .number('Give a whole number.')
+      .int('Give a whole number.')
+      .min(1, 'Order numbers start at 1 or above.')
+      .max(99_999_999, 'Use at most eight digits.')
+      .optional(),
   })
   .refine((s) => !s.pickupEnabled || s.pickupNote.length > 0, { path: ['pickupNote'], message: 'Say where and when buyers collect.' });
 export type OrderSettingsInput = z.infer<typeof orderSettingsInputSchema>;

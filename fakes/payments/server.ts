@@ -56,13 +56,28 @@ class ApiError extends Error {
 const missing = (kind: string, id: string) =>
   new ApiError(404, 'invalid_request_error', `No such ${kind}: '${id}'`, { code: 'resource_missing', param: 'id' });
 
-/** Test cards from the processor's testing guide. */
-const TEST_CARDS: Record<string, { outcome: 'succeeded' } | { outcome: 'declined'; decline_code: string; message: string }> = {
-  '4242424242424242': { outcome: 'succeeded' },
-  '5555555555554444': { outcome: 'succeeded' },
-  '4000000000000002': { outcome: 'declined', decline_code: 'generic_decline', message: 'Your card was declined.' },
-  '4000000000009995': { outcome: 'declined', decline_code: 'insufficient_funds', message: 'Your card has insufficient funds.' },
-};
+/**
+ * Test card numbers from the processor's testing guide, which the SDK and the app rely on. The
+ * API answers with the processor's own error message (`message`, as the real service would); the
+ * pay page says it in our words (`words`).
+ */
+const TEST_CARDS: Record<string, { outcome: 'succeeded' } | { outcome: 'declined'; decline_code: string; message: string; words: string }> =
+  {
+    '4242424242424242': { outcome: 'succeeded' },
+    '5555555555554444': { outcome: 'succeeded' },
+    '4000000000000002': {
+      outcome: 'declined',
+      decline_code: 'generic_decline',
+      message: 'Your card was declined.',
+      words: 'Refused: this card was not accepted. Nothing was charged.',
+    },
+    '4000000000009995': {
+      outcome: 'declined',
+      decline_code: 'insufficient_funds',
+      message: 'Your card has insufficient funds.',
+      words: 'Not enough funds on this card. Nothing was charged.',
+    },
+  };
 
 function luhnValid(digits: string): boolean {
   let sum = 0;
@@ -419,24 +434,24 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
         .type('html')
         .send(payPage({ session, items, merchant: shopName, error, email: form.email }));
     if (session.status !== 'open')
-      return again(session.status === 'expired' ? 'This payment page has expired.' : 'This payment is already complete.', 409);
+      return again(session.status === 'expired' ? 'The time to pay on this page has run out.' : 'This has been paid already.', 409);
 
     const digits = String(form.card ?? '').replace(/[\s-]/g, '');
     const expiry = /^(\d{2})\s*\/\s*(\d{2})$/.exec(String(form.expiry ?? '').trim());
-    if (!/^\d+$/.test(digits) || !luhnValid(digits)) return again('Your card number is invalid.', 400);
-    if (!expiry || Number(expiry[1]) < 1 || Number(expiry[1]) > 12) return again('Your card’s expiration date is incomplete.', 400);
+    if (!/^\d+$/.test(digits) || !luhnValid(digits)) return again('That card number does not add up: check the digits.', 400);
+    if (!expiry || Number(expiry[1]) < 1 || Number(expiry[1]) > 12) return again('Give the expiry as month / year, such as 12 / 34.', 400);
     const expiryEnd = Date.UTC(2000 + Number(expiry[2]), Number(expiry[1]), 1);
-    if (expiryEnd <= Date.now()) return again('Your card’s expiration year is in the past.', 400);
-    if (!/^\d{3,4}$/.test(String(form.cvc ?? ''))) return again('Your card’s security code is incomplete.', 400);
+    if (expiryEnd <= Date.now()) return again('That expiry date has passed.', 400);
+    if (!/^\d{3,4}$/.test(String(form.cvc ?? ''))) return again('The security code is three or four digits.', 400);
     const card = TEST_CARDS[digits];
-    if (!card) return again('This is a test page: use a test card number, such as 4242 4242 4242 4242.', 400);
+    if (!card) return again('This practice page takes only the practice cards above: pick what should happen.', 400);
 
     const intent = state.data.paymentIntents[session.payment_intent!]!;
     if (card.outcome === 'declined') {
       intent.last_payment_error = { type: 'card_error', code: 'card_declined', decline_code: card.decline_code, message: card.message };
       emit('payment_intent.payment_failed', intent);
       state.save();
-      return again(card.message);
+      return again(card.words);
     }
     const charge = {
       id: newId('ch'),

@@ -67,7 +67,10 @@ async function seedDemoCatalog(em: EntityManager, studio: Studio): Promise<numbe
   const suggestion = MATERIAL_LIBRARY.find((m) => m.name === plan.recipeMaterial)!;
   const recipe =
     plan.recipeMaterial === 'Black-backed (painted) glass'
-      ? { ...EXAMPLE_GLASS_RECIPE, notes: 'The example recipe from trade practice.' }
+      ? {
+          ...EXAMPLE_GLASS_RECIPE,
+          notes: 'A starting point, not a setting to trust: check it with a test burn on a scrap of the same glass before the first order.',
+        }
       : {
           linesPerInch: suggestion.suggestedLinesPerInch,
           halftoneMethod: suggestion.suggestedHalftone,

@@ -4,8 +4,8 @@ import { projectDir, startStack } from './stack/stack.ts';
 import { ensureReferenceTools } from './stack/reference-tools.ts';
 
 /**
- * `npm test`: the house checks (formatter, linter with the import boundaries, the locked
- * packages' install-script decisions), the typecheck, then the test stack (its own PostgreSQL cluster and ports, beside any
+ * `npm test`: the house checks (formatter, linter with the import boundaries), the typecheck,
+ * then the test stack (its own PostgreSQL cluster and ports, beside any
  * running `npm start`), the client build the browser tests load, Debian's Chromium when missing,
  * and vitest over the unit, integration and browser projects. Everything started is stopped,
  * also after a failure; the exit code is the first failure's.
@@ -26,8 +26,8 @@ for (const [what, args] of checks) {
   }
 }
 
-log('typecheck: server, shared, client, browser tests');
-for (const project of ['tsconfig.json', 'shared', 'src', 'tests/browser']) {
+log('typecheck: server, shared, client, browser tests, client unit tests');
+for (const project of ['tsconfig.json', 'shared', 'src', 'tests/browser', 'tests/unit/client']) {
   const code = await runAttached(node, [bin('typescript/bin/tsc'), '-p', project], { cwd: projectDir });
   if (code !== 0) {
     log(`typecheck of ${project} failed`);

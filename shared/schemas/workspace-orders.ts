@@ -90,6 +90,7 @@ export const replacementInputSchema = z.object({
   placement: placementSchema,
   rightsConfirmed: z.literal(true, { error: 'Confirm that you may use this photo.' }),
 });
+export type ReplacementInput = z.input<typeof replacementInputSchema>;
 
 /** A refund, whole (no amount) or part (an amount in minor units); owners only. */
 export const refundInputSchema = z.object({

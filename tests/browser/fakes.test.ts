@@ -54,7 +54,7 @@ describe('pay page and inbox page of the local stand-ins, in Chromium', () => {
     await page.getByLabel('Security code').fill('123');
     await page.getByLabel('Name on card').fill('Ada Example');
     await page.getByRole('button', { name: /^Pay/ }).click();
-    await expect.poll(() => page.getByRole('alert').textContent()).toBe('Your card was declined.');
+    await expect.poll(() => page.getByRole('alert').textContent()).toBe('Refused: this card was not accepted. Nothing was charged.');
     await page.screenshot({ path: join(screenshotDir, 'pay-page-declined.png'), fullPage: true });
 
     await page.getByLabel('Card number').fill('4242 4242 4242 4242');

@@ -369,7 +369,7 @@ describe('catalog', () => {
     expect(fresh.priceMinor).toBe(9900);
   });
 
-  it('gives the demo studios the example recipe from trade practice: painted glass, 100 W CO2, speed 5, power 10–14.5 %', async () => {
+  it('gives the demo studios an example recipe to start from (checked with a test burn on scrap): painted glass, 100 W CO2, speed 5, power 10–14.5 %', async () => {
     await seedDemo(t.orm.em.fork());
     const em = t.orm.em.fork();
     const studio = await em.findOneOrFail(Studio, { slug: 'harbour-light' });
@@ -388,6 +388,7 @@ describe('catalog', () => {
       powerMinPercent: 10,
       powerMaxPercent: 14.5,
     });
+    expect(recipe.notes).toMatch(/^A starting point, not a setting to trust: check it with a test burn on a scrap/);
     const staff = await agentFor(t.app, (await createMember(t.orm.em.fork(), studio, 'staff')).user);
     expect((await staff.get('/api/studios/harbour-light/catalog/blanks').expect(200)).body.blanks.length).toBe(2);
   });

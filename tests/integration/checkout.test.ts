@@ -14,7 +14,7 @@ import { Studio } from '#server/features/studios/studio.entity.ts';
 import { eventually } from '../support/fakes.ts';
 import { postSignedEvent, usePaymentsFake } from '../support/payments.ts';
 import { useTestApp } from '../support/test-app.ts';
-import { agentFor, createUser } from '../support/factories.ts';
+import { agentFor, createMember, createUser } from '../support/factories.ts';
 import { fillCrop } from '../support/orders.ts';
 import { orientedArea } from '#shared/imaging/sizing.ts';
 
@@ -120,6 +120,24 @@ describe('checkout and payment', () => {
     expect(res.body.paymentUrl).toBe(session.url);
   });
 
+  it('numbers orders from the number the owner chose, and never back to one already used', async () => {
+    const owner = await agentFor(t.app, (await createMember(t.orm.em.fork(), studio, 'owner')).user);
+    const settings = (await owner.get('/api/studios/harbour-light').expect(200)).body.orders;
+    const highest = (await scoped().find(Order, { studio }, { orderBy: { number: 'desc' }, limit: 1 }))[0]!.number;
+    const refused = await owner
+      .put('/api/studios/harbour-light/settings/orders')
+      .send({ ...settings, nextOrderNumber: highest })
+      .expect(400);
+    expect(refused.body.issues).toEqual([{ path: ['nextOrderNumber'], message: `Use ${highest + 1} or more: order ${highest} exists.` }]);
+    await owner
+      .put('/api/studios/harbour-light/settings/orders')
+      .send({ ...settings, nextOrderNumber: highest + 50 })
+      .expect(200);
+    const first = await orderOf((await checkout([item(small)]).expect(201)).body.orderId);
+    const second = await orderOf((await checkout([item(small)]).expect(201)).body.orderId);
+    expect([first.number, second.number]).toEqual([highest + 50, highest + 51]);
+  });
+
   it('on payment: marks the order paid, takes the stock, queues both e-mails; a second delivery pays once', async () => {
     const before = (await scoped().findOneOrFail(BlankSize, { id: small.id })).stock!;
     const res = await checkout([item(small)]).expect(201);
@@ -183,6 +201,25 @@ describe('checkout and payment', () => {
     const released = await orderOf(order.id);
     expect(released.status).toBe('cancelled');
     expect(released.items.getItems().map((i) => i.stage)).toEqual(['cancelled']);
+    // The receipt that waited for the payment goes with the order: the buyer hears nothing.
+    expect(await t.orm.em.fork().count(OutboxEmail, { heldForOrder: order.id })).toBe(0);
+    expect(await t.orm.em.fork().count(OutboxEmail, { subject: { $like: `%order ${order.number} %` } })).toBe(0);
+  });
+
+  it('writes the receipt with its private link at checkout and sends it only when the payment arrives', async () => {
+    const res = await checkout([item(small)]).expect(201);
+    const order = await orderOf(res.body.orderId);
+    const receipt = () =>
+      t.orm.em.fork().findOneOrFail(OutboxEmail, { to: 'june@buyers.test', subject: { $like: `%order ${order.number} %` } });
+    const held = await receipt();
+    expect(held).toMatchObject({ status: 'held', heldForOrder: order.id });
+    // The link in it is the one the pay page returns to: the same key, built once at checkout.
+    const link = /https?:\/\/\S+\/orders\/\S+/.exec(held.text)![0];
+    const session = await t.payments.stripe.checkout.sessions.retrieve(order.checkoutSessionId!);
+    expect(session.success_url).toBe(`${link}&paid=1`);
+    expect(await payments.pay(res.body.paymentUrl)).toBe(303);
+    await eventually(async () => ((await receipt()).status === 'held' ? undefined : true));
+    expect(await receipt()).toMatchObject({ status: expect.stringMatching(/^(pending|sent)$/), heldForOrder: null });
   });
 
   it('refunds a payment that arrives after its order lapsed (events out of order), once', async () => {

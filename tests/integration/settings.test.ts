@@ -71,6 +71,8 @@ describe('studio settings', () => {
       pickupNote: 'The workshop, Fridays 2–6 pm.',
       proofsRequired: false,
       masterResolution: 'recipe',
+      // A new studio numbers its orders from 1 (not from a number borrowed from elsewhere).
+      nextOrderNumber: 1,
     });
     expect((await request(t.app).get('/api/storefront/willow-flint').expect(200)).body.lowResolutionPolicy).toBe('refuse');
     expect((await request(t.app).get('/api/storefront/willow-flint/delivery').expect(200)).body.pickup).toEqual({

@@ -1,4 +1,5 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
+import { absolute, platformPaths } from '#shared/routes.ts';
 import { AppError } from '#shared/errors.ts';
 import type { OpenStudioInput, SlugAvailability, Me } from '#shared/schemas/accounts.ts';
 import { studioSlugSchema } from '#shared/studio.ts';
@@ -68,7 +69,7 @@ export async function openStudio(em: EntityManager, input: OpenStudioInput, appU
       token: hash,
       expires: new Date(Date.now() + VERIFY_DAYS * 86_400_000),
     });
-    const url = `${appUrl}/api/accounts/verify-email?token=${token}`;
+    const url = absolute(appUrl, platformPaths.confirmEmail(token));
     queueEmail(tx, { to: user.email, ...verifyEmailMail({ name: input.ownerName, studioName: studio.name, url }) });
     return { studio, user };
   });

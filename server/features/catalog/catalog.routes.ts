@@ -1,4 +1,5 @@
 import type { Request } from 'express';
+import { assetPaths } from '#shared/routes.ts';
 import { blankInputSchema, machineInputSchema, materialInputSchema, recipeInputSchema, sizeInputSchema } from '#shared/schemas/catalog.ts';
 import { claimUploadSchema, imageUploadRequestSchema } from '#shared/schemas/uploads.ts';
 import type { Storage } from '#server/adapters/storage.ts';
@@ -46,7 +47,7 @@ const recipe = (materialId: string, machineId: string) => ({
 
 /** Where the workspace loads a product photo from. */
 export const workspacePhotoUrl = (ctx: WorkspaceContext) => (photo: BlankPhoto) =>
-  `/api/studios/${ctx.studio.slug}/catalog/photos/${photo.id}`;
+  assetPaths.workspaceBlankPhoto(ctx.studio.slug, photo.id);
 
 export function catalogRoutes({ storage }: { storage: Storage }): WorkspaceRoute[] {
   const withCount = async (ctx: WorkspaceContext, m: Material) =>

@@ -1,4 +1,5 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
+import { workspacePaths } from '#shared/routes.ts';
 import { UniqueConstraintViolationException } from '@mikro-orm/core';
 import { AppError } from '#shared/errors.ts';
 import type { BlankInput, MachineInput, MaterialInput, RecipeInput, SizeInput } from '#shared/schemas/catalog.ts';
@@ -17,8 +18,8 @@ import { formatMoney } from '#shared/money.ts';
 import { sizeFit, sizeFitMessage, type BlankShape } from '#shared/imaging/shape.ts';
 import { formatSize, mmToUnitDown } from '#shared/units.ts';
 
-const recipesLink = (studio: Studio) => `/studio/${studio.slug}/catalog/recipes`;
-const blankLink = (studio: Studio, blank: Blank) => `/studio/${studio.slug}/catalog/blanks/${blank.id}`;
+const recipesLink = (studio: Studio) => workspacePaths.recipes(studio.slug);
+const blankLink = (studio: Studio, blank: Blank) => workspacePaths.blank(studio.slug, blank.id);
 
 /** Catalog rules. Every query runs under the tenant filter and names the studio as well. */
 

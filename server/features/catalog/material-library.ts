@@ -321,7 +321,7 @@ export const MATERIAL_LIBRARY: LibraryMaterial[] = [
   },
 ];
 
-/** The example recipe from trade practice: painted glass on a 100 W CO2 machine, speed 5, power 10–14.5 %. */
+/** The demo's example recipe: painted glass on a 100 W CO2 machine, speed 5, power 10–14.5 % — a starting point to check with a test burn on scrap (common practice, no source). */
 export const EXAMPLE_GLASS_RECIPE = {
   linesPerInch: 360,
   halftoneMethod: 'jarvis-judice-ninke' as const,

@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import { assetPaths } from '#shared/routes.ts';
 import { AppError } from '#shared/errors.ts';
 import { formatMoney } from '#shared/money.ts';
 import type { StorefrontCatalog } from '#shared/schemas/catalog.ts';
@@ -33,7 +34,7 @@ export function storefrontCatalogRouter({ orm, storage }: { orm: Orm; storage: S
       { studio, status: 'active' },
       { populate: ['material', 'sizes', 'photos'], orderBy: { sortOrder: 'asc', name: 'asc' } },
     );
-    const photoUrl = (photo: BlankPhoto) => `/api/storefront/${studio.slug}/photos/${photo.id}`;
+    const photoUrl = (photo: BlankPhoto) => assetPaths.blankPhoto(studio.slug, photo.id);
     // Each material burns with its first recipe, as orders do (checkout.service recipeFor).
     const recipes = await em.find(Recipe, { studio }, { orderBy: { createdAt: 'asc' } });
     const lookOf = (b: Blank) => {

@@ -1,4 +1,5 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
+import { absolute, storefrontPaths } from '#shared/routes.ts';
 import { AppError, type FieldIssue } from '#shared/errors.ts';
 import { formatMoney } from '#shared/money.ts';
 import { effectivePpi, largestFairOffered, verdictFor } from '#shared/imaging/photo-checks.ts';
@@ -16,6 +17,8 @@ import { findBuyerPhoto } from '#server/features/photos/photos.service.ts';
 import { ShippingRate } from '#server/features/shipping/shipping-rate.entity.ts';
 import type { Studio } from '#server/features/studios/studio.entity.ts';
 import { move } from '#server/features/orders/order-stages.service.ts';
+import { mailLines, orderReceivedMail } from '#server/features/orders/order-mail.ts';
+import { holdEmail } from '#server/features/outbox/outbox.service.ts';
 import { Order, OrderEvent, OrderItem } from '../orders/order.entity.ts';
 
 type CheckoutInput = z.output<typeof checkoutInputSchema>;
@@ -158,7 +161,7 @@ export async function placeOrder(
     return created;
   });
 
-  const orderUrl = `${deps.env.APP_URL}/s/${studio.slug}/orders/${order.id}?key=${access.token}`;
+  const orderUrl = absolute(deps.env.APP_URL, storefrontPaths.order(studio.slug, order.id, access.token));
   try {
     const session = await deps.payments.stripe.checkout.sessions.create(
       {
@@ -189,12 +192,29 @@ export async function placeOrder(
         metadata: { orderId: order.id, studioId: studio.id, shop_name: studio.name },
         payment_intent_data: { metadata: { orderId: order.id, studioId: studio.id } },
         success_url: `${orderUrl}&paid=1`,
-        cancel_url: `${deps.env.APP_URL}/s/${studio.slug}/cart`,
+        cancel_url: absolute(deps.env.APP_URL, storefrontPaths.cart(studio.slug)),
         expires_at: Math.floor(Date.now() / 1000) + SESSION_SECONDS,
       },
       { idempotencyKey: `checkout-${order.id}` },
     );
     order.checkoutSessionId = session.id;
+    // The receipt is written now, while the private link's key is at hand (only its hash is
+    // kept), and sent when the payment arrives.
+    holdEmail(
+      em,
+      {
+        to: order.buyerEmail,
+        ...orderReceivedMail({
+          studioName: studio.name,
+          number: order.number,
+          buyerName: order.buyerName,
+          lines: mailLines(lines, studio.currency),
+          total: formatMoney(order.totalMinor, order.currency),
+          url: orderUrl,
+        }),
+      },
+      order.id,
+    );
     await em.flush();
     return { order, paymentUrl: session.url!, accessKey: access.token };
   } catch (cause) {

@@ -1,4 +1,5 @@
 import { LockMode } from '@mikro-orm/core';
+import { absolute, workspacePaths } from '#shared/routes.ts';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import type Stripe from 'stripe';
 import { formatMoney } from '#shared/money.ts';
@@ -7,9 +8,9 @@ import type { Env } from '#server/env.ts';
 import type { Orm } from '#server/db/orm.ts';
 import { TENANT_FILTER } from '#server/db/tenant.ts';
 import { BlankSize } from '#server/features/catalog/catalog.entity.ts';
-import { queueEmail } from '#server/features/outbox/outbox.service.ts';
+import { dropHeldEmails, queueEmail, releaseHeldEmails } from '#server/features/outbox/outbox.service.ts';
 import { Membership } from '#server/features/team/membership.entity.ts';
-import { latePaymentMail, newOrderMail, orderReceivedMail, soldOutMail } from '../orders/order-mail.ts';
+import { latePaymentMail, mailLines, newOrderMail, soldOutMail } from '#server/features/orders/order-mail.ts';
 import { move } from '#server/features/orders/order-stages.service.ts';
 import { Order, OrderEvent } from '../orders/order.entity.ts';
 
@@ -123,6 +124,7 @@ async function sessionCompleted(
       { type: 'sold_out', actor: 'payments', text: `Paid, but ${what} had sold out: refunded ${total} and cancelled.` },
     );
     order.note = `${what} sold out while you were paying. Your payment of ${total} was refunded in full.`;
+    await dropHeldEmails(em, order.id);
     queueEmail(em, {
       to: order.buyerEmail,
       ...soldOutMail({ studioName: studio.name, number: order.number, buyerName: order.buyerName, what, total }),
@@ -140,18 +142,17 @@ async function sessionCompleted(
   );
   order.paidAt = new Date();
 
-  const lines = items.map((i) => ({
-    name: `${i.snapshot.blank.name}, ${i.snapshot.size.label}`,
-    quantity: i.quantity,
-    price: formatMoney(i.unitPriceMinor * i.quantity, order.currency),
-  }));
-  const mail = { studioName: studio.name, number: order.number, buyerName: order.buyerName, lines, total };
-  // The private link was sent to the pay page as its return address; the e-mail carries it too.
-  const key = new URL(session.success_url ?? 'http://x/').searchParams.get('key');
-  const orderUrl = `${deps.env.APP_URL}/s/${studio.slug}/orders/${order.id}${key ? `?key=${key}` : ''}`;
-  queueEmail(em, { to: order.buyerEmail, ...orderReceivedMail({ ...mail, url: orderUrl }) });
+  const mail = {
+    studioName: studio.name,
+    number: order.number,
+    buyerName: order.buyerName,
+    lines: mailLines(items, order.currency),
+    total,
+  };
+  // The buyer's receipt, with the private link, was written at checkout and waited for this.
+  await releaseHeldEmails(em, order.id);
   for (const to of await studioAddresses(em, order))
-    queueEmail(em, { to, ...newOrderMail({ ...mail, url: `${deps.env.APP_URL}/studio/${studio.slug}` }) });
+    queueEmail(em, { to, ...newOrderMail({ ...mail, url: absolute(deps.env.APP_URL, workspacePaths.home(studio.slug)) }) });
   return 'handled';
 }
 
@@ -177,6 +178,7 @@ async function sessionExpired(em: EntityManager, session: Stripe.Checkout.Sessio
     { type: 'expired', actor: 'payments', text: 'The time to pay ran out; the order was released. Nothing was charged.' },
   );
   order.note = 'The time to pay ran out, so the order was not placed. Nothing was charged.';
+  await dropHeldEmails(em, order.id);
   return 'handled';
 }
 

@@ -4,7 +4,7 @@ import { formatMoney } from '#shared/money.ts';
 import { assertMove, ORDER_TRANSITIONS, type ItemStage } from '#shared/orders/stages.ts';
 import type { Payments } from '#server/adapters/payments.ts';
 import { displayName, type User } from '#server/features/accounts/user.entity.ts';
-import { queueEmail } from '#server/features/outbox/outbox.service.ts';
+import { dropHeldEmails, queueEmail } from '#server/features/outbox/outbox.service.ts';
 import type { Studio } from '#server/features/studios/studio.entity.ts';
 import { cancelledMail, refundedMail } from '../orders/order-mail.ts';
 import { move } from '#server/features/orders/order-stages.service.ts';
@@ -117,6 +117,8 @@ export async function cancelOrder(
     { order, status: 'cancelled', items: 'cancelled' },
     { type: 'cancelled', actor: displayName(user), text: `Cancelled by ${displayName(user)}. Reason: ${reason}.${refunded}` },
   );
+  // An unpaid order's receipt was waiting for the payment that will not come.
+  if (!wasPaid) await dropHeldEmails(em, order.id);
   for (const item of items) {
     // Stock was taken at payment; it goes back.
     if (wasPaid && item.size)

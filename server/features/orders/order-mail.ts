@@ -1,12 +1,24 @@
+import { formatMoney } from '#shared/money.ts';
 import { escapeHtml } from '#server/lib/html.ts';
 
 type Line = { name: string; quantity: number; price: string };
+
+/** An order's lines as the e-mails list them, from each item's snapshot of what was ordered. */
+export const mailLines = (
+  items: Array<{ snapshot: { blank: { name: string }; size: { label: string } }; quantity: number; unitPriceMinor: number }>,
+  currency: string,
+): Line[] =>
+  items.map((i) => ({
+    name: `${i.snapshot.blank.name}, ${i.snapshot.size.label}`,
+    quantity: i.quantity,
+    price: formatMoney(i.unitPriceMinor * i.quantity, currency),
+  }));
 
 const list = (lines: Line[]) => lines.map((l) => `${l.quantity} × ${l.name}: ${l.price}`).join('\n');
 const htmlList = (lines: Line[]) =>
   `<ul>${lines.map((l) => `<li>${l.quantity} × ${escapeHtml(l.name)}: ${escapeHtml(l.price)}</li>`).join('')}</ul>`;
 
-/** To the buyer once payment is in: what was ordered and the private link to follow it. */
+/** To the buyer once payment is in (written at checkout, held until then): what was ordered and the private link to follow it. */
 export function orderReceivedMail(input: {
   studioName: string;
   number: number;

@@ -1,4 +1,5 @@
 import { formatMoney } from '#shared/money.ts';
+import { assetPaths, workspacePaths } from '#shared/routes.ts';
 import { orientedArea } from '#shared/imaging/sizing.ts';
 import type { HalftoneMethod } from '#shared/imaging/halftone/halftone.ts';
 import type { BurnLook, OrderView } from '#shared/schemas/checkout.ts';
@@ -24,7 +25,7 @@ export function lookOf(item: OrderItem): BurnLook {
 
 /** An order as its buyer sees it on the private order page. */
 /** Where staff open an order in the workspace (the job sheet's QR code and audit lines point here). */
-export const workspaceOrderPath = (studioSlug: string, orderId: string) => `/studio/${studioSlug}/orders/${orderId}`;
+export const workspaceOrderPath = workspacePaths.order;
 
 export function orderView(order: Order): OrderView {
   const money = (minor: number) => formatMoney(minor, order.currency);
@@ -57,7 +58,7 @@ export function orderView(order: Order): OrderView {
       unitPrice: money(item.unitPriceMinor),
       photo: {
         id: item.photo.id,
-        previewUrl: `/api/storefront/${slug}/buyer-photos/${item.photo.id}/preview`,
+        previewUrl: assetPaths.buyerPhotoPreview(slug, item.photo.id),
         previewWidth: item.photo.previewWidth,
         previewHeight: item.photo.previewHeight,
         width: item.photo.width,

@@ -8,7 +8,7 @@ import { BaseEntity } from '#server/db/base.entity.ts';
  */
 @Entity({ tableName: 'outbox_email' })
 @Index({ properties: ['status', 'nextAttemptAt'] })
-export class OutboxEmail extends BaseEntity<'status' | 'attempts' | 'nextAttemptAt' | 'lastError' | 'sentAt' | 'html'> {
+export class OutboxEmail extends BaseEntity<'status' | 'attempts' | 'nextAttemptAt' | 'lastError' | 'sentAt' | 'html' | 'heldForOrder'> {
   @Property({ type: 'string', length: 254 })
   to!: string;
 
@@ -21,8 +21,9 @@ export class OutboxEmail extends BaseEntity<'status' | 'attempts' | 'nextAttempt
   @Property({ type: 'text', nullable: true })
   html: string | null = null;
 
-  @Enum({ items: ['pending', 'sent', 'failed'], type: 'string' })
-  status: 'pending' | 'sent' | 'failed' = 'pending';
+  /** `held`: written but not to be sent until its order is paid (the buyer's receipt). */
+  @Enum({ items: ['held', 'pending', 'sent', 'failed'], type: 'string' })
+  status: 'held' | 'pending' | 'sent' | 'failed' = 'pending';
 
   @Property({ type: 'integer' })
   attempts: number = 0;
@@ -35,4 +36,9 @@ export class OutboxEmail extends BaseEntity<'status' | 'attempts' | 'nextAttempt
 
   @Property({ type: 'datetime', nullable: true })
   sentAt: Date | null = null;
+
+  /** The order whose payment releases this e-mail, while it is held. */
+  @Index()
+  @Property({ type: 'uuid', nullable: true })
+  heldForOrder: string | null = null;
 }

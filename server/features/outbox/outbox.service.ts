@@ -10,6 +10,32 @@ export function queueEmail(em: EntityManager, mail: OutgoingMail): OutboxEmail {
   return em.create(OutboxEmail, { to: mail.to, subject: mail.subject, text: mail.text, html: mail.html ?? null });
 }
 
+/** An e-mail written now and sent only once `releaseHeldEmails` is called for its order. */
+export function holdEmail(em: EntityManager, mail: OutgoingMail, orderId: string): OutboxEmail {
+  return em.create(OutboxEmail, {
+    to: mail.to,
+    subject: mail.subject,
+    text: mail.text,
+    html: mail.html ?? null,
+    status: 'held',
+    heldForOrder: orderId,
+  });
+}
+
+/** The order was paid: its held e-mails are due now. */
+export async function releaseHeldEmails(em: EntityManager, orderId: string): Promise<void> {
+  await em.nativeUpdate(
+    OutboxEmail,
+    { heldForOrder: orderId, status: 'held' },
+    { status: 'pending', nextAttemptAt: new Date(), heldForOrder: null },
+  );
+}
+
+/** The order will never be paid: its held e-mails go. */
+export async function dropHeldEmails(em: EntityManager, orderId: string): Promise<void> {
+  await em.nativeDelete(OutboxEmail, { heldForOrder: orderId, status: 'held' });
+}
+
 const MAX_ATTEMPTS = 12;
 /** With the default 30 s: 30 s, 1 min, 2 min … capped at 1 h, about a day of retries in all. */
 const backoffMs = (attempts: number, firstSeconds: number) => Math.min(firstSeconds * 1000 * 2 ** (attempts - 1), 3_600_000);

@@ -1,4 +1,5 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
+import { assetPaths } from '#shared/routes.ts';
 import { AppError } from '#shared/errors.ts';
 import type { BuyerPhotoView } from '#shared/schemas/photos.ts';
 import { MAX_IMAGE_UPLOAD_BYTES, type ImageUploadRequest, type UploadTicket } from '#shared/schemas/uploads.ts';
@@ -73,9 +74,9 @@ export const buyerPhotoView = (studio: Studio, p: BuyerPhoto): BuyerPhotoView =>
   id: p.id,
   width: p.width,
   height: p.height,
-  previewUrl: `/api/storefront/${studio.slug}/buyer-photos/${p.id}/preview`,
+  previewUrl: assetPaths.buyerPhotoPreview(studio.slug, p.id),
   previewWidth: p.previewWidth,
   previewHeight: p.previewHeight,
-  thumbUrl: `/api/storefront/${studio.slug}/buyer-photos/${p.id}/thumb`,
+  thumbUrl: assetPaths.buyerPhotoThumb(studio.slug, p.id),
   quality: p.quality,
 });

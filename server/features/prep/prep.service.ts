@@ -1,4 +1,5 @@
 import { randomUUID } from 'node:crypto';
+import { absolute, storefrontPaths } from '#shared/routes.ts';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { assertItemAction } from '#shared/orders/stages.ts';
 import { recipePrep } from '#shared/orders/prep-pipeline.ts';
@@ -72,7 +73,7 @@ export async function sendProof(
       number: item.order.number,
       buyerName: item.order.buyerName,
       what: `${item.snapshot.blank.name}, ${item.snapshot.size.label}`,
-      url: `${appUrl}/s/${studio.slug}/proofs/${token.token}`,
+      url: absolute(appUrl, storefrontPaths.proof(studio.slug, token.token)),
     }),
   });
   await em.flush();

@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import { assetPaths } from '#shared/routes.ts';
 import { AppError } from '#shared/errors.ts';
 import { proofDecisionSchema } from '#shared/schemas/prep.ts';
 import type { Storage } from '#server/adapters/storage.ts';
@@ -20,7 +21,7 @@ export function storefrontProofsRouter({ orm, storage }: { orm: Orm; storage: St
       orderNumber: item.order.number,
       item: orderView(item.order).items.find((i) => i.id === item.id)!,
       prep: currentPrep(item),
-      imageUrl: `/api/storefront/${studio.slug}/proofs/${encodeURIComponent(req.params.token)}/image`,
+      imageUrl: assetPaths.proofImage(studio.slug, req.params.token),
     });
   });
 

@@ -1,4 +1,5 @@
 import { randomUUID } from 'node:crypto';
+import { assetPaths } from '#shared/routes.ts';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { AppError } from '#shared/errors.ts';
 import { HALFTONE_METHODS } from '#shared/imaging/halftone/halftone.ts';
@@ -61,7 +62,7 @@ function productionItem(studio: Studio, item: OrderItem, machine: BatchMachine |
     label: `${item.snapshot.blank.name}, ${item.snapshot.size.label}`,
     quantity: item.quantity,
     stage: item.stage,
-    thumbUrl: `/api/storefront/${studio.slug}/buyer-photos/${item.photo.id}/thumb`,
+    thumbUrl: assetPaths.buyerPhotoThumb(studio.slug, item.photo.id),
     estimatedBurnSeconds: burnSecondsFor(item, currentPrep(item), machine),
   };
 }

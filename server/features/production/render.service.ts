@@ -1,4 +1,5 @@
 import sharp from 'sharp';
+import { absolute, workspacePaths } from '#shared/routes.ts';
 import { HALFTONE_METHODS } from '#shared/imaging/halftone/halftone.ts';
 import { estimateBurnSeconds, formatBurnTime, speedInMmPerSecond } from '#shared/imaging/burn-time.ts';
 import { orientedArea } from '#shared/imaging/sizing.ts';
@@ -17,7 +18,6 @@ import { burnPiece, writePieceMaster } from '#server/imaging/piece.ts';
 import { originalPhoto, pieceOf } from '#server/features/prep/burn.service.ts';
 import { OrderEvent, type OrderItem } from '../orders/order.entity.ts';
 import { currentPrep } from '#server/features/prep/prep.service.ts';
-import { workspaceOrderPath } from '../orders/order.views.ts';
 import type { Studio } from '../studios/studio.entity.ts';
 import { jobSheetPdf } from './job-sheet.ts';
 import { Render, type ProductionBatch } from './production.entity.ts';
@@ -215,7 +215,7 @@ function jobSheetFor(input: {
     studioName: studio.name,
     title: `Order ${order.number}: item ${index} of ${order.items.length}`,
     subtitle: `Batch ${batch.number} · ${snapshot.blank.name}, ${snapshot.size.label}`,
-    orderUrl: `${appUrl}${workspaceOrderPath(studio.slug, order.id)}`,
+    orderUrl: absolute(appUrl, workspacePaths.order(studio.slug, order.id)),
     preview,
     rows,
     checks: [

@@ -1,4 +1,5 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
+import { absolute, assetPaths, storefrontPaths } from '#shared/routes.ts';
 import { AppError } from '#shared/errors.ts';
 import { cropMatchesArea } from '#shared/imaging/sizing.ts';
 import { stretchedMessage } from '../checkout/checkout.service.ts';
@@ -41,7 +42,7 @@ export async function reviewQueue(em: EntityManager, studio: Studio): Promise<Re
       verdict: verdictFor(ppi),
       lowResolutionConfirmed: item.lowResolutionConfirmed,
       placement: item.placement,
-      photo: { ...buyerPhotoView(studio, item.photo), originalUrl: `/api/studios/${studio.slug}/orders/photos/${item.photo.id}/original` },
+      photo: { ...buyerPhotoView(studio, item.photo), originalUrl: assetPaths.buyerPhotoOriginal(studio.slug, item.photo.id) },
       replacements: item.replacements,
     };
   });
@@ -93,7 +94,7 @@ export async function askNewPhoto(
       what: `${item.snapshot.blank.name}, ${item.snapshot.size.label}`,
       reason: REVIEW_REASONS[input.reason],
       note: input.note,
-      url: `${appUrl}/s/${studio.slug}/replace/${token.token}`,
+      url: absolute(appUrl, storefrontPaths.replacement(studio.slug, token.token)),
     }),
   });
   await em.flush();

@@ -1,4 +1,5 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
+import { workspacePaths } from '#shared/routes.ts';
 import { AppError } from '#shared/errors.ts';
 import { shippingRateInputSchema, type ShippingRateView } from '#shared/studio.ts';
 import { isUuid } from '#server/lib/tokens.ts';
@@ -15,7 +16,7 @@ function auditRate(em: EntityManager, studio: Studio, actor: User, rate: Shippin
     action: 'price.changed',
     subject: `Shipping: ${rate.name}`,
     summary,
-    link: `/studio/${studio.slug}/settings`,
+    link: workspacePaths.settings(studio.slug),
     details: { shippingRateId: rate.id, currency: studio.currency, ...details },
   });
 }

@@ -67,7 +67,7 @@ export class Studio extends BaseEntity<
   @Property({ type: 'string', length: 300 })
   pickupNote: string = '';
 
-  /** Order numbers count up per studio, taken with a row lock. */
-  @Property({ type: 'integer' })
-  nextOrderNumber: number = 1001;
+  /** Order numbers count up per studio from the number the owner chose (1 unless changed), taken with a row lock. */
+  @Property({ type: 'integer', default: 1 })
+  nextOrderNumber: number = 1;
 }

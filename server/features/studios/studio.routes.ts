@@ -6,7 +6,7 @@ import type { Storage } from '#server/adapters/storage.ts';
 import { claimUploadSchema, imageUploadRequestSchema, MAX_IMAGE_UPLOAD_BYTES } from '#shared/schemas/uploads.ts';
 import { LOGO_OPTIONS, toWebPhoto } from '#server/imaging/web-photo.ts';
 import { issueUpload, readUpload } from '../uploads/uploads.service.ts';
-import { logoUrl } from './studios.service.ts';
+import { assertOrderNumberFree, logoUrl } from './studios.service.ts';
 
 const describe = (ctx: WorkspaceContext) => {
   const s = ctx.studio;
@@ -27,6 +27,7 @@ const describe = (ctx: WorkspaceContext) => {
       pickupNote: s.pickupNote,
       proofsRequired: s.proofsRequired,
       masterResolution: s.masterResolution,
+      nextOrderNumber: s.nextOrderNumber,
     },
     role: ctx.role,
     permissions: ROLE_PERMISSIONS[ctx.role],
@@ -66,10 +67,13 @@ export function studioRoutes({ storage }: { storage: Storage }): WorkspaceRoute[
           pickupNote: 'At the workshop, weekdays.',
           proofsRequired: false,
           masterResolution: 'recipe',
+          nextOrderNumber: 40,
         },
       }),
       handler: async (ctx, req, res) => {
-        ctx.em.assign(ctx.studio, orderSettingsInputSchema.parse(req.body));
+        const input = orderSettingsInputSchema.parse(req.body);
+        if (input.nextOrderNumber !== undefined) await assertOrderNumberFree(ctx.em, ctx.studio, input.nextOrderNumber);
+        ctx.em.assign(ctx.studio, input);
         await ctx.em.flush();
         res.json(describe(ctx));
       },

@@ -1,4 +1,5 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
+import { absolute, platformPaths, workspacePaths } from '#shared/routes.ts';
 import { AppError } from '#shared/errors.ts';
 import type { Role } from '#shared/permissions.ts';
 import type { CreateInviteInput, InvitePreview, Team } from '#shared/schemas/team.ts';
@@ -13,7 +14,7 @@ import { queueEmail } from '../outbox/outbox.service.ts';
 import { inviteMail } from './team-mail.ts';
 import { recordAudit } from '../audit/audit.service.ts';
 
-const teamLink = (studio: Studio) => `/studio/${studio.slug}/team`;
+const teamLink = (studio: Studio) => workspacePaths.team(studio.slug);
 const memberName = (user: User) => (user.name ? `${user.name} (${user.email})` : user.email);
 
 export const INVITE_VALID_DAYS = 7;
@@ -70,7 +71,7 @@ export async function createInvite(
       expiresAt: new Date(Date.now() + INVITE_VALID_DAYS * 86_400_000),
       invitedBy,
     });
-    const url = `${appUrl}/invites/${token}`;
+    const url = absolute(appUrl, platformPaths.invite(token));
     queueEmail(tx, {
       to: input.email,
       ...inviteMail({ studioName: studio.name, inviterName: displayName(invitedBy), role: input.role, url, validDays: INVITE_VALID_DAYS }),

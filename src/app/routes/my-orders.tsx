@@ -1,10 +1,8 @@
 import { Link } from 'react-router-dom';
-import { useQuery } from '@tanstack/react-query';
 import { ORDER_STATUS_LABELS } from '#shared/orders/stages.ts';
-import { myOrdersSchema } from '#shared/schemas/checkout.ts';
 import { Card } from '#src/components/ui/card.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
-import { apiFetch } from '#src/lib/api-client.ts';
+import { useMyOrders } from '#src/features/storefront/api/my-orders.ts';
 import { RequireSignIn } from './workspace/require-sign-in.tsx';
 
 /** Every order placed with the signed-in person's address, at any studio. */
@@ -19,10 +17,7 @@ export function MyOrdersPage() {
 }
 
 function MyOrders() {
-  const orders = useQuery({
-    queryKey: ['me', 'orders'],
-    queryFn: ({ signal }) => apiFetch('/api/me/orders', { schema: myOrdersSchema, signal }),
-  });
+  const orders = useMyOrders();
   return (
     <div className="mx-auto flex max-w-3xl flex-col gap-6 px-6 py-10">
       <h1 className="text-3xl font-extrabold">My orders</h1>

@@ -1,4 +1,4 @@
-import { useSyncExternalStore } from 'react';
+import { useMemo, useSyncExternalStore } from 'react';
 import { z } from 'zod';
 import { cartItemSchema } from '#shared/schemas/checkout.ts';
 
@@ -51,22 +51,36 @@ const subscribe = (listener: () => void) => {
   };
 };
 
+/** The cart outside React: every change goes through these, and `useCart` shows them. */
+export const cartStore = {
+  lines: read,
+  count: (slug: string) => read(slug).reduce((n, l) => n + (l.quantity ?? 1), 0),
+  add: (slug: string, line: Omit<CartLine, 'lineId'>) => write(slug, [...read(slug), { ...line, lineId: crypto.randomUUID() }]),
+  setQuantity: (slug: string, lineId: string, quantity: number) =>
+    write(
+      slug,
+      read(slug).map((l) => (l.lineId === lineId ? { ...l, quantity } : l)),
+    ),
+  remove: (slug: string, lineId: string) =>
+    write(
+      slug,
+      read(slug).filter((l) => l.lineId !== lineId),
+    ),
+  clear: (slug: string) => write(slug, []),
+  subscribe,
+};
+
+/** The studio's cart, kept in step with every tab; its actions stay the same between renders. */
 export function useCart(slug: string) {
   const lines = useSyncExternalStore(subscribe, () => read(slug));
-  return {
-    lines,
-    count: lines.reduce((n, l) => n + (l.quantity ?? 1), 0),
-    add: (line: Omit<CartLine, 'lineId'>) => write(slug, [...read(slug), { ...line, lineId: crypto.randomUUID() }]),
-    setQuantity: (lineId: string, quantity: number) =>
-      write(
-        slug,
-        read(slug).map((l) => (l.lineId === lineId ? { ...l, quantity } : l)),
-      ),
-    remove: (lineId: string) =>
-      write(
-        slug,
-        read(slug).filter((l) => l.lineId !== lineId),
-      ),
-    clear: () => write(slug, []),
-  };
+  const actions = useMemo(
+    () => ({
+      add: (line: Omit<CartLine, 'lineId'>) => cartStore.add(slug, line),
+      setQuantity: (lineId: string, quantity: number) => cartStore.setQuantity(slug, lineId, quantity),
+      remove: (lineId: string) => cartStore.remove(slug, lineId),
+      clear: () => cartStore.clear(slug),
+    }),
+    [slug],
+  );
+  return { lines, count: lines.reduce((n, l) => n + (l.quantity ?? 1), 0), ...actions };
 }

@@ -68,3 +68,12 @@ export function toPlacement(photo: { width: number; height: number }, aspect: nu
  * the window's scale, which is the photo's.
  */
 export const checkedCrop = (placement: Placement) => ({ width: placement.crop.width, height: placement.crop.height });
+
+/** Fine straightening on top of quarter turns, within ±15°. */
+export const MAX_STRAIGHTEN = 15;
+export const quarterTurnsOf = (rotation: number) => Math.round(rotation / 90);
+/** What is left of a rotation once its quarter turns are taken out: the fine straightening. */
+export const straightening = (rotation: number) => rotation - quarterTurnsOf(rotation) * 90;
+/** A quarter turn more or less, keeping the straightening, within −180…180. */
+export const turned = (rotation: number, by: 90 | -90) => ((((rotation + by + 180) % 360) + 360) % 360) - 180;
+export const formatDegrees = (degrees: number) => `${degrees > 0 ? '+' : degrees < 0 ? '−' : ''}${Math.abs(degrees).toFixed(1)}°`;

@@ -142,18 +142,23 @@ describe('payments stand-in, through the stripe SDK', () => {
     expect((await payments().stripe.events.retrieve(completed.event.id)).type).toBe('checkout.session.completed');
   });
 
-  it('declines 4000 0000 0000 0002 and 4000 0000 0000 9995 with the documented messages and no completed event', async () => {
+  it('declines 4000 0000 0000 0002 and 4000 0000 0000 9995: our words on the page, the documented messages in the API, no completed event', async () => {
     const session = await createSession();
     const declined = await pay(session, '4000000000000002');
     expect(declined.status).toBe(402);
-    expect(await declined.text()).toContain('Your card was declined.');
+    expect(await declined.text()).toContain('Refused: this card was not accepted. Nothing was charged.');
     const poor = await pay(session, '4000 0000 0000 9995');
-    expect(await poor.text()).toContain('Your card has insufficient funds.');
+    expect(await poor.text()).toContain('Not enough funds on this card. Nothing was charged.');
     const failed = await eventually(() =>
       received.filter((r) => r.event.type === 'payment_intent.payment_failed').length === 2 ? received : undefined,
     );
     const decline = (failed.at(-1)!.event.data.object as Stripe.PaymentIntent).last_payment_error;
-    expect(decline).toMatchObject({ code: 'card_declined', decline_code: 'insufficient_funds' });
+    // The processor's testing guide: the API's own message for this decline, unchanged for the SDK.
+    expect(decline).toMatchObject({
+      code: 'card_declined',
+      decline_code: 'insufficient_funds',
+      message: 'Your card has insufficient funds.',
+    });
     await new Promise((resolve) => setTimeout(resolve, 150));
     expect(received.some((r) => r.event.type === 'checkout.session.completed')).toBe(false);
     expect(await payments().stripe.checkout.sessions.retrieve(session.id)).toMatchObject({ status: 'open', payment_status: 'unpaid' });

@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
@@ -12,7 +12,7 @@ import { Button, buttonClasses } from '#src/components/ui/button.tsx';
 import { Card, CardTitle } from '#src/components/ui/card.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
 import { TextField } from '#src/components/ui/text-field.tsx';
-import { useCart, type CartLine } from '#src/features/cart/cart-store.ts';
+import { loadCheckoutDetails, saveCheckoutDetails, useCart, type CartLine } from '#src/features/cart/index.ts';
 import { placeOrder, useDeliveryOptions } from '#src/features/storefront/api/checkout.ts';
 
 export function CartPage() {
@@ -33,11 +33,16 @@ function Cart({ studio }: { studio: PublicStudio }) {
   const [failure, setFailure] = useState<{ message: string; line?: number }>();
   const form = useForm<Details, unknown, z.output<typeof detailsSchema>>({
     resolver: zodResolver(detailsSchema),
-    defaultValues: {
+    defaultValues: loadCheckoutDetails<Details>(studioSlug, {
       buyer: { email: '', name: '' },
       delivery: { method: 'ship', rateId: '', address: { line1: '', line2: '', city: '', region: '', postalCode: '', country: '' } },
-    },
+    }),
   });
+  // Kept as typed, so that coming back from the payment page finds the form filled in.
+  useEffect(() => {
+    const subscription = form.watch((values) => saveCheckoutDetails(studioSlug, values));
+    return () => subscription.unsubscribe();
+  }, [form, studioSlug]);
   const method = form.watch('delivery.method');
   const rateId = form.watch('delivery.rateId' as 'delivery.method') as unknown as string;
   const errors = form.formState.errors as DetailErrors;

@@ -6,7 +6,7 @@ import { AppError } from '#shared/errors.ts';
 import { WithStorefront } from '#src/app/layouts/storefront-layout.tsx';
 import { Card, CardTitle } from '#src/components/ui/card.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
-import { useCart } from '#src/features/cart/cart-store.ts';
+import { clearCheckoutDetails, useCart } from '#src/features/cart/index.ts';
 import { OrderMoney, OrderTimeline } from '#src/features/orders/components/order-timeline.tsx';
 import { ItemMockup } from '#src/features/designer/components/item-mockup.tsx';
 import { useOrder } from '#src/features/storefront/api/checkout.ts';
@@ -24,8 +24,11 @@ export function OrderPage() {
   const cartFilled = cart.lines.length > 0;
   useEffect(() => {
     // Back from the pay page: the cart has become this order.
-    if (justPaid && status && status !== 'awaiting_payment' && status !== 'cancelled' && cartFilled) clearCart();
-  }, [justPaid, status, cartFilled, clearCart]);
+    if (!justPaid || !status || status === 'awaiting_payment' || status === 'cancelled') return;
+    // …and what was typed at checkout is no longer needed in this tab.
+    clearCheckoutDetails(studioSlug);
+    if (cartFilled) clearCart();
+  }, [justPaid, status, cartFilled, clearCart, studioSlug]);
 
   return (
     <WithStorefront>

@@ -1,25 +1,18 @@
 import { useState } from 'react';
 import { useParams } from 'react-router-dom';
-import { useMutation, useQuery } from '@tanstack/react-query';
-import { proofViewSchema } from '#shared/schemas/workspace-orders.ts';
 import { WithStorefront } from '#src/app/layouts/storefront-layout.tsx';
 import { Button } from '#src/components/ui/button.tsx';
 import { Card, CardTitle } from '#src/components/ui/card.tsx';
 import { TextAreaField } from '#src/components/ui/field.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
-import { apiFetch } from '#src/lib/api-client.ts';
+import { useAnswerProof, useProof } from '#src/features/storefront/api/proof.ts';
 
 /** The buyer's proof: how the piece will burn, to approve or to ask for changes (the link works once). */
 export function ProofPage() {
   const { studioSlug = '', token = '' } = useParams();
-  const url = `/api/storefront/${encodeURIComponent(studioSlug)}/proofs/${encodeURIComponent(token)}`;
-  const proof = useQuery({
-    queryKey: ['proof', studioSlug, token],
-    queryFn: ({ signal }) => apiFetch(url, { schema: proofViewSchema, signal }),
-    retry: false,
-  });
+  const proof = useProof(studioSlug, token);
   const [message, setMessage] = useState('');
-  const answer = useMutation({ mutationFn: (body: unknown) => apiFetch(url, { method: 'POST', body }) });
+  const answer = useAnswerProof(studioSlug, token);
   return (
     <WithStorefront>
       {(studio) => {

@@ -1,9 +1,7 @@
 import { useState } from 'react';
 import { useParams } from 'react-router-dom';
-import { useMutation, useQuery } from '@tanstack/react-query';
 import { effectivePpi, verdictFor } from '#shared/imaging/photo-checks.ts';
 import type { BuyerPhotoView } from '#shared/schemas/photos.ts';
-import { replacementViewSchema } from '#shared/schemas/workspace-orders.ts';
 import { formatSize } from '#shared/units.ts';
 import { WithStorefront } from '#src/app/layouts/storefront-layout.tsx';
 import { Button } from '#src/components/ui/button.tsx';
@@ -13,20 +11,15 @@ import { ItemMockup } from '#src/features/designer/components/item-mockup.tsx';
 import { PhotoDrop } from '#src/features/designer/components/photo-drop.tsx';
 import { PlacedPhoto } from '#src/features/designer/components/placed-photo.tsx';
 import { startFraming, toPlacement } from '#src/features/designer/placement.ts';
-import { apiFetch } from '#src/lib/api-client.ts';
+import { useReplacement, useSendReplacement } from '#src/features/storefront/api/replacement.ts';
 
 /** The buyer's answer to "please send a new photo", by the private link from the e-mail. */
 export function ReplacePhotoPage() {
   const { studioSlug = '', token = '' } = useParams();
-  const url = `/api/storefront/${encodeURIComponent(studioSlug)}/replacements/${encodeURIComponent(token)}`;
-  const asked = useQuery({
-    queryKey: ['replacement', studioSlug, token],
-    queryFn: ({ signal }) => apiFetch(url, { schema: replacementViewSchema, signal }),
-    retry: false,
-  });
+  const asked = useReplacement(studioSlug, token);
   const [photo, setPhoto] = useState<BuyerPhotoView>();
   const [rights, setRights] = useState(false);
-  const send = useMutation({ mutationFn: (body: unknown) => apiFetch(url, { method: 'POST', body }) });
+  const send = useSendReplacement(studioSlug, token);
 
   return (
     <WithStorefront>

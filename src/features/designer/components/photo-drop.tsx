@@ -1,4 +1,5 @@
 import { useRef, useState } from 'react';
+import { AppError } from '#shared/errors.ts';
 import { useDropzone, type FileRejection } from 'react-dropzone';
 import { MAX_IMAGE_UPLOAD_BYTES } from '#shared/schemas/uploads.ts';
 import type { BuyerPhotoView } from '#shared/schemas/photos.ts';
@@ -50,7 +51,9 @@ export function PhotoDrop({
       onPhoto(photo);
     } catch (error) {
       if ((error as Error).name === 'AbortError') return setState({ step: 'idle' });
-      setState({ step: 'failed', name: original.name, message: (error as Error).message, file: original });
+      // A refused field (the size, the type) says more than the form's general message.
+      const message = (error instanceof AppError && error.issues?.[0]?.message) || (error as Error).message;
+      setState({ step: 'failed', name: original.name, message, file: original });
     }
   }
 
@@ -66,6 +69,14 @@ export function PhotoDrop({
             : 'Please drop one photo.';
       return setState({ step: 'failed', name: rejected.file.name, message, file: rejected.file });
     }
+    // An empty file passes the type check but holds no photo: say so before any upload.
+    if (files[0]?.size === 0)
+      return setState({
+        step: 'failed',
+        name: files[0].name,
+        message: 'This file is empty (0 bytes): it may not have finished saving or copying. Please choose the photo again.',
+        file: files[0],
+      });
     if (files[0]) void send(files[0]);
   }
 

@@ -20,6 +20,7 @@ export const workspaceSchema = z.object({
     pickupNote: z.string(),
     proofsRequired: z.boolean(),
     masterResolution: z.enum(['1000-ppi', 'recipe']),
+    nextOrderNumber: z.number().int(),
   }),
   role: z.enum(ROLES),
   permissions: z.array(z.enum(PERMISSIONS)),

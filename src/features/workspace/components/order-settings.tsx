@@ -73,6 +73,16 @@ export function OrderSettingsCard({ workspace }: { workspace: Workspace }) {
           error={errors.masterResolution?.message}
           hint="Each render also writes a grayscale master for machine software that halftones by itself. At 1000 pixels per inch an 8 × 10 in master is about 80 megapixels."
         />
+        <TextField
+          label="Number of the next order"
+          type="number"
+          inputMode="numeric"
+          min={1}
+          className="max-w-48"
+          {...form.register('nextOrderNumber', { valueAsNumber: true })}
+          error={errors.nextOrderNumber?.message}
+          hint="Orders count up from here. Before the first order this is the first number; it cannot go back to a number already used."
+        />
         {form.watch('pickupEnabled') && (
           <TextAreaField label="Where and when to collect" rows={2} {...form.register('pickupNote')} error={errors.pickupNote?.message} />
         )}
