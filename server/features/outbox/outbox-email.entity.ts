@@ -38,7 +38,7 @@ export class OutboxEmail extends BaseEntity<'status' | 'attempts' | 'nextAttempt
   sentAt: Date | null = null;
 
   /** The order whose payment releases this e-mail, while it is held. */
-  @Index()
-  @Property({ type: 'uuid', nullable: true })
+  @Index({ name: 'outbox_email_held_for_order_id_index' })
+  @Property({ type: 'uuid', fieldName: 'held_for_order_id', nullable: true })
   heldForOrder: string | null = null;
 }

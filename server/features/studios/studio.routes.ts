@@ -67,7 +67,6 @@ export function studioRoutes({ storage }: { storage: Storage }): WorkspaceRoute[
           pickupNote: 'At the workshop, weekdays.',
           proofsRequired: false,
           masterResolution: 'recipe',
-          nextOrderNumber: 40,
         },
       }),
       handler: async (ctx, req, res) => {

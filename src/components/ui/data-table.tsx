@@ -122,7 +122,7 @@ export function DataTable<T extends RowData>({
           </div>
         ))}
       </div>
-      <div className="overflow-x-auto rounded-card border border-graphite-100 bg-white">
+      <div className="relative overflow-x-auto rounded-card border border-graphite-100 bg-white">
         <table className="w-full border-collapse text-left text-sm">
           <caption className="sr-only">{caption}</caption>
           <thead className="bg-birch-100 text-xs uppercase tracking-wide text-graphite-600">
@@ -143,7 +143,7 @@ export function DataTable<T extends RowData>({
                         <button
                           type="button"
                           onClick={header.column.getToggleSortingHandler()}
-                          className="inline-flex items-center gap-1 uppercase tracking-wide hover:text-graphite-900"
+                          className="inline-flex min-h-6 items-center gap-1 uppercase tracking-wide hover:text-graphite-900"
                         >
                           {content}
                           <span aria-hidden className="text-[0.7rem]">

@@ -4,7 +4,7 @@ import { cx } from '#src/lib/cx.ts';
 /** Table parts with the design system's spacing and rules; use real <table> semantics. */
 export function Table({ className, ...rest }: TableHTMLAttributes<HTMLTableElement>) {
   return (
-    <div className="overflow-x-auto rounded-card border border-graphite-100 bg-white">
+    <div className="relative overflow-x-auto rounded-card border border-graphite-100 bg-white">
       <table className={cx('w-full border-collapse text-left text-sm', className)} {...rest} />
     </div>
   );

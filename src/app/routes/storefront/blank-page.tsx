@@ -28,7 +28,10 @@ export function BlankPage() {
         return (
           <div className="flex flex-col gap-8">
             <div className="flex flex-col gap-3">
-              <Link to={`/s/${studioSlug}`} className="text-sm font-semibold text-graphite-600 hover:underline">
+              <Link
+                to={`/s/${studioSlug}`}
+                className="inline-block self-start py-1 text-sm font-semibold text-graphite-600 hover:underline"
+              >
                 ← Everything {studio.name} makes
               </Link>
               <h1 className="text-3xl font-extrabold">{blank.name}</h1>

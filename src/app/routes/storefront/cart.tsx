@@ -76,7 +76,7 @@ function Cart({ studio }: { studio: PublicStudio }) {
     );
 
   return (
-    <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_minmax(0,26rem)]">
+    <div className="grid grid-cols-[minmax(0,1fr)] gap-8 lg:grid-cols-[minmax(0,1fr)_minmax(0,26rem)]">
       <div className="flex flex-col gap-4">
         <h1 className="text-3xl font-extrabold">Your cart</h1>
         <ul className="flex flex-col gap-3">
@@ -120,7 +120,7 @@ function Cart({ studio }: { studio: PublicStudio }) {
                       form.setValue('delivery.method', 'ship');
                       form.setValue('delivery.rateId' as 'delivery.method', rate.id as 'ship');
                     }}
-                    className="accent-[var(--color-accent)]"
+                    className="size-6 shrink-0 accent-[var(--color-accent)]"
                   />
                   {rate.name}
                 </span>
@@ -133,7 +133,7 @@ function Cart({ studio }: { studio: PublicStudio }) {
                   type="radio"
                   checked={method === 'pickup'}
                   onChange={() => form.setValue('delivery.method', 'pickup')}
-                  className="mt-1 accent-[var(--color-accent)]"
+                  className="size-6 shrink-0 accent-[var(--color-accent)]"
                 />
                 <span>
                   Pick it up at the studio (free)
@@ -221,9 +221,12 @@ function CartRow({
 }) {
   const quantity = line.quantity ?? 1;
   return (
-    <li className={`flex items-center gap-4 rounded-card border bg-white p-4 ${highlighted ? 'border-rust-600' : 'border-graphite-100'}`}>
+    // On a phone the quantity, price and Remove wrap under the photo and its name.
+    <li
+      className={`flex flex-wrap items-center gap-x-4 gap-y-3 rounded-card border bg-white p-4 ${highlighted ? 'border-rust-600' : 'border-graphite-100'}`}
+    >
       <img src={line.thumbUrl} alt="" className="size-20 rounded-md object-cover" />
-      <div className="flex-1">
+      <div className="min-w-0 flex-1 basis-40">
         <p className="font-bold">{line.blankName}</p>
         <p className="text-sm text-graphite-600">
           {line.sizeLabel}, {line.orientation}
@@ -242,7 +245,7 @@ function CartRow({
           className="h-9 w-16 rounded-lg border border-graphite-200 px-2 text-sm font-normal"
         />
       </label>
-      <p className="w-24 text-right font-bold">{money(line.priceMinor * quantity)}</p>
+      <p className="ml-auto min-w-20 text-right font-bold">{money(line.priceMinor * quantity)}</p>
       <Button size="sm" variant="quiet" onClick={onRemove} aria-label={`Remove ${line.blankName}, ${line.sizeLabel}`}>
         Remove
       </Button>

@@ -121,7 +121,7 @@ export function OrderPage() {
                 </Card>
               </div>
             </div>
-            <Link to={`/s/${studioSlug}`} className="text-sm font-semibold text-graphite-600 hover:underline">
+            <Link to={`/s/${studioSlug}`} className="inline-block self-start py-1 text-sm font-semibold text-graphite-600 hover:underline">
               ← Back to the storefront
             </Link>
           </div>

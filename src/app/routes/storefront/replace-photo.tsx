@@ -79,8 +79,8 @@ export function ReplacePhotoPage() {
                         at {formatSize(area.widthMm, area.heightMm, studio.units)}.
                       </p>
                       <label className="flex items-start gap-2 text-sm">
-                        <input type="checkbox" checked={rights} onChange={(e) => setRights(e.target.checked)} className="mt-1" />I took this
-                        photo or have permission to use it.
+                        <input type="checkbox" checked={rights} onChange={(e) => setRights(e.target.checked)} className="size-6 shrink-0" />
+                        I took this photo or have permission to use it.
                       </label>
                       {send.error && <Notice tone="error">{send.error.message}</Notice>}
                       <Button

@@ -112,7 +112,7 @@ export function MaterialDialog({ slug, material, onClose }: { slug: string; mate
           <div className="flex flex-wrap gap-4">
             {LASER_KINDS.map((kind) => (
               <label key={kind} className="flex items-center gap-2 text-sm">
-                <input type="checkbox" value={kind} {...register('forbiddenOn')} className="size-4 accent-rust-600" />
+                <input type="checkbox" value={kind} {...register('forbiddenOn')} className="size-5 accent-rust-600" />
                 {LASER_KIND_LABELS[kind]} lasers
               </label>
             ))}

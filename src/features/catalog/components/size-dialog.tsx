@@ -182,7 +182,7 @@ export function SizeDialog({
         <fieldset className="flex flex-col gap-2 sm:col-span-2">
           <legend className="mb-1 text-sm font-semibold text-graphite-800">Stock</legend>
           <label className="flex items-center gap-2 text-sm">
-            <input type="checkbox" {...register('unlimited')} className="size-4 accent-ember-500" />
+            <input type="checkbox" {...register('unlimited')} className="size-5 accent-ember-500" />
             Unlimited (made to order)
           </label>
           {!watch('unlimited') && (

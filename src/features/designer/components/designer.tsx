@@ -136,7 +136,7 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
               type="checkbox"
               checked={rights}
               onChange={(e) => setRights(e.target.checked)}
-              className="mt-0.5 size-5 shrink-0 accent-[var(--color-accent)]"
+              className="mt-0.5 size-6 shrink-0 accent-[var(--color-accent)]"
             />
             I took this photo or have permission to use it.
           </label>

@@ -75,7 +75,7 @@ export function PhotoStep({
             type="checkbox"
             checked={lowConfirmed}
             onChange={(e) => onLowConfirmed(e.target.checked)}
-            className="mt-0.5 size-5 shrink-0 accent-[var(--color-accent)]"
+            className="mt-0.5 size-6 shrink-0 accent-[var(--color-accent)]"
           />
           Engrave it at this size anyway: I understand it will look soft.
         </label>

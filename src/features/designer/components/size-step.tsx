@@ -48,7 +48,7 @@ export function SizeStep({
               checked={s.id === size.id}
               disabled={s.stock === 'sold-out'}
               onChange={() => onSize(s)}
-              className="size-5 accent-[var(--color-accent)]"
+              className="size-6 accent-[var(--color-accent)]"
             />
             <span>
               <span className="font-semibold">{s.label}</span>

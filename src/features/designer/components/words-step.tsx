@@ -12,7 +12,7 @@ export function WordsStep({ inscription, onChange }: { inscription: InscriptionD
           type="checkbox"
           checked={inscription.on}
           onChange={(e) => onChange({ ...inscription, on: e.target.checked })}
-          className="size-5 shrink-0 accent-[var(--color-accent)]"
+          className="size-6 shrink-0 accent-[var(--color-accent)]"
         />
         Add a line of text under the photo
       </label>

@@ -59,11 +59,11 @@ export function OrderSettingsCard({ workspace }: { workspace: Workspace }) {
           hint="Too small means under 150 pixels per inch at the chosen size."
         />
         <label className="flex items-center gap-2 text-sm font-semibold">
-          <input type="checkbox" {...form.register('pickupEnabled')} className="size-4 accent-ember-500" />
+          <input type="checkbox" {...form.register('pickupEnabled')} className="size-5 accent-ember-500" />
           Buyers may collect their order from the studio
         </label>
         <label className="flex items-center gap-2 text-sm font-semibold">
-          <input type="checkbox" {...form.register('proofsRequired')} className="size-4 accent-ember-500" />
+          <input type="checkbox" {...form.register('proofsRequired')} className="size-5 accent-ember-500" />
           Send every buyer a proof to approve before engraving
         </label>
         <SelectField
