@@ -2,8 +2,9 @@ import { resolve } from 'node:path';
 import { dropDatabase, ensureDatabase } from '#server/db/database-admin.ts';
 import { initOrm, migrate } from '#server/db/orm.ts';
 import { seedDemo } from '#server/db/seed.ts';
+import { HISTORY_WEEKS, seedDemoHistory } from '#server/db/demo-history.ts';
 import { loadEnv } from '#server/env.ts';
-import { createStorage } from '#server/adapters/storage.ts';
+import { createStorage, type Storage } from '#server/adapters/storage.ts';
 import { log } from './run.ts';
 import { startPostgres } from './postgres.ts';
 import { startFake, type FakeName } from './fakes.ts';
@@ -83,10 +84,23 @@ export async function startStack(mode: StackMode, { appUrl = 'http://127.0.0.1:3
     const origins = { dev: [appUrl, 'http://127.0.0.1:5173'], bench: [appUrl], test: ['http://127.0.0.1:*', 'http://localhost:*'] }[mode];
     await createStorage(env).ensureBucket(origins);
     log(`fakes up: ${FAKES.join(', ')}; bucket ${env.S3_BUCKET} ready`);
+    // Twelve weeks of demo orders for `npm start` (their photos go to storage, so after the fakes).
+    if (mode === 'dev') await seedHistory(databaseUrl, createStorage(env));
     return { env: stackEnv, services, stop };
   } catch (error) {
     await stop();
     throw error;
+  }
+}
+
+/** The demo studios' past orders, once: Today's charts and the order list then look lived in. */
+async function seedHistory(databaseUrl: string, storage: Storage): Promise<void> {
+  const orm = await initOrm(databaseUrl);
+  try {
+    const added = await seedDemoHistory(orm.em.fork(), storage);
+    if (added) log(`demo history: ${added} order(s) over the last ${HISTORY_WEEKS} weeks`);
+  } finally {
+    await orm.close();
   }
 }
 
