@@ -27,6 +27,12 @@ export type PublicStudio = z.infer<typeof publicStudioSchema>;
 const CURRENCIES = new Set(Intl.supportedValuesOf('currency'));
 const knownCurrency = (code: string) => CURRENCIES.has(code);
 
+/** Every currency an owner may choose, by code and English name (ISO 4217 through Intl), A to Z. */
+export const currencyOptions = () => {
+  const names = new Intl.DisplayNames(['en'], { type: 'currency' });
+  return [...CURRENCIES].sort().map((code) => ({ value: code, label: `${code} · ${names.of(code) ?? code}` }));
+};
+
 /** What an owner may change about the studio: its name, storefront colour, money and units. */
 export const studioSettingsInputSchema = z.object({
   name: z.string().trim().min(2, 'Enter the studio’s name.').max(120, 'Use at most 120 characters.'),

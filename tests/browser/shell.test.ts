@@ -1,7 +1,7 @@
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { seedDemo } from '#server/db/seed.ts';
-import { screenshotDir, useBrowser } from '../support/browser.ts';
+import { screenshotDir, signInOnPage, useBrowser } from '../support/browser.ts';
 
 describe('client shell in Chromium', () => {
   const b = useBrowser();
@@ -42,6 +42,48 @@ describe('client shell in Chromium', () => {
     expect(response?.status()).toBe(200); // the shell answers; the client shows not-found
     await expect.poll(() => page.getByRole('heading', { level: 1 }).textContent()).toBe('There is nothing at this address');
     expect(problems).toEqual([]);
+    await page.close();
+  });
+
+  it('loads the first page without router warnings (a fallback is shown while its code loads)', async () => {
+    const { page, problems } = await b.newPage();
+    const warnings: string[] = [];
+    page.on('console', (message) => {
+      if (message.type() === 'warning') warnings.push(message.text());
+    });
+    await page.goto(`${b.baseUrl}/sign-in`);
+    await expect.poll(() => page.getByRole('heading', { level: 1 }).count()).toBe(1);
+    expect(warnings.filter((w) => /HydrateFallback|hydrat/i.test(w))).toEqual([]);
+    expect(problems).toEqual([]);
+    await page.close();
+  });
+
+  it('shows a page that fails to load as an error inside its section, the workspace’s navigation still there', async () => {
+    const { page } = await b.newPage();
+    await signInOnPage(page, b.baseUrl, 'maren@harbour-light.test', 'etch-demo-2026', /\/studio\/harbour-light/);
+    // The Team page's code cannot be fetched, as after a release replaced it.
+    await page.route(/\/assets\/team-[^/]*\.js$/, (route) => route.abort());
+    await page.getByRole('link', { name: 'Team', exact: true }).click();
+    await expect.poll(() => page.getByRole('alert').filter({ hasText: 'This page could not be shown' }).count()).toBe(1);
+    expect(await page.getByRole('navigation', { name: 'Workspace' }).count()).toBe(1);
+    expect(await page.getByRole('button', { name: 'Reload the page' }).count()).toBe(1);
+    await page.screenshot({ path: join(screenshotDir, 'workspace-page-error.png'), fullPage: true });
+    await page.close();
+  });
+
+  it('titles each page after itself and its place, so tabs and history can be told apart', async () => {
+    const { page } = await b.newPage();
+    const titled = async (path: string, title: string) => {
+      await page.goto(`${b.baseUrl}${path}`);
+      await expect.poll(() => page.title(), { message: path }).toBe(title);
+    };
+    await titled('/sign-in', 'Sign in · Etchwell');
+    await titled('/s/harbour-light', 'Harbour Light Engraving');
+    await titled('/s/harbour-light/cart', 'Cart · Harbour Light Engraving');
+    await titled('/no-such-page', 'Not found · Etchwell');
+    await signInOnPage(page, b.baseUrl, 'maren@harbour-light.test', 'etch-demo-2026', /\/studio\/harbour-light/);
+    await titled('/studio/harbour-light/team', 'Team · Harbour Light Engraving workspace');
+    await titled('/studio/harbour-light/catalog/recipes', 'Recipes · Harbour Light Engraving workspace');
     await page.close();
   });
 });

@@ -112,6 +112,8 @@ describe('a buyer orders a glass portrait and pays', () => {
 
     const receipt = await mail.latestTo('june@buyers.test');
     expect(receipt.subject).toMatch(/^Your order \d+ at Harbour Light Engraving$/);
+    // From the studio by name, at Etchwell's own sending address.
+    expect(receipt.from).toMatch(/^"?Harbour Light Engraving"? <no-reply@etchwell\.localhost>$/);
     const link = receipt.links.find((l) => l.includes('/orders/'))!;
     const again = await b.newPage();
     await again.page.goto(link);

@@ -103,7 +103,7 @@ describe('database backups and migrations', () => {
     // Back to the schema before production (batches, renders, hand-overs, proofs, positions, the
     // audit log and the shared rate-limit table)…
     expect((await script('rollback', copy, 'Migration20261202002223')).stdout).toMatch(
-      /^rolled back: Migration20261203131000, Migration20261203130000, Migration20261203074038, Migration20261202025704, Migration20261202005233, Migration20261202004544, Migration20261202002223$/m,
+      /^rolled back: Migration20261203140000, Migration20261203131000, Migration20261203130000, Migration20261203074038, Migration20261202025704, Migration20261202005233, Migration20261202004544, Migration20261202002223$/m,
     );
     const tables = async () =>
       (

@@ -463,7 +463,7 @@ describe('catalog', () => {
       ).toEqual(['contentLength']);
       const text = await upload(blank.id, Buffer.from('this is not an image at all, only words'));
       expect((await owner.post(`${base}/blanks/${blank.id}/photos`).send({ key: text }).expect(415)).body.message).toMatch(
-        /JPEG, PNG, WebP/,
+        /Please send a JPEG, PNG or WebP photo\.$/,
       );
       const tiny = await upload(blank.id, await jpeg(200, 150));
       expect((await owner.post(`${base}/blanks/${blank.id}/photos`).send({ key: tiny }).expect(400)).body.message).toMatch(

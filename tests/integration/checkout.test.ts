@@ -213,6 +213,8 @@ describe('checkout and payment', () => {
       t.orm.em.fork().findOneOrFail(OutboxEmail, { to: 'june@buyers.test', subject: { $like: `%order ${order.number} %` } });
     const held = await receipt();
     expect(held).toMatchObject({ status: 'held', heldForOrder: order.id });
+    // Sent in the studio's name, answered to the studio's contact address.
+    expect(held).toMatchObject({ fromName: 'Harbour Light Engraving', replyTo: 'hello@harbour-light.test' });
     // The link in it is the one the pay page returns to: the same key, built once at checkout.
     const link = /https?:\/\/\S+\/orders\/\S+/.exec(held.text)![0];
     const session = await t.payments.stripe.checkout.sessions.retrieve(order.checkoutSessionId!);

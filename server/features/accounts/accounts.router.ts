@@ -4,7 +4,7 @@ import type { Env } from '#server/env.ts';
 import type { Orm } from '#server/db/orm.ts';
 import type { Auth } from '#server/auth/auth.ts';
 import type { RateLimits } from '#server/lib/rate-limits.ts';
-import { optionalUser, requireUser } from '#server/middleware/auth-guards.ts';
+import { optionalUser, requireUser, signedInUser } from '#server/middleware/auth-guards.ts';
 import { checkSlug, confirmEmail, describeMe, openStudio, signOutEverywhere } from './accounts.service.ts';
 
 /** Opening a studio, e-mail confirmation, and the signed-in person (`/api/accounts`, `/api/me`). */
@@ -33,7 +33,7 @@ export function accountsRouter({ orm, env, auth, limits }: { orm: Orm; env: Env;
   });
 
   router.post('/me/sign-out-everywhere', requireUser(auth), async (req, res) => {
-    await signOutEverywhere(em(), req.user!);
+    await signOutEverywhere(em(), signedInUser(req));
     res.status(204).end();
   });
 

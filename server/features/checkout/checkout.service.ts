@@ -18,7 +18,7 @@ import { ShippingRate } from '#server/features/shipping/shipping-rate.entity.ts'
 import type { Studio } from '#server/features/studios/studio.entity.ts';
 import { move } from '#server/features/orders/order-stages.service.ts';
 import { mailLines, orderReceivedMail } from '#server/features/orders/order-mail.ts';
-import { holdEmail } from '#server/features/outbox/outbox.service.ts';
+import { fromStudio, holdEmail } from '#server/features/outbox/outbox.service.ts';
 import { Order, OrderEvent, OrderItem } from '../orders/order.entity.ts';
 
 type CheckoutInput = z.output<typeof checkoutInputSchema>;
@@ -204,6 +204,7 @@ export async function placeOrder(
       em,
       {
         to: order.buyerEmail,
+        ...fromStudio(studio),
         ...orderReceivedMail({
           studioName: studio.name,
           number: order.number,

@@ -8,7 +8,7 @@ import type { Env } from '#server/env.ts';
 import type { Orm } from '#server/db/orm.ts';
 import { TENANT_FILTER } from '#server/db/tenant.ts';
 import { BlankSize } from '#server/features/catalog/catalog.entity.ts';
-import { dropHeldEmails, queueEmail, releaseHeldEmails } from '#server/features/outbox/outbox.service.ts';
+import { dropHeldEmails, fromStudio, queueEmail, releaseHeldEmails } from '#server/features/outbox/outbox.service.ts';
 import { Membership } from '#server/features/team/membership.entity.ts';
 import { latePaymentMail, mailLines, newOrderMail, soldOutMail } from '#server/features/orders/order-mail.ts';
 import { move } from '#server/features/orders/order-stages.service.ts';
@@ -82,6 +82,7 @@ async function latePayment(
   });
   queueEmail(em, {
     to: order.buyerEmail,
+    ...fromStudio(order.studio),
     ...latePaymentMail({ studioName: order.studio.name, number: order.number, buyerName: order.buyerName, total }),
   });
   return 'handled';
@@ -127,6 +128,7 @@ async function sessionCompleted(
     await dropHeldEmails(em, order.id);
     queueEmail(em, {
       to: order.buyerEmail,
+      ...fromStudio(studio),
       ...soldOutMail({ studioName: studio.name, number: order.number, buyerName: order.buyerName, what, total }),
     });
     return 'handled';

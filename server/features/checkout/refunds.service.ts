@@ -4,7 +4,7 @@ import { formatMoney } from '#shared/money.ts';
 import { assertMove, ORDER_TRANSITIONS, type ItemStage } from '#shared/orders/stages.ts';
 import type { Payments } from '#server/adapters/payments.ts';
 import { displayName, type User } from '#server/features/accounts/user.entity.ts';
-import { dropHeldEmails, queueEmail } from '#server/features/outbox/outbox.service.ts';
+import { dropHeldEmails, fromStudio, queueEmail } from '#server/features/outbox/outbox.service.ts';
 import type { Studio } from '#server/features/studios/studio.entity.ts';
 import { cancelledMail, refundedMail } from '../orders/order-mail.ts';
 import { move } from '#server/features/orders/order-stages.service.ts';
@@ -83,6 +83,7 @@ export async function refundOrder(
   });
   queueEmail(em, {
     to: order.buyerEmail,
+    ...fromStudio(studio),
     ...refundedMail({ studioName: studio.name, number: order.number, buyerName: order.buyerName, amount: money, reason: input.reason }),
   });
   await em.flush();
@@ -137,6 +138,7 @@ export async function cancelOrder(
   });
   queueEmail(em, {
     to: order.buyerEmail,
+    ...fromStudio(studio),
     ...cancelledMail({ studioName: studio.name, number: order.number, buyerName: order.buyerName, reason, refund: refunded.trim() }),
   });
   await em.flush();

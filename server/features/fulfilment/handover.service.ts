@@ -2,7 +2,7 @@ import type { EntityManager } from '@mikro-orm/postgresql';
 import { AppError } from '#shared/errors.ts';
 import type { ShipInput } from '#shared/schemas/production.ts';
 import { displayName, type User } from '#server/features/accounts/user.entity.ts';
-import { queueEmail } from '#server/features/outbox/outbox.service.ts';
+import { fromStudio, queueEmail } from '#server/features/outbox/outbox.service.ts';
 import type { Studio } from '#server/features/studios/studio.entity.ts';
 import { moveItem, move } from '#server/features/orders/order-stages.service.ts';
 import { handedOverMail } from '../orders/order-mail.ts';
@@ -42,6 +42,7 @@ export async function handOver(em: EntityManager, studio: Studio, orderId: strin
   }
   queueEmail(em, {
     to: order.buyerEmail,
+    ...fromStudio(studio),
     ...handedOverMail({
       studioName: studio.name,
       number: order.number,

@@ -4,7 +4,7 @@ import type { MyOrders } from '#shared/schemas/checkout.ts';
 import type { Auth } from '#server/auth/auth.ts';
 import type { Orm } from '#server/db/orm.ts';
 import { withoutTenantFilter } from '#server/db/tenant.ts';
-import { requireUser } from '#server/middleware/auth-guards.ts';
+import { requireUser, signedInUser } from '#server/middleware/auth-guards.ts';
 import { Order } from './order.entity.ts';
 
 /**
@@ -14,7 +14,7 @@ import { Order } from './order.entity.ts';
 export function myOrdersRouter({ orm, auth }: { orm: Orm; auth: Auth }): Router {
   const router = Router();
   router.get('/me/orders', requireUser(auth), async (req, res) => {
-    const user = req.user!;
+    const user = signedInUser(req);
     if (!user.emailVerifiedAt) return void res.json({ confirmed: false, orders: [] } satisfies MyOrders);
     const orders = await orm.em.find(
       Order,

@@ -8,7 +8,9 @@ import { BaseEntity } from '#server/db/base.entity.ts';
  */
 @Entity({ tableName: 'outbox_email' })
 @Index({ properties: ['status', 'nextAttemptAt'] })
-export class OutboxEmail extends BaseEntity<'status' | 'attempts' | 'nextAttemptAt' | 'lastError' | 'sentAt' | 'html' | 'heldForOrder'> {
+export class OutboxEmail extends BaseEntity<
+  'status' | 'attempts' | 'nextAttemptAt' | 'lastError' | 'sentAt' | 'html' | 'heldForOrder' | 'fromName' | 'replyTo'
+> {
   @Property({ type: 'string', length: 254 })
   to!: string;
 
@@ -20,6 +22,14 @@ export class OutboxEmail extends BaseEntity<'status' | 'attempts' | 'nextAttempt
 
   @Property({ type: 'text', nullable: true })
   html: string | null = null;
+
+  /** The sender's name when it is not Etchwell's (a studio writing to its buyer); the address stays ours. */
+  @Property({ type: 'string', length: 120, nullable: true })
+  fromName: string | null = null;
+
+  /** Where answers go: the studio's contact address for mail to its buyers. */
+  @Property({ type: 'string', length: 254, nullable: true })
+  replyTo: string | null = null;
 
   /** `held`: written but not to be sent until its order is paid (the buyer's receipt). */
   @Enum({ items: ['held', 'pending', 'sent', 'failed'], type: 'string' })

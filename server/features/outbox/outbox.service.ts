@@ -6,20 +6,28 @@ import type { Orm } from '#server/db/orm.ts';
 import { OutboxEmail } from './outbox-email.entity.ts';
 
 /** Puts an e-mail in the outbox; it is written with the caller's next flush or transaction. */
+const row = (mail: OutgoingMail) => ({
+  to: mail.to,
+  subject: mail.subject,
+  text: mail.text,
+  html: mail.html ?? null,
+  fromName: mail.fromName ?? null,
+  replyTo: mail.replyTo ?? null,
+});
+
 export function queueEmail(em: EntityManager, mail: OutgoingMail): OutboxEmail {
-  return em.create(OutboxEmail, { to: mail.to, subject: mail.subject, text: mail.text, html: mail.html ?? null });
+  return em.create(OutboxEmail, row(mail));
 }
+
+/** A studio writing to its buyer: in its name, answers to its contact address. */
+export const fromStudio = (studio: { name: string; contactEmail: string | null }) => ({
+  fromName: studio.name,
+  ...(studio.contactEmail ? { replyTo: studio.contactEmail } : {}),
+});
 
 /** An e-mail written now and sent only once `releaseHeldEmails` is called for its order. */
 export function holdEmail(em: EntityManager, mail: OutgoingMail, orderId: string): OutboxEmail {
-  return em.create(OutboxEmail, {
-    to: mail.to,
-    subject: mail.subject,
-    text: mail.text,
-    html: mail.html ?? null,
-    status: 'held',
-    heldForOrder: orderId,
-  });
+  return em.create(OutboxEmail, { ...row(mail), status: 'held', heldForOrder: orderId });
 }
 
 /** The order was paid: its held e-mails are due now. */
@@ -60,7 +68,14 @@ export async function deliverDueEmails(
     for (const mail of due) {
       mail.attempts += 1;
       try {
-        await mailer.send({ to: mail.to, subject: mail.subject, text: mail.text, html: mail.html ?? undefined });
+        await mailer.send({
+          to: mail.to,
+          subject: mail.subject,
+          text: mail.text,
+          html: mail.html ?? undefined,
+          fromName: mail.fromName ?? undefined,
+          replyTo: mail.replyTo ?? undefined,
+        });
         mail.status = 'sent';
         mail.sentAt = new Date();
         mail.lastError = null;

@@ -2,7 +2,7 @@ import { Router } from 'express';
 import { AppError } from '#shared/errors.ts';
 import type { Orm } from '#server/db/orm.ts';
 import type { Auth } from '#server/auth/auth.ts';
-import { requirePlatformAdmin, requireUser } from '#server/middleware/auth-guards.ts';
+import { requirePlatformAdmin, requireUser, signedInUser } from '#server/middleware/auth-guards.ts';
 import { findStudioBySlug } from '../studios/studios.service.ts';
 
 /** Platform admin pages' API (`/api/platform`): studios with counts; suspend and resume. */
@@ -41,7 +41,7 @@ export function platformRouter({ orm, auth }: { orm: Orm; auth: Auth }): Router 
       if (studio.status === status) throw new AppError('CONFLICT', `The studio is already ${status}.`);
       studio.status = status;
       await em().flush();
-      req.log.info({ studio: studio.slug, by: req.user!.id, action }, 'platform: studio status changed');
+      req.log.info({ studio: studio.slug, by: signedInUser(req).id, action }, 'platform: studio status changed');
       res.json({ slug: studio.slug, status });
     });
   }

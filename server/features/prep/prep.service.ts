@@ -9,7 +9,7 @@ import { AppError } from '#shared/errors.ts';
 import { prepSettingsSchema, type PrepSettings, type ProofDecision } from '#shared/schemas/prep.ts';
 import { hashToken, newLinkToken } from '#server/lib/tokens.ts';
 import { displayName, type User } from '#server/features/accounts/user.entity.ts';
-import { queueEmail } from '#server/features/outbox/outbox.service.ts';
+import { fromStudio, queueEmail } from '#server/features/outbox/outbox.service.ts';
 import type { Studio } from '#server/features/studios/studio.entity.ts';
 import { proofMail } from '../orders/order-mail.ts';
 import { findItem, moveItem } from '../orders/order-stages.service.ts';
@@ -68,6 +68,7 @@ export async function sendProof(
   item.proofImageKey = imageKey;
   queueEmail(em, {
     to: item.order.buyerEmail,
+    ...fromStudio(studio),
     ...proofMail({
       studioName: studio.name,
       number: item.order.number,

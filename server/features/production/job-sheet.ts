@@ -75,23 +75,35 @@ export async function jobSheetPdf(sheet: JobSheet): Promise<Buffer> {
     .fontSize(7)
     .fillColor(MUTED)
     .text('The engrave file as sent to the machine: black dots fire the laser.', left, top + ph * scale + 4, { width: 170 });
-  let y = top;
   const labelX = left + 190;
   const valueX = labelX + 120;
+  const valueWidth = left + width - valueX;
+  // The facts are set at the largest size that leaves room below for the checks and the
+  // cautions, so the sheet is always one page, whatever the recipe notes say.
+  const below = measureBelow(doc, sheet.checks, width);
+  const bottom = doc.page.height - doc.page.margins.bottom;
+  const size = [9.5, 8.5, 7.5].find((s) => Math.max(top + rowsHeight(doc, sheet.rows, s, valueWidth), top + 230) + below <= bottom) ?? 7.5;
+  let y = top;
+  const line = size + 3.5;
   for (const [label, value] of sheet.rows) {
     if (value === null) {
       y += y === top ? 0 : 6;
-      doc.font('bold').fontSize(10).fillColor(INK).text(label.toUpperCase(), labelX, y, { characterSpacing: 0.6 });
+      doc
+        .font('bold')
+        .fontSize(size + 0.5)
+        .fillColor(INK)
+        .text(label.toUpperCase(), labelX, y, { characterSpacing: 0.6 });
       y = doc.y + 2;
       continue;
     }
-    doc.font('regular').fontSize(9.5).fillColor(MUTED).text(label, labelX, y, { width: 115 });
+    doc.font('regular').fontSize(size).fillColor(MUTED).text(label, labelX, y, { width: 115 });
+    // At most three lines a value (long recipe notes end in "…").
     doc
       .font('bold')
-      .fontSize(9.5)
+      .fontSize(size)
       .fillColor(INK)
-      .text(value, valueX, y, { width: left + width - valueX });
-    y = Math.max(doc.y, y + 13) + 1;
+      .text(value, valueX, y, { width: valueWidth, height: 3 * line, ellipsis: true });
+    y = Math.max(doc.y, y + line) + 1;
   }
 
   // Checks to tick by hand.
@@ -130,4 +142,45 @@ export async function jobSheetPdf(sheet: JobSheet): Promise<Buffer> {
 
   doc.end();
   return finished;
+}
+
+/** The height the facts take at a font size, as drawn above (section heads, three-line values). */
+function rowsHeight(doc: PDFKit.PDFDocument, rows: JobSheet['rows'], size: number, valueWidth: number): number {
+  const line = size + 3.5;
+  let height = 0;
+  for (const [label, value] of rows) {
+    if (value === null) {
+      height +=
+        (height === 0 ? 0 : 6) +
+        doc
+          .font('bold')
+          .fontSize(size + 0.5)
+          .heightOfString(label.toUpperCase()) +
+        2;
+      continue;
+    }
+    const valueHeight = Math.min(3 * line, doc.font('bold').fontSize(size).heightOfString(value, { width: valueWidth }));
+    height += Math.max(valueHeight, line) + 1;
+  }
+  return height;
+}
+
+/** The height of the checks and the cautions' box, with their gaps. */
+function measureBelow(doc: PDFKit.PDFDocument, checks: string[], width: number): number {
+  let height = 14 + doc.font('bold').fontSize(10).heightOfString('CHECKS') + 4;
+  for (const check of checks)
+    height +=
+      doc
+        .font('regular')
+        .fontSize(10)
+        .heightOfString(check, { width: width - 16 }) + 4;
+  height += 10 + 10 + doc.font('bold').fontSize(10).heightOfString('Before you burn');
+  for (const caution of LASER_CAUTIONS)
+    height +=
+      3 +
+      doc
+        .font('regular')
+        .fontSize(9)
+        .heightOfString(`•  ${caution}`, { width: width - 24 });
+  return height + 10;
 }

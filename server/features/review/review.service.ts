@@ -9,7 +9,7 @@ import type { Placement } from '#shared/schemas/checkout.ts';
 import { REVIEW_REASONS, type ReviewItem, type ReviewReason } from '#shared/schemas/workspace-orders.ts';
 import { hashToken, newLinkToken } from '#server/lib/tokens.ts';
 import { displayName, type User } from '#server/features/accounts/user.entity.ts';
-import { queueEmail } from '#server/features/outbox/outbox.service.ts';
+import { fromStudio, queueEmail } from '#server/features/outbox/outbox.service.ts';
 import { buyerPhotoView, findBuyerPhoto } from '#server/features/photos/photos.service.ts';
 import type { Studio } from '#server/features/studios/studio.entity.ts';
 import { newPhotoNeededMail } from '../orders/order-mail.ts';
@@ -87,6 +87,7 @@ export async function askNewPhoto(
   Object.assign(item, { replacementTokenHash: token.hash, replacementReason: input.reason, replacementNote: input.note });
   queueEmail(em, {
     to: item.order.buyerEmail,
+    ...fromStudio(studio),
     ...newPhotoNeededMail({
       studioName: studio.name,
       number: item.order.number,

@@ -3,7 +3,7 @@ import { acceptWithAccountInputSchema } from '#shared/schemas/team.ts';
 import type { Orm } from '#server/db/orm.ts';
 import type { Auth } from '#server/auth/auth.ts';
 import type { RateLimits } from '#server/lib/rate-limits.ts';
-import { requireUser } from '#server/middleware/auth-guards.ts';
+import { requireUser, signedInUser } from '#server/middleware/auth-guards.ts';
 import { acceptInvite, acceptInviteWithNewAccount, previewInvite } from './team.service.ts';
 
 /** The invitee's side, by the token in the e-mailed link (`/api/invites/:token`). */
@@ -14,7 +14,7 @@ export function invitesRouter({ orm, auth, limits }: { orm: Orm; auth: Auth; lim
   router.post(
     '/:token/accept',
     requireUser(auth),
-    async (req, res) => void res.json(await acceptInvite(em(), String(req.params.token), req.user!)),
+    async (req, res) => void res.json(await acceptInvite(em(), String(req.params.token), signedInUser(req))),
   );
   router.post('/:token/accept-with-account', async (req, res) => {
     const input = acceptWithAccountInputSchema.parse(req.body);

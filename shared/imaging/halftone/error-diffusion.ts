@@ -13,9 +13,10 @@ export type ErrorDiffusionOptions = {
 
 /**
  * Error diffusion to one bit. Every published kernel here fits in three rows and five columns
- * (x − 2 … x + 2), so one loop serves them all: the current row's errors ride in two local
- * carries, the next two rows' in two buffers of width + 4 floats. Memory beyond input and output
- * is O(width) whatever the image height; an 80-megapixel file diffuses in a few kilobytes of state.
+ * (x − 2 … x + 2), so one general loop serves any of them (`errorDiffuseAnyKernel`): the current
+ * row's errors ride in two local carries, the next two rows' in two buffers of width + 4 floats.
+ * Floyd–Steinberg and Jarvis–Judice–Ninke, the two studios use most, have loops of their own.
+ * Memory beyond input and output is O(width) whatever the image height.
  */
 export function errorDiffuse(image: GrayF, options: ErrorDiffusionOptions): Bitmap {
   if (options.kernel === 'floyd-steinberg') return floydSteinberg(image, options);

@@ -1,12 +1,14 @@
 import type { ReactNode } from 'react';
 import { Link, Outlet } from 'react-router-dom';
 import { UserMenu } from '#src/features/auth/components/user-menu.tsx';
+import { usePageTitle } from './page-title.ts';
 
 /**
  * Etchwell's own pages (home, sign-in, not found): the platform header and footer. The layout
  * route of those pages (its outlet shows the page), or a frame around `children`.
  */
 export function SiteLayout({ children }: { children?: ReactNode }) {
+  usePageTitle('Etchwell');
   return (
     <div className="flex min-h-screen flex-col">
       <header className="border-b border-graphite-100 bg-white/80 backdrop-blur">

@@ -6,6 +6,7 @@ import { usePublicStudio } from '#src/features/storefront/api/get-studio.ts';
 import { useCart } from '#src/features/cart/cart-store.ts';
 import { NotFoundPage } from '#src/app/routes/not-found.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
+import { usePageTitle } from './page-title.ts';
 
 /**
  * The layout route of a studio's storefront: its name and colour, the cart, and the closed notice
@@ -15,6 +16,7 @@ export function StorefrontLayout() {
   const { studioSlug = '' } = useParams();
   const studio = usePublicStudio(studioSlug);
   const cart = useCart(studioSlug);
+  usePageTitle(studio.data?.name);
 
   if (studio.isPending) return <p className="p-10 text-graphite-500">Opening the storefront…</p>;
   if (studio.error) {

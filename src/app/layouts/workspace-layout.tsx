@@ -7,6 +7,7 @@ import { UserMenu } from '#src/features/auth/components/user-menu.tsx';
 import { RequireSignIn } from '#src/app/routes/workspace/require-sign-in.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
 import { cx } from '#src/lib/cx.ts';
+import { usePageTitle } from './page-title.ts';
 
 /**
  * The layout route of a studio's workspace: studio name, the pages this member may open, and the
@@ -28,6 +29,7 @@ export function WithWorkspace({ children }: { children: (workspace: Workspace) =
 function WorkspaceFrame() {
   const { studioSlug = '' } = useParams();
   const workspace = useWorkspace(studioSlug);
+  usePageTitle(workspace.data && `${workspace.data.studio.name} workspace`);
   const nav = [
     { to: `/studio/${studioSlug}`, label: 'Overview', end: true, show: true },
     { to: `/studio/${studioSlug}/orders`, label: 'Orders', end: false, show: can(workspace.data?.role, 'order:read') },

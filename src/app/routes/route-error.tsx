@@ -21,7 +21,7 @@ function describe(error: unknown): string {
 export function PageError() {
   const error = useRouteError();
   return (
-    <div role="alert" className="mx-auto max-w-xl py-10">
+    <div className="mx-auto max-w-xl py-10">
       <Notice tone="error" title="This page could not be shown">
         {describe(error)}
       </Notice>
@@ -36,7 +36,7 @@ export function PageError() {
 export function SectionError() {
   const error = useRouteError();
   return (
-    <main role="alert" className="mx-auto max-w-xl px-6 py-24">
+    <main className="mx-auto max-w-xl px-6 py-24">
       <Notice tone="error" title="Something went wrong">
         {describe(error)}
       </Notice>

@@ -41,8 +41,9 @@ export function FieldFrame({ id, label, hint, error, className, children }: Fiel
 
 export const controlClasses = (error?: string) =>
   cx(
-    'rounded-lg border bg-white px-3 text-graphite-900 placeholder:text-graphite-400 focus:outline-none focus:ring-2 disabled:bg-graphite-50 disabled:text-graphite-600',
-    error ? 'border-rust-600 focus:ring-rust-100' : 'border-graphite-200 focus:border-accent focus:ring-ember-100',
+    // Focus shows as the page-wide ring (src/styles/index.css), strong enough for WCAG 2.4.13.
+    'rounded-lg border bg-white px-3 text-graphite-900 placeholder:text-graphite-400 disabled:bg-graphite-50 disabled:text-graphite-600',
+    error ? 'border-rust-600' : 'border-graphite-200 focus:border-accent',
   );
 
 export type SelectFieldProps = SelectHTMLAttributes<HTMLSelectElement> & {

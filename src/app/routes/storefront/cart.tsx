@@ -48,6 +48,8 @@ function Cart({ studio }: { studio: PublicStudio }) {
   const errors = form.formState.errors as DetailErrors;
   const subtotal = cart.lines.reduce((sum, l) => sum + l.priceMinor * (l.quantity ?? 1), 0);
   const shipping = method === 'ship' ? (delivery.data?.rates.find((r) => r.id === rateId)?.priceMinor ?? 0) : 0;
+  // Pickup is free; a shipped order has its price only once a rate is chosen.
+  const chosen = method === 'pickup' || Boolean(rateId);
   const money = (minor: number) => formatMoney(minor, studio.currency);
 
   const onSubmit = form.handleSubmit(async (details) => {
@@ -91,6 +93,9 @@ function Cart({ studio }: { studio: PublicStudio }) {
             />
           ))}
         </ul>
+        <Link to={`/s/${studioSlug}`} className="inline-block self-start py-1 text-sm font-semibold text-graphite-700 hover:underline">
+          ← Continue shopping
+        </Link>
       </div>
       <Card>
         <CardTitle>Checkout</CardTitle>
@@ -182,7 +187,7 @@ function Cart({ studio }: { studio: PublicStudio }) {
                 label="Country code"
                 autoComplete="country"
                 maxLength={2}
-                placeholder="US"
+                hint="Two letters, such as GB, US or DE."
                 {...form.register('delivery.address.country' as 'delivery.method')}
                 error={errors.delivery?.address?.country?.message}
               />
@@ -192,7 +197,7 @@ function Cart({ studio }: { studio: PublicStudio }) {
             <dt>Items</dt>
             <dd className="text-right">{money(subtotal)}</dd>
             <dt>Delivery</dt>
-            <dd className="text-right">{money(shipping)}</dd>
+            <dd className="text-right">{chosen ? money(shipping) : <span className="text-graphite-500">choose a method</span>}</dd>
             <dt className="text-base font-bold">Total</dt>
             <dd className="text-right text-base font-bold">{money(subtotal + shipping)}</dd>
           </dl>

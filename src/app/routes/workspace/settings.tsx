@@ -1,8 +1,9 @@
 import { useState, type FormEvent } from 'react';
 import { can } from '#shared/permissions.ts';
-import { studioSettingsInputSchema } from '#shared/studio.ts';
+import { currencyOptions, studioSettingsInputSchema } from '#shared/studio.ts';
 import { WithWorkspace } from '#src/app/layouts/workspace-layout.tsx';
 import { Card, CardTitle } from '#src/components/ui/card.tsx';
+import { SelectField } from '#src/components/ui/field.tsx';
 import { TextField } from '#src/components/ui/text-field.tsx';
 import { Button } from '#src/components/ui/button.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
@@ -84,11 +85,12 @@ function SettingsForm({ workspace }: { workspace: Workspace }) {
               className="h-10 w-14 rounded-lg border border-graphite-200"
             />
           </div>
-          <TextField
+          <SelectField
             label="Currency"
             name="currency"
             defaultValue={studio.currency}
-            hint="Three letters, such as USD, EUR or GBP. Prices are kept in its smallest unit."
+            options={currencyOptions()}
+            hint="Prices are kept in its smallest unit (cents, pence…)."
             error={form.errors.currency}
           />
           <div className="flex flex-col gap-1.5">

@@ -140,6 +140,11 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
             />
             I took this photo or have permission to use it.
           </label>
+          {tried && photo && !rights && (
+            <p id="rights-needed" role="alert" className="-mt-2 pl-8 text-sm font-semibold text-rust-600">
+              Tick this to confirm you may use the photo.
+            </p>
+          )}
           <div className="flex flex-wrap items-end gap-3">
             <label className="flex w-24 flex-col gap-1 text-sm font-semibold">
               Quantity
