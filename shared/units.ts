@@ -17,6 +17,14 @@ export const mmToUnitDown = (mm: number, unit: LengthUnit) => {
 };
 export const unitToMm = (value: number, unit: LengthUnit) => (unit === 'in' ? inchesToMm(value) : value);
 
+/**
+ * A machine's bed as a person would give it: to a tenth of an inch or a whole millimetre
+ * ("35.4 × 23.6 in" for 900 × 600 mm, not 35.43 × 23.62).
+ */
+export const mmToBedUnit = (mm: number, unit: LengthUnit) => (unit === 'in' ? Math.round(mmToInches(mm) * 10) / 10 : Math.round(mm));
+export const formatBedSize = (widthMm: number, heightMm: number, unit: LengthUnit) =>
+  `${mmToBedUnit(widthMm, unit)} × ${mmToBedUnit(heightMm, unit)} ${unit}`;
+
 /** "8 × 10 in", "210 × 297 mm". */
 export function formatSize(widthMm: number, heightMm: number, unit: LengthUnit): string {
   return `${mmToUnit(widthMm, unit)} × ${mmToUnit(heightMm, unit)} ${unit}`;

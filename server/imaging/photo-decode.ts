@@ -39,8 +39,7 @@ export function sniffFormat(bytes: Uint8Array): PhotoFormat | undefined {
   return undefined;
 }
 
-const UNSUPPORTED =
-  'This file is not a photo we can use. Please send a JPEG, PNG or WebP photo (phone photos in HEIC are converted as you choose them).';
+const UNSUPPORTED = 'This file is not a photo we can use. Please send a JPEG, PNG or WebP photo.';
 const HEIC =
   'This photo is in HEIC format, which we cannot read here. Choose "Most Compatible" (JPEG) in your phone’s camera settings, or upload it from our page, which converts it for you.';
 

@@ -73,6 +73,20 @@ export const reviewItemSchema = z.object({
 export type ReviewItem = z.infer<typeof reviewItemSchema>;
 export const reviewQueueSchema = z.object({ items: z.array(reviewItemSchema) });
 
+/** An item waiting to be prepared: approved photos and proofs sent back for changes. */
+export const prepQueueItemSchema = z.object({
+  itemId: z.uuid(),
+  orderId: z.uuid(),
+  orderNumber: z.number().int(),
+  buyerName: z.string(),
+  label: z.string(),
+  stage: z.enum(['prep', 'changes_requested']),
+  since: z.string(),
+  thumbUrl: z.string(),
+});
+export type PrepQueueItem = z.infer<typeof prepQueueItemSchema>;
+export const prepQueueSchema = z.object({ items: z.array(prepQueueItemSchema) });
+
 /** The staff view of an order: the buyer's view plus who did what and the private details. */
 export const staffOrderSchema = orderViewSchema.extend({ paymentIntentId: z.string().nullable() });
 

@@ -75,6 +75,7 @@ export const router = createBrowserRouter([
       handle: { title: 'Prepare an item' },
     },
     { path: 'review', lazy: page(() => import('./routes/workspace/orders/review.tsx'), 'ReviewPage'), handle: { title: 'Photo review' } },
+    { path: 'prep', lazy: page(() => import('./routes/workspace/orders/prep.tsx'), 'PrepQueuePage'), handle: { title: 'Prep' } },
     {
       path: 'production',
       lazy: page(() => import('./routes/workspace/production/production.tsx'), 'ProductionPage'),

@@ -84,8 +84,15 @@ describe('an owner builds the catalog; staff can only look', () => {
       )
       .toBe(900);
 
+    // The studio has no recipe for walnut yet: it is said before the blank goes on sale.
     await page.getByRole('button', { name: 'Put on sale' }).click();
+    const warning = page.getByRole('dialog', { name: /Put Walnut memory block on sale without/ });
+    await expect.poll(() => warning.getByText(/a recipe for Walnut/).count()).toBe(1);
+    expect(await warning.getByText(/product photo/).count()).toBe(0);
+    await warning.getByRole('button', { name: 'Put on sale anyway' }).click();
     await expect.poll(() => page.getByText('Walnut memory block is on sale.').count()).toBe(1);
+    // One place to set the status on a blank's page: its buttons, not a field in the form too.
+    expect(await page.getByLabel('Status').count()).toBe(0);
     await shot(page, 'catalog-blank');
 
     await page.goto(`${b.baseUrl}/s/harbour-light`);
@@ -170,6 +177,30 @@ describe('an owner builds the catalog; staff can only look', () => {
       await expect.poll(() => page.getByRole('heading', { level: 1 }).textContent()).toBe(tab);
       expect(await page.getByRole('button', { name: /^(New|Edit|Delete)/ }).count()).toBe(0);
     }
+    expect(problems).toEqual([]);
+  });
+
+  it('asks a round blank for its diameter, once, and an oval for its two axes', async () => {
+    const { page, problems } = await signIn('maren@harbour-light.test');
+    await page.goto(`${b.baseUrl}/studio/harbour-light/catalog/blanks`);
+    await page.getByRole('button', { name: 'New blank' }).click();
+    const dialog = page.getByRole('dialog');
+    await dialog.getByLabel('Name').fill('Round walnut coaster');
+    await dialog.getByLabel('Material').selectOption({ label: 'Walnut' });
+    await dialog.getByLabel('Shape').selectOption({ label: 'Circle' });
+    await dialog.getByRole('button', { name: 'Create blank' }).click();
+    await page.waitForURL(/\/catalog\/blanks\/[0-9a-f-]{36}$/);
+    await page.getByRole('button', { name: 'Add size' }).click();
+    expect(await dialog.getByLabel('Blank diameter').count()).toBe(1);
+    expect(await dialog.getByLabel('Blank height').count()).toBe(0);
+    await dialog.getByLabel('Label').fill('4 in round');
+    await dialog.getByLabel('Blank diameter').fill('4');
+    // A 2.8 in square inside a 4 in circle: its diagonal is 3.96 in, just inside (by hand).
+    await dialog.getByLabel('Engraving area width').fill('2.8');
+    await dialog.getByLabel('Engraving area height').fill('2.8');
+    await dialog.getByLabel('Price').fill('24');
+    await dialog.getByRole('button', { name: 'Save size' }).click();
+    await expect.poll(() => page.getByRole('cell', { name: '4 in round', exact: true }).count()).toBe(1);
     expect(problems).toEqual([]);
   });
 });

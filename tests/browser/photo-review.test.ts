@@ -174,10 +174,16 @@ describe('photo review: asking the buyer for a better photo', () => {
     await signInOnPage(staff.page, b.baseUrl, 'tobias@harbour-light.test', DEMO_PASSWORD, `${b.baseUrl}/studio/harbour-light`);
     await staff.page.goto(`${b.baseUrl}/studio/harbour-light/review`);
     await staff.page.getByRole('button', { name: 'Approve photo' }).click();
-    await expect.poll(() => staff.page.getByText(`Photo approved: order ${orderNumber} moves to prep.`).count()).toBe(1);
-    await staff.page.getByRole('navigation', { name: 'Workspace' }).getByRole('link', { name: 'Orders' }).click();
-    await staff.page.getByRole('link', { name: String(orderNumber) }).click();
-    await staff.page.getByRole('link', { name: 'Prepare this item' }).click();
+    await expect.poll(() => staff.page.getByText(`Photo approved: order ${orderNumber} waits in Prep.`).count()).toBe(1);
+    // The last photo in review approved, staff land in the prep queue, where it waits.
+    await staff.page.waitForURL(`${b.baseUrl}/studio/harbour-light/prep`);
+    const queue = staff.page.getByRole('list', { name: 'Waiting for prep' });
+    await expect.poll(() => queue.getByRole('link', { name: new RegExp(`Order ${orderNumber}`) }).count()).toBe(1);
+    expect(
+      await staff.page.getByRole('navigation', { name: 'Workspace' }).getByRole('link', { name: 'Prep' }).getAttribute('aria-current'),
+    ).toBe('page');
+    await queue.getByRole('link', { name: new RegExp(`Order ${orderNumber}`) }).click();
+    await staff.page.waitForURL(/\/studio\/harbour-light\/items\//);
     // The recipe's settings to start from: 360 lines per inch, as a negative on painted glass.
     await expect.poll(() => staff.page.getByLabel('Line density').inputValue()).toBe('360');
     expect(await staff.page.getByLabel('Negative (the burn is lighter)').isChecked()).toBe(true);
@@ -223,6 +229,9 @@ describe('photo review: asking the buyer for a better photo', () => {
     await buyer.page.waitForTimeout(500);
     await shot(buyer.page, 'proof');
     await buyer.page.getByRole('button', { name: 'Approve and engrave' }).click();
+    // One click is not enough for something that cannot be undone: it asks once more.
+    expect(await buyer.page.getByText('The studio will engrave exactly what the proof shows. Go ahead?').count()).toBe(1);
+    await buyer.page.getByRole('button', { name: 'Yes, engrave it as shown' }).click();
     await expect.poll(() => buyer.page.getByText('Harbour Light Engraving will engrave it as shown.').count()).toBe(1);
     await staff.page.reload();
     await expect.poll(() => staff.page.getByText('Approved for engraving', { exact: true }).count()).toBe(1);

@@ -138,6 +138,26 @@ describe('a buyer orders a glass portrait and pays', () => {
     expect(problems).toEqual([]);
   });
 
+  it('warns when the photo leaves part of the area empty, and keeps the design across a reload', async () => {
+    const { page, problems } = await b.newPage();
+    await openDesigner(page);
+    await page.getByLabel('Choose your photo').setInputFiles({ name: 'astronaut.jpg', mimeType: 'image/jpeg', buffer: photo });
+    await expect.poll(() => page.locator('canvas[data-drawn="true"]').count(), { timeout: 15_000 }).toBe(1);
+    const empty = page.getByText(/Part of the engraving area is left empty/);
+    expect(await empty.count()).toBe(0);
+    // The square photo shown whole in the 7.5 × 9.5 in portrait area leaves bands above and below.
+    await page.getByRole('button', { name: 'Show it all' }).click();
+    await expect.poll(() => empty.count()).toBe(1);
+    await page.reload();
+    await expect.poll(() => page.locator('canvas[data-drawn="true"]').count(), { timeout: 15_000 }).toBe(1);
+    expect(await page.getByRole('button', { name: 'Show it all' }).getAttribute('aria-pressed')).toBe('true');
+    expect(await page.getByRole('radio', { name: /8 × 10 in/ }).isChecked()).toBe(true);
+    await expect.poll(() => empty.count()).toBe(1);
+    await page.getByRole('button', { name: 'Fill the area' }).click();
+    await expect.poll(() => empty.count()).toBe(0);
+    expect(problems).toEqual([]);
+  });
+
   it('says a 320 × 240 photo is too low and suggests what to do', async () => {
     const { page, problems } = await b.newPage();
     await openDesigner(page);

@@ -146,6 +146,32 @@ describe('audit log', () => {
     expect(entry!.summary).not.toContain('Line density');
   });
 
+  it('records a blank added and put on sale, and nothing for a save that keeps its status', async () => {
+    const { materials } = (await owner.get(`${work}/catalog/materials`).expect(200)).body as {
+      materials: Array<{ id: string; name: string }>;
+    };
+    const slate = materials.find((m) => m.name.includes('slate')) ?? materials[0]!;
+    const input = { name: 'Slate heart', description: '', materialId: slate.id, shape: 'oval', status: 'draft', sortOrder: 9 };
+    const created = (await owner.post(`${work}/catalog/blanks`).send(input).expect(201)).body as { id: string };
+    await owner
+      .put(`${work}/catalog/blanks/${created.id}`)
+      .send({ ...input, status: 'active' })
+      .expect(200);
+    const before = await lines();
+    await owner
+      .put(`${work}/catalog/blanks/${created.id}`)
+      .send({ ...input, status: 'active', description: 'New words' })
+      .expect(200);
+    expect(await lines()).toBe(before);
+    const [onSale, added] = await newest('?group=blanks');
+    expect(added).toMatchObject({
+      action: 'blank.created',
+      subject: 'Blank: Slate heart',
+      summary: `New blank of ${slate.name}, a draft.`,
+    });
+    expect(onSale).toMatchObject({ action: 'blank.status_changed', summary: 'From a draft to on sale.' });
+  });
+
   it('records a member opening a buyer’s original photo, once per hour per member and photo', async () => {
     const photo = await uploadBuyerPhoto(t, 'harbour-light', 1200, 1600);
     const orderId = await placePaidOrder(t, 'harbour-light', [{ blankId: glass.id, sizeId: glass.sizes[0]!.id, photo }], {

@@ -63,6 +63,8 @@ describe('photo review', () => {
   it('asks the buyer for a new photo with the reason; the buyer’s replacement puts the item back in review', async () => {
     const orderId = await paidOrder('nell@buyers.test');
     const item = (await staff.get(`${work}/review-queue`).expect(200)).body.items.find((i: { orderId: string }) => i.orderId === orderId);
+    // As if the buyer had said "engrave it soft anyway" about the first photo.
+    await t.orm.em.fork().nativeUpdate(OrderItem, { id: item.itemId }, { lowResolutionConfirmed: true }, { filters: false });
     await staff.post(`${work}/items/${item.itemId}/ask-new-photo`).send({ reason: 'sideways' }).expect(400);
     await staff
       .post(`${work}/items/${item.itemId}/ask-new-photo`)
@@ -96,6 +98,8 @@ describe('photo review', () => {
     await request(t.app).get(`${store}/replacements/${token}`).expect(404);
     const back = (await staff.get(`${work}/review-queue`).expect(200)).body.items.find((i: { itemId: string }) => i.itemId === item.itemId);
     expect(back).toMatchObject({ replacements: 1, effectivePpi: 387, photo: { id: better.id } }); // min(1744.6 / 4.5, 2520 / 6.5): the window's own width
+    // A good new photo: the old confirmation of a soft engraving no longer stands.
+    expect(back.lowResolutionConfirmed).toBe(false);
     const order = (await staff.get(`${work}/orders/${orderId}`).expect(200)).body;
     expect(order.events.map((e: { text: string }) => e.text).join('\n')).toMatch(
       /New photo asked for by Tobias Renn: blurred or out of focus[\s\S]*The buyer sent a new photo/,

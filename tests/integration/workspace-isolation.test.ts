@@ -265,14 +265,19 @@ describe('workspace isolation matrix', () => {
             )
           ).id;
         }
-        const blank = await catalog.createBlank(fork, studio, {
-          name: 'B',
-          description: '',
-          materialId: (await material()).id,
-          shape: 'oval',
-          status: 'draft',
-          sortOrder: 0,
-        });
+        const blank = await catalog.createBlank(
+          fork,
+          studio,
+          {
+            name: 'B',
+            description: '',
+            materialId: (await material()).id,
+            shape: 'oval',
+            status: 'draft',
+            sortOrder: 0,
+          },
+          actor,
+        );
         if (kind === 'blank') return blank.id;
         if (kind === 'photo') return (await catalog.addPhoto(fork, t.storage, studio, blank.id, await fixtures.upload('blank-photos'))).id;
         return (

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatSize, mmToUnit, unitToMm } from '#shared/units.ts';
+import { formatBedSize, formatSize, mmToUnit, unitToMm } from '#shared/units.ts';
 
 // 1 in = 25.4 mm exactly: the International Yard and Pound Agreement (1959).
 describe('lengths in the studio’s unit', () => {
@@ -27,5 +27,11 @@ describe('lengths in the studio’s unit', () => {
 
   it('survives the round trip a form makes: shown in inches, stored in mm, shown again', () => {
     for (const inches of [4, 5.25, 7.5, 11.99]) expect(mmToUnit(unitToMm(inches, 'in'), 'in')).toBe(inches);
+  });
+
+  it('gives a machine bed as a person would type it (by hand: 900 mm = 35.43 in, 600 mm = 23.62 in)', () => {
+    expect(formatBedSize(900, 600, 'in')).toBe('35.4 × 23.6 in');
+    expect(formatBedSize(600, 400, 'mm')).toBe('600 × 400 mm');
+    expect(formatBedSize(508, 304.8, 'in')).toBe('20 × 12 in');
   });
 });

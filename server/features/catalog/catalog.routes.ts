@@ -191,7 +191,9 @@ export function catalogRoutes({ storage }: { storage: Storage }): WorkspaceRoute
       handler: async (ctx, req, res) =>
         void res
           .status(201)
-          .json(blankView(await catalog.createBlank(ctx.em, ctx.studio, blankInputSchema.parse(req.body)), workspacePhotoUrl(ctx))),
+          .json(
+            blankView(await catalog.createBlank(ctx.em, ctx.studio, blankInputSchema.parse(req.body), ctx.user), workspacePhotoUrl(ctx)),
+          ),
     },
     {
       method: 'put',
@@ -201,7 +203,7 @@ export function catalogRoutes({ storage }: { storage: Storage }): WorkspaceRoute
       handler: async (ctx, req, res) =>
         void res.json(
           blankView(
-            await catalog.updateBlank(ctx.em, ctx.studio, id(req, 'blankId'), blankInputSchema.parse(req.body)),
+            await catalog.updateBlank(ctx.em, ctx.studio, id(req, 'blankId'), blankInputSchema.parse(req.body), ctx.user),
             workspacePhotoUrl(ctx),
           ),
         ),

@@ -184,20 +184,39 @@ export async function getBlank(em: EntityManager, studio: Studio, id: string): P
   return blank;
 }
 
-export async function createBlank(em: EntityManager, studio: Studio, input: BlankInput): Promise<Blank> {
+const STATUS_WORDS: Record<Blank['status'], string> = { draft: 'a draft', active: 'on sale', archived: 'archived' };
+
+export async function createBlank(em: EntityManager, studio: Studio, input: BlankInput, actor: User): Promise<Blank> {
   const material = await findIn(em, Material, studio, input.materialId, 'material');
   const { materialId: _m, ...values } = input;
   const blank = em.create(Blank, { ...values, material, studio });
+  recordAudit(em, studio, actor, {
+    action: 'blank.created',
+    subject: `Blank: ${blank.name}`,
+    summary: `New blank of ${material.name}, ${STATUS_WORDS[blank.status]}.`,
+    link: blankLink(studio, blank),
+    details: { blankId: blank.id, status: blank.status, materialId: material.id },
+  });
   await em.flush();
   return getBlank(em, studio, blank.id);
 }
 
 /** Blanks are never deleted: archiving keeps them for the orders that name them. */
-export async function updateBlank(em: EntityManager, studio: Studio, id: string, input: BlankInput): Promise<Blank> {
+export async function updateBlank(em: EntityManager, studio: Studio, id: string, input: BlankInput, actor: User): Promise<Blank> {
   const blank = await findIn(em, Blank, studio, id, 'blank');
   const material = await findIn(em, Material, studio, input.materialId, 'material');
   const { materialId: _m, ...values } = input;
+  const before = blank.status;
   em.assign(blank, { ...values, material });
+  // Going on sale or coming off it changes what buyers can order: the audit log keeps it.
+  if (blank.status !== before)
+    recordAudit(em, studio, actor, {
+      action: 'blank.status_changed',
+      subject: `Blank: ${blank.name}`,
+      summary: `From ${STATUS_WORDS[before]} to ${STATUS_WORDS[blank.status]}.`,
+      link: blankLink(studio, blank),
+      details: { blankId: blank.id, from: before, to: blank.status },
+    });
   await em.flush();
   return getBlank(em, studio, blank.id);
 }

@@ -3,7 +3,7 @@ import type { Storage } from '#server/adapters/storage.ts';
 import type { Env } from '#server/env.ts';
 import { findItem } from '#server/features/orders/order-stages.service.ts';
 import type { WorkspaceRoute } from '#server/middleware/workspace-routes.ts';
-import { approveWithoutProof, reopenPrep, savePrep, sendProof } from './prep.service.ts';
+import { approveWithoutProof, prepQueue, reopenPrep, savePrep, sendProof } from './prep.service.ts';
 import { regionPreview } from './region-preview.ts';
 
 const SAMPLE_PREP: PrepSettings = {
@@ -37,6 +37,12 @@ const SAMPLE_PREP: PrepSettings = {
 /** Preparing an item: its settings, the 1:1 region, the proof and approval without one. */
 export function prepRoutes({ env, storage }: { env: Env; storage: Storage }): WorkspaceRoute[] {
   return [
+    {
+      method: 'get',
+      path: '/prep-queue',
+      permission: 'order:read',
+      handler: async (ctx, _req, res) => void res.json({ items: await prepQueue(ctx.em, ctx.studio) }),
+    },
     {
       method: 'put',
       path: '/items/:itemId/prep',

@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { absolute, storefrontPaths } from '#shared/routes.ts';
+import { absolute, assetPaths, storefrontPaths } from '#shared/routes.ts';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { assertItemAction } from '#shared/orders/stages.ts';
 import { recipePrep } from '#shared/orders/prep-pipeline.ts';
@@ -7,6 +7,7 @@ import type { Storage } from '#server/adapters/storage.ts';
 import { renderProofImage } from './proof-image.ts';
 import { AppError } from '#shared/errors.ts';
 import { prepSettingsSchema, type PrepSettings, type ProofDecision } from '#shared/schemas/prep.ts';
+import type { PrepQueueItem } from '#shared/schemas/workspace-orders.ts';
 import { hashToken, newLinkToken } from '#server/lib/tokens.ts';
 import { displayName, type User } from '#server/features/accounts/user.entity.ts';
 import { fromStudio, queueEmail } from '#server/features/outbox/outbox.service.ts';
@@ -126,4 +127,23 @@ export async function reopenPrep(em: EntityManager, studio: Studio, itemId: stri
   moveItem(em, item, 'reopenPrep', displayName(user), `Back to prep, by ${displayName(user)}.`, 'prep_reopened');
   await em.flush();
   return item;
+}
+
+/** Items waiting for prep, the longest waiting first: approved photos, and proofs sent back. */
+export async function prepQueue(em: EntityManager, studio: Studio): Promise<PrepQueueItem[]> {
+  const items = await em.find(
+    OrderItem,
+    { studio, stage: { $in: ['prep', 'changes_requested'] } },
+    { populate: ['order', 'photo'], orderBy: { updatedAt: 'asc' } },
+  );
+  return items.map((item) => ({
+    itemId: item.id,
+    orderId: item.order.id,
+    orderNumber: item.order.number,
+    buyerName: item.order.buyerName,
+    label: `${item.quantity} × ${item.snapshot.blank.name}, ${item.snapshot.size.label}`,
+    stage: item.stage as PrepQueueItem['stage'],
+    since: item.updatedAt.toISOString(),
+    thumbUrl: assetPaths.buyerPhotoThumb(studio.slug, item.photo.id),
+  }));
 }

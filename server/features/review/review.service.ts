@@ -134,6 +134,8 @@ export async function submitReplacement(
     effectivePpi: Math.floor(ppi),
     replacementTokenHash: null,
     replacements: item.replacements + 1,
+    // The buyer's "engrave it soft anyway" was about the old photo: a sharp enough new one clears it.
+    lowResolutionConfirmed: item.lowResolutionConfirmed && verdictFor(ppi) === 'too-low',
   });
   moveItem(
     em,

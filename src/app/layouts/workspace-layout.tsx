@@ -34,6 +34,7 @@ function WorkspaceFrame() {
     { to: `/studio/${studioSlug}`, label: 'Overview', end: true, show: true },
     { to: `/studio/${studioSlug}/orders`, label: 'Orders', end: false, show: can(workspace.data?.role, 'order:read') },
     { to: `/studio/${studioSlug}/review`, label: 'Photo review', end: false, show: can(workspace.data?.role, 'order:review') },
+    { to: `/studio/${studioSlug}/prep`, label: 'Prep', end: false, show: can(workspace.data?.role, 'order:read') },
     { to: `/studio/${studioSlug}/production`, label: 'Production', end: false, show: can(workspace.data?.role, 'order:read') },
     { to: `/studio/${studioSlug}/catalog`, label: 'Catalog', end: false, show: can(workspace.data?.role, 'catalog:read') },
     { to: `/studio/${studioSlug}/team`, label: 'Team', end: false, show: can(workspace.data?.role, 'team:manage') },

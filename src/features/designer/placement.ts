@@ -77,3 +77,19 @@ export const straightening = (rotation: number) => rotation - quarterTurnsOf(rot
 /** A quarter turn more or less, keeping the straightening, within −180…180. */
 export const turned = (rotation: number, by: 90 | -90) => ((((rotation + by + 180) % 360) + 360) % 360) - 180;
 export const formatDegrees = (degrees: number) => `${degrees > 0 ? '+' : degrees < 0 ? '−' : ''}${Math.abs(degrees).toFixed(1)}°`;
+
+/**
+ * Whether the window reaches past the photo, leaving part of the engraving area blank: the
+ * window's extent on the photo, turned by its rotation, against the photo's own edges (half a
+ * pixel of slack for rounding).
+ */
+export function leavesAreaEmpty(photo: { width: number; height: number }, placement: Placement): boolean {
+  const { left, top, width, height } = placement.crop;
+  const angle = (placement.rotation * Math.PI) / 180;
+  const [cos, sin] = [Math.abs(Math.cos(angle)), Math.abs(Math.sin(angle))];
+  const halfX = (width / 2) * cos + (height / 2) * sin;
+  const halfY = (width / 2) * sin + (height / 2) * cos;
+  const [cx, cy] = [left + width / 2, top + height / 2];
+  const slack = 0.5;
+  return cx - halfX < -slack || cy - halfY < -slack || cx + halfX > photo.width + slack || cy + halfY > photo.height + slack;
+}

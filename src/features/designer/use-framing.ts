@@ -1,22 +1,34 @@
-import { useEffect, useRef, useState, type KeyboardEvent, type PointerEvent, type WheelEvent } from 'react';
-import type { BuyerPhotoView } from '#shared/schemas/photos.ts';
+import { useEffect, useRef, type KeyboardEvent, type PointerEvent, type WheelEvent } from 'react';
+import { buyerPhotoSchema, type BuyerPhotoView } from '#shared/schemas/photos.ts';
+import { useSessionState } from '#src/lib/use-session-state.ts';
 import { useSteadyValue } from '#src/lib/use-steady-value.ts';
 import { clampFraming, startFraming, toPlacement, type Framing } from './placement.ts';
+
+const isFraming = (v: unknown): v is Framing =>
+  typeof v === 'object' &&
+  v !== null &&
+  ['centreX', 'centreY', 'zoom', 'rotation'].every((k) => typeof (v as Record<string, unknown>)[k] === 'number') &&
+  ['fill', 'fit'].includes((v as Framing).mode);
 
 /**
  * The buyer's photo and how it sits in an area of this aspect (width / height): choosing a photo
  * starts a filling framing; every change goes through `frame`, which keeps the window on the
  * photo; `placement` is what checkout sends and the burn uses.
  */
-export function useFraming(aspect: number) {
-  const [photo, setPhoto] = useState<BuyerPhotoView>();
-  const [framing, setFraming] = useState<Framing>();
+export function useFraming(aspect: number, keepAs: string) {
+  // Kept for the tab: a reload finds the photo (already stored) where the buyer put it.
+  const [photo, setPhoto] = useSessionState<BuyerPhotoView | undefined>(
+    `${keepAs}:photo`,
+    undefined,
+    (v) => buyerPhotoSchema.safeParse(v).success,
+  );
+  const [framing, setFraming] = useSessionState<Framing | undefined>(`${keepAs}:framing`, undefined, isFraming);
   const placement = useSteadyValue(photo && framing ? toPlacement(photo, aspect, framing) : undefined);
 
   // A new aspect (another size or turn) can leave the window outside the photo: pull it back in.
   useEffect(() => {
     if (photo) setFraming((f) => f && clampFraming(photo, aspect, f));
-  }, [photo, aspect]);
+  }, [photo, aspect, setFraming]);
 
   const choose = (next: BuyerPhotoView) => {
     setPhoto(next);

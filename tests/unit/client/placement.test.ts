@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import {
   clampFraming,
   formatDegrees,
+  leavesAreaEmpty,
   MAX_ZOOM,
   quarterTurnsOf,
   startFraming,
@@ -79,5 +80,16 @@ describe('placement maths (worked by hand)', () => {
     expect(turned(-177.5, -90)).toBe(92.5);
     expect(turned(0, -90)).toBe(-90);
     expect([formatDegrees(2.5), formatDegrees(-10), formatDegrees(0)]).toEqual(['+2.5°', '−10.0°', '0.0°']);
+  });
+
+  it('tells when the placed photo leaves part of the area empty (worked by hand)', () => {
+    // Filling a square area: the 3000 × 3000 window sits inside the 4000 × 3000 photo.
+    expect(leavesAreaEmpty(photo, toPlacement(photo, 1, framing()))).toBe(false);
+    // Showing it all: a 4000 × 4000 window, 500 px of empty area above and below.
+    expect(leavesAreaEmpty(photo, toPlacement(photo, 1, framing({ mode: 'fit' })))).toBe(true);
+    // Straightened by 10°, the filling window's corners swing out: (1500 cos 10° + 1500 sin 10°) = 1738 > 1500.
+    expect(leavesAreaEmpty(photo, toPlacement(photo, 1, framing({ rotation: 10 })))).toBe(true);
+    // Zoomed in 1.5×, a 2000 px window turned 10° reaches 1158 px from the centre: inside.
+    expect(leavesAreaEmpty(photo, toPlacement(photo, 1, framing({ rotation: 10, zoom: 1.5 })))).toBe(false);
   });
 });

@@ -12,6 +12,7 @@ export function ProofPage() {
   const { studioSlug = '', token = '' } = useParams();
   const proof = useProof(studioSlug, token);
   const [message, setMessage] = useState('');
+  const [confirming, setConfirming] = useState(false);
   const answer = useAnswerProof(studioSlug, token);
   return (
     <WithStorefront>
@@ -56,9 +57,28 @@ export function ProofPage() {
                 <CardTitle>Is it right?</CardTitle>
                 <div className="flex flex-col gap-4">
                   {answer.error && <Notice tone="error">{answer.error.message}</Notice>}
-                  <Button size="lg" busy={answer.isPending} onClick={() => answer.mutate({ decision: 'approve' })}>
-                    Approve and engrave
-                  </Button>
+                  {/* Engraving cannot be undone: approving asks once more. */}
+                  {confirming ? (
+                    <div
+                      role="group"
+                      aria-label="Confirm the approval"
+                      className="flex flex-col gap-3 rounded-lg border border-accent bg-birch-50 p-4"
+                    >
+                      <p className="text-sm font-semibold">The studio will engrave exactly what the proof shows. Go ahead?</p>
+                      <div className="flex flex-wrap gap-3">
+                        <Button size="lg" busy={answer.isPending} onClick={() => answer.mutate({ decision: 'approve' })}>
+                          Yes, engrave it as shown
+                        </Button>
+                        <Button size="lg" variant="secondary" onClick={() => setConfirming(false)}>
+                          Not yet
+                        </Button>
+                      </div>
+                    </div>
+                  ) : (
+                    <Button size="lg" onClick={() => setConfirming(true)}>
+                      Approve and engrave
+                    </Button>
+                  )}
                   <TextAreaField
                     label="Or tell us what to change"
                     value={message}

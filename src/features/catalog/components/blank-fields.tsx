@@ -18,7 +18,8 @@ export const blankDefaults = (materials: MaterialView[]): BlankFormValues => ({
 });
 
 /** The fields of a blank, shared by the new-blank dialog and the blank's own page. */
-export function BlankFields({ form, materials }: { form: BlankForm; materials: MaterialView[] }) {
+/** The blank's fields; a blank's own page sets its status with its buttons instead (`withStatus` false). */
+export function BlankFields({ form, materials, withStatus = true }: { form: BlankForm; materials: MaterialView[]; withStatus?: boolean }) {
   const { register, formState } = form;
   const errors = formState.errors;
   return (
@@ -39,13 +40,15 @@ export function BlankFields({ form, materials }: { form: BlankForm; materials: M
         error={errors.materialId?.message}
       />
       <SelectField label="Shape" options={shapeOptions} {...register('shape')} error={errors.shape?.message} />
-      <SelectField
-        label="Status"
-        options={statusOptions}
-        {...register('status')}
-        error={errors.status?.message}
-        hint="Only blanks on sale appear on the storefront."
-      />
+      {withStatus && (
+        <SelectField
+          label="Status"
+          options={statusOptions}
+          {...register('status')}
+          error={errors.status?.message}
+          hint="Only blanks on sale appear on the storefront."
+        />
+      )}
       <TextField
         label="Position on the storefront"
         type="number"

@@ -1,6 +1,6 @@
 import { useForm } from 'react-hook-form';
 import { machineInputSchema, type MachineInput, type MachineView } from '#shared/schemas/catalog.ts';
-import { mmToUnit, unitToMm, type LengthUnit } from '#shared/units.ts';
+import { mmToBedUnit, type LengthUnit, unitToMm } from '#shared/units.ts';
 import { Dialog } from '#src/components/ui/dialog.tsx';
 import { SelectField, TextAreaField } from '#src/components/ui/field.tsx';
 import { TextField } from '#src/components/ui/text-field.tsx';
@@ -49,8 +49,8 @@ export function MachineDialog({
       powerWatts: stored.powerWatts,
       speedUnit: stored.speedUnit,
       notes: stored.notes,
-      bedWidthMm: mmToUnit(stored.bedWidthMm, units),
-      bedHeightMm: mmToUnit(stored.bedHeightMm, units),
+      bedWidthMm: mmToBedUnit(stored.bedWidthMm, units),
+      bedHeightMm: mmToBedUnit(stored.bedHeightMm, units),
     },
   });
   const { register, formState } = form;

@@ -81,6 +81,8 @@ export function RecipeDialog({
       if (!chosen || recipe) return;
       setValue('tone', chosen.defaultTone);
       setValue('linesPerInch', chosen.linesPerInchMax);
+      // Speed and power belong to one material: another one starts them again, not from the last.
+      for (const field of ['speed', 'powerMinPercent', 'powerMaxPercent'] as const) setValue(field, Number.NaN);
     },
   });
 
@@ -144,7 +146,13 @@ export function RecipeDialog({
           suffix="lines per inch"
           {...register('linesPerInch', { valueAsNumber: true })}
           error={errors.linesPerInch?.message}
-          hint={material ? `${material.name} usually takes ${material.linesPerInchMin}–${material.linesPerInchMax}.` : '100 to 1200.'}
+          hint={
+            forbidden
+              ? undefined
+              : material
+                ? `${material.name} usually takes ${material.linesPerInchMin}–${material.linesPerInchMax}.`
+                : '100 to 1200.'
+          }
         />
         <SelectField
           label="Halftone method"

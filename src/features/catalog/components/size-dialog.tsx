@@ -53,7 +53,8 @@ export function SizeDialog({
     resolver: convertingResolver(sizeInputSchema, (v: FormValues) => ({
       label: v.label,
       outerWidthMm: unitToMm(v.outerWidthMm, units),
-      outerHeightMm: unitToMm(v.outerHeightMm, units),
+      // A round blank has one measure, its diameter, asked once.
+      outerHeightMm: unitToMm(shape === 'circle' ? v.outerWidthMm : v.outerHeightMm, units),
       areaWidthMm: unitToMm(v.areaWidthMm, units),
       areaHeightMm: unitToMm(v.areaHeightMm, units),
       orientation: v.orientation,
@@ -92,8 +93,11 @@ export function SizeDialog({
   const length = { type: 'number', inputMode: 'decimal', step: 'any', suffix: units } as const;
   // The area checked against the blank's outline as it is typed (the server checks it again):
   // when it reaches past the edge, the largest area of its proportions is offered, rounded down.
-  const typed = watch(['outerWidthMm', 'outerHeightMm', 'areaWidthMm', 'areaHeightMm']).map((v) => unitToMm(v, units));
-  const fit = typed.every((v) => Number.isFinite(v) && v > 0)
+  const [outerW, outerH, areaW, areaH] = watch(['outerWidthMm', 'outerHeightMm', 'areaWidthMm', 'areaHeightMm']).map((v) =>
+    unitToMm(v, units),
+  );
+  const typed = [outerW, shape === 'circle' ? outerW : outerH, areaW, areaH];
+  const fit = typed.every((v) => v !== undefined && Number.isFinite(v) && v > 0)
     ? sizeFit(shape, { outerWidthMm: typed[0]!, outerHeightMm: typed[1]!, areaWidthMm: typed[2]!, areaHeightMm: typed[3]! })
     : undefined;
   const down = (mm: number) => mmToUnitDown(mm, units);
@@ -136,18 +140,29 @@ export function SizeDialog({
           hint={units === 'in' ? 'Such as 8 × 10 in.' : 'Such as 200 × 250 mm.'}
         />
         <SelectField label="Orientation" options={orientationOptions} {...register('orientation')} error={errors.orientation?.message} />
-        <TextField
-          label="Blank width"
-          {...length}
-          {...register('outerWidthMm', { valueAsNumber: true })}
-          error={errors.outerWidthMm?.message}
-        />
-        <TextField
-          label="Blank height"
-          {...length}
-          {...register('outerHeightMm', { valueAsNumber: true })}
-          error={errors.outerHeightMm?.message}
-        />
+        {shape === 'circle' ? (
+          <TextField
+            label="Blank diameter"
+            {...length}
+            {...register('outerWidthMm', { valueAsNumber: true })}
+            error={errors.outerWidthMm?.message ?? errors.outerHeightMm?.message}
+          />
+        ) : (
+          <>
+            <TextField
+              label={shape === 'oval' ? 'Blank width (the oval across)' : 'Blank width'}
+              {...length}
+              {...register('outerWidthMm', { valueAsNumber: true })}
+              error={errors.outerWidthMm?.message}
+            />
+            <TextField
+              label={shape === 'oval' ? 'Blank height (the oval top to bottom)' : 'Blank height'}
+              {...length}
+              {...register('outerHeightMm', { valueAsNumber: true })}
+              error={errors.outerHeightMm?.message}
+            />
+          </>
+        )}
         <TextField
           label="Engraving area width"
           {...length}

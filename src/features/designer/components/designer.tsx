@@ -11,6 +11,7 @@ import { Button } from '#src/components/ui/button.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
 import { useToast } from '#src/components/ui/toast.tsx';
 import { useCart } from '#src/features/cart/index.ts';
+import { useSessionState } from '#src/lib/use-session-state.ts';
 import { useFraming } from '../use-framing.ts';
 import { DesignerStage, type View } from './designer-stage.tsx';
 import { PhotoStep } from './photo-step.tsx';
@@ -30,9 +31,11 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
   const toast = useToast();
   const navigate = useNavigate();
   const available = blank.sizes.filter((s) => s.stock !== 'sold-out');
-  const [sizeId, setSizeId] = useState(available[0]?.id ?? blank.sizes[0]?.id ?? '');
+  // The design so far is kept for the tab, so a reload (or a slip of the thumb) loses nothing.
+  const keepAs = `etchwell-design:${studio.slug}:${blank.id}`;
+  const [sizeId, setSizeId] = useSessionState(`${keepAs}:size`, available[0]?.id ?? blank.sizes[0]?.id ?? '');
   const size = blank.sizes.find((s) => s.id === sizeId) ?? blank.sizes[0]!;
-  const [orientation, setOrientation] = useState<Orientation>(naturalOrientation(size));
+  const [orientation, setOrientation] = useSessionState<Orientation>(`${keepAs}:orientation`, naturalOrientation(size));
   const [view, setView] = useState<View>('burn');
   const [inscription, setInscription] = useState<InscriptionDraft>({ on: false, lines: [''], font: 'rounded', size: 0.07 });
   const [rights, setRights] = useState(false);
@@ -41,7 +44,7 @@ export function Designer({ studio, blank }: { studio: PublicStudio; blank: Blank
   const [tried, setTried] = useState(false);
 
   const area = orientedArea(size, orientation);
-  const framing = useFraming(area.widthMm / area.heightMm);
+  const framing = useFraming(area.widthMm / area.heightMm, keepAs);
   const { photo, placement } = framing;
   function choosePhoto(next: BuyerPhotoView) {
     framing.choose(next);

@@ -1,9 +1,19 @@
 import { Button } from '#src/components/ui/button.tsx';
-import { formatDegrees, MAX_STRAIGHTEN, MAX_ZOOM, quarterTurnsOf, startFraming, straightening, turned } from '../placement.ts';
+import { Notice } from '#src/components/ui/notice.tsx';
+import {
+  formatDegrees,
+  leavesAreaEmpty,
+  MAX_STRAIGHTEN,
+  MAX_ZOOM,
+  quarterTurnsOf,
+  startFraming,
+  straightening,
+  turned,
+} from '../placement.ts';
 import type { FramingState } from '../use-framing.ts';
 
 /** Step 3: zoom, fine straightening apart from quarter turns, mirror, fill or show it all; waits for a photo. */
-export function PlacementStep({ framing: { photo, framing, frame } }: { framing: FramingState }) {
+export function PlacementStep({ framing: { photo, framing, frame, placement } }: { framing: FramingState }) {
   if (!photo || !framing)
     return (
       <fieldset disabled aria-describedby="placement-waits" className="flex flex-col gap-2 opacity-60">
@@ -76,6 +86,12 @@ export function PlacementStep({ framing: { photo, framing, frame } }: { framing:
           Show it all
         </Button>
       </div>
+      {placement && leavesAreaEmpty(photo, placement) && (
+        <Notice tone="caution">
+          Part of the engraving area is left empty: nothing burns there. Choose “Fill the area” or zoom in for the photo to reach every
+          edge.
+        </Notice>
+      )}
     </fieldset>
   );
 }

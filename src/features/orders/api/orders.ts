@@ -1,6 +1,7 @@
 import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import {
   orderListSchema,
+  prepQueueSchema,
   reviewQueueSchema,
   staffOrderSchema,
   type AskNewPhotoInput,
@@ -31,11 +32,17 @@ export const orderQueries = {
       queryKey: ['orders', slug, 'review'],
       queryFn: ({ signal }) => apiFetch(`${base(slug)}/review-queue`, { schema: reviewQueueSchema, signal }),
     }),
+  prep: (slug: string) =>
+    queryOptions({
+      queryKey: ['orders', slug, 'prep'],
+      queryFn: ({ signal }) => apiFetch(`${base(slug)}/prep-queue`, { schema: prepQueueSchema, signal }),
+    }),
 };
 
 export const useOrderList = (slug: string, query: OrderListQuery) => useQuery(orderQueries.list(slug, query));
 export const useStaffOrder = (slug: string, orderId: string) => useQuery(orderQueries.detail(slug, orderId));
 export const useReviewQueue = (slug: string) => useQuery(orderQueries.review(slug));
+export const usePrepQueue = (slug: string) => useQuery(orderQueries.prep(slug));
 
 /** A review answer leaves the queue at once; it comes back if the server refuses the move. */
 function useReviewMove<T extends { itemId: string }>(slug: string, run: (input: T) => Promise<unknown>) {

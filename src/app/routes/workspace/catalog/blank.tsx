@@ -21,7 +21,7 @@ import { Dialog } from '#src/components/ui/dialog.tsx';
 import { Notice } from '#src/components/ui/notice.tsx';
 import { useToast } from '#src/components/ui/toast.tsx';
 import { serverErrorOf, showServerError } from '#src/lib/form-errors.ts';
-import { useBlank, useMaterials, useRemoveSize, useUpdateBlank } from '#src/features/catalog/api/catalog.ts';
+import { useBlank, useMaterials, useRecipes, useRemoveSize, useUpdateBlank } from '#src/features/catalog/api/catalog.ts';
 import { BlankFields, type BlankFormValues } from '#src/features/catalog/components/blank-fields.tsx';
 import { RowActions, useConfirmedDelete } from '#src/features/catalog/components/row-actions.tsx';
 import { CatalogFrame, QueryState } from '#src/features/catalog/components/catalog-frame.tsx';
@@ -74,10 +74,21 @@ const toInput = (blank: BlankView, status: BlankStatus = blank.status): BlankInp
 /** Putting on sale, back to draft, archiving: shown at once, put back if the server refuses. */
 function StatusActions({ slug, blankId, blank }: Props & { blank: BlankView }) {
   const update = useUpdateBlank(slug, blankId);
+  const recipes = useRecipes(slug);
   const toast = useToast();
   const [archiving, setArchiving] = useState(false);
+  const [warning, setWarning] = useState(false);
+  // What a buyer or the laser would miss if it went on sale now.
+  const missing = [
+    blank.photos.length === 0 && 'a product photo: the storefront shows a plain tile instead',
+    recipes.data &&
+      !recipes.data.recipes.some((r) => r.material.id === blank.material.id) &&
+      `a recipe for ${blank.material.name}: orders would reach the laser without speed and power`,
+  ].filter(Boolean) as string[];
+  const putOnSale = () => (missing.length ? setWarning(true) : void change('active', `${blank.name} is on sale.`));
   const change = async (status: BlankStatus, message: string) => {
     setArchiving(false);
+    setWarning(false);
     try {
       await update.mutateAsync(toInput(blank, status));
       toast.show(message, 'success');
@@ -89,11 +100,7 @@ function StatusActions({ slug, blankId, blank }: Props & { blank: BlankView }) {
     <div className="flex items-center gap-2">
       <StatusPill status={blank.status} sizes={blank.sizes.length} />
       {blank.status !== 'active' && (
-        <Button
-          onClick={() => void change('active', `${blank.name} is on sale.`)}
-          disabled={blank.sizes.length === 0}
-          title={blank.sizes.length === 0 ? 'Add a size first' : undefined}
-        >
+        <Button onClick={putOnSale} disabled={blank.sizes.length === 0} title={blank.sizes.length === 0 ? 'Add a size first' : undefined}>
           Put on sale
         </Button>
       )}
@@ -107,6 +114,18 @@ function StatusActions({ slug, blankId, blank }: Props & { blank: BlankView }) {
           Archive
         </Button>
       )}
+      <Dialog
+        open={warning}
+        title={`Put ${blank.name} on sale without…`}
+        onClose={() => setWarning(false)}
+        confirm={{ label: 'Put on sale anyway', onConfirm: () => void change('active', `${blank.name} is on sale.`) }}
+      >
+        <ul className="list-disc pl-5">
+          {missing.map((m) => (
+            <li key={m}>{m}</li>
+          ))}
+        </ul>
+      </Dialog>
       <Dialog
         open={archiving}
         title={`Archive ${blank.name}?`}
@@ -178,7 +197,7 @@ function DetailsForm({
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
       {serverErrorOf(form) && <Notice tone="error">{serverErrorOf(form)}</Notice>}
       <fieldset disabled={!canEdit} className="contents">
-        <BlankFields form={form} materials={materials} />
+        <BlankFields form={form} materials={materials} withStatus={false} />
       </fieldset>
       {canEdit && (
         <Button type="submit" busy={form.formState.isSubmitting} className="self-start">

@@ -1,7 +1,7 @@
 import { useMemo, useState } from 'react';
 import { can } from '#shared/permissions.ts';
 import { LASER_KIND_LABELS, SPEED_UNIT_LABELS, type MachineView } from '#shared/schemas/catalog.ts';
-import { formatSize, type LengthUnit } from '#shared/units.ts';
+import { formatBedSize, type LengthUnit } from '#shared/units.ts';
 import { WithWorkspace } from '#src/app/layouts/workspace-layout.tsx';
 import { Button } from '#src/components/ui/button.tsx';
 import { DataTable, tableColumns, type DataColumn } from '#src/components/ui/data-table.tsx';
@@ -44,7 +44,7 @@ function Machines({ slug, units, canEdit }: { slug: string; units: LengthUnit; c
       col.accessor((k) => k.bedWidthMm * k.bedHeightMm, {
         id: 'bed',
         header: 'Bed',
-        cell: ({ row }) => formatSize(row.original.bedWidthMm, row.original.bedHeightMm, units),
+        cell: ({ row }) => formatBedSize(row.original.bedWidthMm, row.original.bedHeightMm, units),
       }),
       col.accessor('speedUnit', { header: 'Speed in', enableSorting: false, cell: ({ row }) => SPEED_UNIT_LABELS[row.original.speedUnit] }),
       ...(canEdit

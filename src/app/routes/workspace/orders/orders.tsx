@@ -57,7 +57,7 @@ function Orders({ slug }: { slug: string }) {
           onChange={(e) => set({ stage: (e.target.value || undefined) as OrderListQuery['stage'] })}
         />
         <SelectField
-          label="Payment"
+          label="Status"
           placeholder="Any"
           options={ORDER_STATUSES.map((s) => ({ value: s, label: ORDER_STATUS_LABELS[s] }))}
           value={filters.status ?? ''}
@@ -92,7 +92,7 @@ function Orders({ slug }: { slug: string }) {
               <TH>Placed</TH>
               <TH>Buyer</TH>
               <TH>Items</TH>
-              <TH>Payment</TH>
+              <TH>Status</TH>
               <TH className="text-right">Total</TH>
             </tr>
           </THead>

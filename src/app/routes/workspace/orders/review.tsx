@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { Link } from 'react-router-dom';
+import { Link, useNavigate } from 'react-router-dom';
 import { can } from '#shared/permissions.ts';
 import { REVIEW_REASONS, type ReviewItem, type ReviewReason } from '#shared/schemas/workspace-orders.ts';
 import { formatSize, type LengthUnit } from '#shared/units.ts';
@@ -42,7 +42,15 @@ function Review({ slug, units }: { slug: string; units: LengthUnit }) {
     <div className="flex flex-col gap-6">
       <h1 className="text-3xl font-extrabold">Photo review</h1>
       {queue.error && <Notice tone="error">{queue.error.message}</Notice>}
-      {queue.data && items.length === 0 && <Notice>No photos are waiting. Paid orders appear here, oldest first.</Notice>}
+      {queue.data && items.length === 0 && (
+        <Notice>
+          No photos are waiting. Paid orders appear here, oldest first; approved ones wait in{' '}
+          <Link to={`/studio/${slug}/prep`} className="font-semibold underline">
+            Prep
+          </Link>
+          .
+        </Notice>
+      )}
       {selected && (
         <div className="grid gap-6 lg:grid-cols-[16rem_minmax(0,1fr)]">
           <nav aria-label="Waiting photos">
@@ -69,14 +77,15 @@ function Review({ slug, units }: { slug: string; units: LengthUnit }) {
               ))}
             </ol>
           </nav>
-          <ReviewDetail key={selected.itemId} slug={slug} units={units} item={selected} />
+          <ReviewDetail key={selected.itemId} slug={slug} units={units} item={selected} last={items.length === 1} />
         </div>
       )}
     </div>
   );
 }
 
-function ReviewDetail({ slug, units, item }: { slug: string; units: LengthUnit; item: ReviewItem }) {
+function ReviewDetail({ slug, units, item, last }: { slug: string; units: LengthUnit; item: ReviewItem; last: boolean }) {
+  const navigate = useNavigate();
   const approve = useApprovePhoto(slug);
   const ask = useAskNewPhoto(slug);
   const toast = useToast();
@@ -156,7 +165,11 @@ function ReviewDetail({ slug, units, item }: { slug: string; units: LengthUnit; 
         <div className="mt-5 flex gap-2">
           <Button
             onClick={() =>
-              void run(() => approve.mutateAsync({ itemId: item.itemId }), `Photo approved: order ${item.orderNumber} moves to prep.`)
+              void run(async () => {
+                await approve.mutateAsync({ itemId: item.itemId });
+                // The last photo reviewed: the work goes on in Prep.
+                if (last) navigate(`/studio/${slug}/prep`);
+              }, `Photo approved: order ${item.orderNumber} waits in Prep.`)
             }
           >
             Approve photo
