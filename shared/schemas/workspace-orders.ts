@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { ITEM_STAGES, ORDER_STATUSES } from '../orders/stages.ts';
-import { burnLookSchema, orderViewSchema, placementSchema } from './checkout.ts';
+import { burnLookSchema, inscriptionSchema, orderViewSchema, placementSchema } from './checkout.ts';
 import { buyerPhotoSchema } from './photos.ts';
 import { prepSettingsSchema, prepVersionSchema } from './prep.ts';
 
@@ -67,6 +67,8 @@ export const reviewItemSchema = z.object({
   verdict: z.enum(['good', 'fair', 'too-low']),
   lowResolutionConfirmed: z.boolean(),
   placement: placementSchema,
+  /** The buyer's lettering, reviewed with the photo (it burns under it). */
+  inscription: inscriptionSchema.nullable(),
   photo: buyerPhotoSchema.extend({ originalUrl: z.string() }),
   replacements: z.number().int(),
 });

@@ -1,7 +1,7 @@
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { seedDemo } from '#server/db/seed.ts';
-import { screenshotDir, signInOnPage, useBrowser } from '../support/browser.ts';
+import { screenshotDir, seriousA11yViolations, signInOnPage, useBrowser } from '../support/browser.ts';
 
 describe('client shell in Chromium', () => {
   const b = useBrowser();
@@ -84,6 +84,18 @@ describe('client shell in Chromium', () => {
     await signInOnPage(page, b.baseUrl, 'maren@harbour-light.test', 'etch-demo-2026', /\/studio\/harbour-light/);
     await titled('/studio/harbour-light/team', 'Team · Harbour Light Engraving workspace');
     await titled('/studio/harbour-light/catalog/recipes', 'Recipes · Harbour Light Engraving workspace');
+    await page.close();
+  });
+
+  it('has no serious accessibility problems on the workspace pages (axe-core)', async () => {
+    const { page } = await b.newPage({ bypassCSP: true });
+    await signInOnPage(page, b.baseUrl, 'maren@harbour-light.test', 'etch-demo-2026', /\/studio\/harbour-light/);
+    const paths = ['', '/orders', '/review', '/prep', '/production', '/catalog/blanks', '/catalog/materials', '/catalog/recipes'];
+    for (const path of [...paths, '/team', '/settings', '/audit']) {
+      await page.goto(`${b.baseUrl}/studio/harbour-light${path}`);
+      await page.waitForLoadState('networkidle');
+      expect(await seriousA11yViolations(page), path || 'overview').toEqual([]);
+    }
     await page.close();
   });
 });

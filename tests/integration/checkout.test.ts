@@ -8,7 +8,7 @@ import { TENANT_FILTER } from '#server/db/tenant.ts';
 import { Blank, BlankSize } from '#server/features/catalog/catalog.entity.ts';
 import { OutboxEmail } from '#server/features/outbox/outbox-email.entity.ts';
 import { BuyerPhoto } from '#server/features/photos/buyer-photo.entity.ts';
-import { Order } from '#server/features/orders/order.entity.ts';
+import { Order, OrderEvent } from '#server/features/orders/order.entity.ts';
 import { ShippingRate } from '#server/features/shipping/shipping-rate.entity.ts';
 import { Studio } from '#server/features/studios/studio.entity.ts';
 import { eventually } from '../support/fakes.ts';
@@ -215,6 +215,8 @@ describe('checkout and payment', () => {
     expect(held).toMatchObject({ status: 'held', heldForOrder: order.id });
     // Sent in the studio's name, answered to the studio's contact address.
     expect(held).toMatchObject({ fromName: 'Harbour Light Engraving', replyTo: 'hello@harbour-light.test' });
+    expect(held.text).toContain('Delivery: Tracked post, 3–5 working days, $8.95');
+    expect(held.text).toContain('Questions? Write to hello@harbour-light.test');
     // The link in it is the one the pay page returns to: the same key, built once at checkout.
     const link = /https?:\/\/\S+\/orders\/\S+/.exec(held.text)![0];
     const session = await t.payments.stripe.checkout.sessions.retrieve(order.checkoutSessionId!);
@@ -352,6 +354,20 @@ describe('checkout and payment', () => {
       .get(new URL(session.success_url!).pathname.replace('/s/', '/api/storefront/') + new URL(session.success_url!).search)
       .expect(200);
     expect(page.body).toMatchObject({ status: 'awaiting_payment', total: '$57.95', delivery: { label: 'Tracked post, 3–5 working days' } });
+    // The buyer reads the steps that concern them, in the studio's words: no staff names, no
+    // internal work such as saved prep versions.
+    const em = scoped();
+    const order = await em.findOneOrFail(Order, { id: res.body.orderId });
+    em.create(OrderEvent, { studio, order, type: 'photo_approved', actor: 'Tobias Wren', text: 'Photo approved by Tobias Wren.' });
+    em.create(OrderEvent, { studio, order, type: 'prep_saved', actor: 'Tobias Wren', text: 'Prep version 1 saved by Tobias Wren.' });
+    await em.flush();
+    const again = await request(t.app)
+      .get(new URL(session.success_url!).pathname.replace('/s/', '/api/storefront/') + new URL(session.success_url!).search)
+      .expect(200);
+    expect(again.body.events.map((e: { text: string }) => e.text)).toEqual([
+      'Order placed.',
+      'Your photo was checked: it will engrave well.',
+    ]);
   });
 
   it('keeps what was ordered when the catalog changes afterwards', async () => {

@@ -243,7 +243,7 @@ describe('production and shipping', () => {
       expect.arrayContaining([expect.stringMatching(/^Order \d+ has shipped$/), expect.stringMatching(/^Order \d+: picked up$/)]),
     );
     expect(mails.find((m) => m.subject.endsWith('has shipped'))!.text).toContain('Tracking number: PW 4471 0923');
-  });
+  }, 90_000); // Two full renders, the 80-megapixel master among them, beside the rest of the suite.
 
   it('burns a round slate coaster inside its circle: nothing fires outside it in the engrave file, and the master is clear there', async () => {
     const em = t.orm.em.fork();
@@ -317,6 +317,12 @@ describe('production and shipping', () => {
       for (let x = 0; x < mw; x++)
         if ((x + 0.5 - mw / 2) ** 2 + (y + 0.5 - mh / 2) ** 2 > (mw / 2) ** 2 && master.bytes[(y * mw + x) * 2 + 1]! > 0) opaqueOutside++;
     expect(opaqueOutside).toBe(0);
+
+    // A pickup order, its only piece engraved: the buyer is told it is ready, and where.
+    await dev.post(`${fern}/items/${itemId}/burned`).expect(200, { stage: 'burned' });
+    const ready = await t.orm.em.fork().findOneOrFail(OutboxEmail, { to: 'rory@buyers.test', subject: { $like: '%ready to collect' } });
+    expect(ready.text).toContain('Where and when: At the stone room.');
+    expect(ready.fromName).toBe('Fernhill Stoneworks');
   });
 
   it('says why a burn is not estimated, in the workspace’s own words for the speed unit', () => {

@@ -52,7 +52,13 @@ describe('photo review', () => {
     const queue = (await staff.get(`${work}/review-queue`).expect(200)).body.items;
     expect(queue.map((i: { orderId: string }) => i.orderId)).toEqual([first, second]);
     // By hand: 1500 × 2100 px on a 4.5 × 6.5 in area is min(333, 323) = 323 pixels per inch, good.
-    expect(queue[0]).toMatchObject({ blankName: 'Black-backed glass portrait', sizeLabel: '5 × 7 in', effectivePpi: 323, verdict: 'good' });
+    expect(queue[0]).toMatchObject({
+      blankName: 'Black-backed glass portrait',
+      sizeLabel: '5 × 7 in',
+      effectivePpi: 323,
+      verdict: 'good',
+      inscription: null,
+    });
     await staff.get(queue[0].photo.originalUrl).expect(200).expect('content-type', 'image/jpeg');
     await staff.post(`${work}/items/${queue[0].itemId}/approve-photo`).expect(200, { itemId: queue[0].itemId, stage: 'prep' });
     const again = await staff.post(`${work}/items/${queue[0].itemId}/approve-photo`).expect(409);

@@ -212,6 +212,10 @@ export async function placeOrder(
           lines: mailLines(lines, studio.currency),
           total: formatMoney(order.totalMinor, order.currency),
           url: orderUrl,
+          delivery: shippingRate
+            ? `${shippingRate.name}, ${formatMoney(shippingRate.priceMinor, studio.currency)}`
+            : 'Pickup at the studio',
+          contact: studio.contactEmail,
         }),
       },
       order.id,

@@ -26,11 +26,16 @@ export function orderReceivedMail(input: {
   lines: Line[];
   total: string;
   url: string;
+  /** How it reaches the buyer: "Tracked post, 3–5 working days" or "Pickup at the studio". */
+  delivery: string;
+  /** The studio's own address for questions, when it has one. */
+  contact: string | null;
 }) {
+  const ask = input.contact ? `Questions? Write to ${input.contact} (or just answer this e-mail).` : 'Questions? Just answer this e-mail.';
   return {
     subject: `Your order ${input.number} at ${input.studioName}`,
-    text: `Hello ${input.buyerName},\n\nThank you: ${input.studioName} has your order ${input.number} and your payment of ${input.total}.\n\n${list(input.lines)}\n\nWe check every photo before engraving and will write if we need anything from you. Follow your order here:\n${input.url}\n\nKeep this link to yourself: it opens your order.`,
-    html: `<p>Hello ${escapeHtml(input.buyerName)},</p><p>Thank you: ${escapeHtml(input.studioName)} has your order <strong>${input.number}</strong> and your payment of ${escapeHtml(input.total)}.</p>${htmlList(input.lines)}<p>We check every photo before engraving and will write if we need anything from you.</p><p><a href="${escapeHtml(input.url)}">Follow your order</a></p><p>Keep this link to yourself: it opens your order.</p>`,
+    text: `Hello ${input.buyerName},\n\nThank you: ${input.studioName} has your order ${input.number} and your payment of ${input.total}.\n\n${list(input.lines)}\nDelivery: ${input.delivery}\n\nWe check every photo before engraving and will write if we need anything from you. Follow your order here:\n${input.url}\n\nKeep this link to yourself: it opens your order.\n\n${ask}`,
+    html: `<p>Hello ${escapeHtml(input.buyerName)},</p><p>Thank you: ${escapeHtml(input.studioName)} has your order <strong>${input.number}</strong> and your payment of ${escapeHtml(input.total)}.</p>${htmlList(input.lines)}<p>Delivery: ${escapeHtml(input.delivery)}</p><p>We check every photo before engraving and will write if we need anything from you.</p><p><a href="${escapeHtml(input.url)}">Follow your order</a></p><p>Keep this link to yourself: it opens your order.</p><p>${escapeHtml(ask)}</p>`,
   };
 }
 
@@ -116,6 +121,16 @@ export function handedOverMail(input: {
     subject: input.method === 'ship' ? `Order ${input.number} has shipped` : `Order ${input.number}: picked up`,
     text: `Hello ${input.buyerName},\n\nYour ${input.what.join(', ')} from ${input.studioName} ${how}.\n\n${rest}\n\nYour order page (the link in your first e-mail) shows this too.`,
     html: `<p>Hello ${escapeHtml(input.buyerName)},</p><p>Your ${escapeHtml(input.what.join(', '))} from ${escapeHtml(input.studioName)} ${escapeHtml(how)}.</p><p>${escapeHtml(rest)}</p><p>Your order page (the link in your first e-mail) shows this too.</p>`,
+  };
+}
+
+/** To a buyer collecting in person, once every piece of the order is engraved: where and when. */
+export function readyToCollectMail(input: { studioName: string; number: number; buyerName: string; pickupNote: string }) {
+  const where = input.pickupNote || 'Ask the studio when suits you.';
+  return {
+    subject: `Order ${input.number} is ready to collect`,
+    text: `Hello ${input.buyerName},\n\nYour order ${input.number} from ${input.studioName} is engraved and ready for you to collect.\n\nWhere and when: ${where}\n\nPlease bring your order number.`,
+    html: `<p>Hello ${escapeHtml(input.buyerName)},</p><p>Your order <strong>${input.number}</strong> from ${escapeHtml(input.studioName)} is engraved and ready for you to collect.</p><p>Where and when: ${escapeHtml(where)}</p><p>Please bring your order number.</p>`,
   };
 }
 

@@ -23,7 +23,6 @@ export function lookOf(item: OrderItem): BurnLook {
   };
 }
 
-/** An order as its buyer sees it on the private order page. */
 /** Where staff open an order in the workspace (the job sheet's QR code and audit lines point here). */
 export const workspaceOrderPath = workspacePaths.order;
 
@@ -75,4 +74,49 @@ export function orderView(order: Order): OrderView {
       .sort((a, b) => a.createdAt.getTime() - b.createdAt.getTime())
       .map((e) => ({ at: e.createdAt.toISOString(), text: e.text })),
   };
+}
+
+/**
+ * What the buyer reads of an order's timeline: the steps that concern them, in the studio's voice
+ * and without the names of its staff. Internal work (saved prep versions, renders, batches) is
+ * left out; the workspace shows the whole timeline.
+ */
+const BUYER_WORDS: Record<string, string | null> = {
+  placed: 'Order placed.',
+  paid: 'Payment received.',
+  payment_failed: 'A payment attempt did not go through.',
+  expired: 'The time to pay ran out; nothing was charged.',
+  sold_out: 'A piece sold out while you paid: your payment was refunded in full.',
+  late_payment_refunded: 'Your payment arrived after the order had lapsed: it was refunded in full.',
+  photo_approved: 'Your photo was checked: it will engrave well.',
+  new_photo_asked: 'The studio asked you for another photo.',
+  new_photo_received: 'Your new photo arrived; the studio is checking it.',
+  proof_sent: 'A proof was sent to you.',
+  proof_approved: 'You approved the proof.',
+  changes_requested: 'You asked for changes to the proof.',
+  approved: 'Approved for engraving.',
+  prep_reopened: 'Being prepared again.',
+  in_production: 'Being engraved.',
+  out_of_batch: null,
+  burned: 'Engraved.',
+  shipped: 'On its way to you.',
+  picked_up: 'Collected from the studio.',
+  fulfilled: 'Complete: everything has left the studio.',
+  refunded: 'Money refunded to you.',
+  cancelled: 'Order cancelled.',
+  prep_saved: null,
+  rendered: null,
+};
+
+export function buyerOrderView(order: Order): OrderView {
+  const view = orderView(order);
+  const events = order.events
+    .getItems()
+    .sort((a, b) => a.createdAt.getTime() - b.createdAt.getTime())
+    .flatMap((e) => {
+      const words = BUYER_WORDS[e.type];
+      // A step with no buyer's words yet is left out rather than shown in staff words.
+      return words ? [{ at: e.createdAt.toISOString(), text: words }] : [];
+    });
+  return { ...view, events };
 }

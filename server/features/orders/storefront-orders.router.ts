@@ -8,7 +8,7 @@ import { storefrontStudio } from '#server/features/studios/studios.service.ts';
 import { hashToken, isUuid } from '#server/lib/tokens.ts';
 import { optionalUser } from '#server/middleware/auth-guards.ts';
 import { Order } from './order.entity.ts';
-import { orderView } from './order.views.ts';
+import { buyerOrderView } from './order.views.ts';
 
 /** A signed-in buyer whose confirmed address placed the order opens it without the link's key. */
 export const ownsOrder = (user: User | undefined, order: Order) => Boolean(user?.emailVerifiedAt && user.email === order.buyerEmail);
@@ -34,7 +34,7 @@ export function storefrontOrdersRouter({ orm, auth }: { orm: Orm; auth: Auth }):
     const byKey = Boolean(order && key && timingSafeEqual(expected, given));
     if (!order || !(byKey || ownsOrder(req.user, order)))
       throw new AppError('NOT_FOUND', 'There is no order at this link. Check that you used the whole link from the e-mail.');
-    res.set('cache-control', 'no-store').json(orderView(order));
+    res.set('cache-control', 'no-store').json(buyerOrderView(order));
   });
   return router;
 }

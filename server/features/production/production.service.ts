@@ -26,6 +26,8 @@ import { ProductionBatch, Render } from './production.entity.ts';
 import { burnSecondsFor, renderKeys } from './render.service.ts';
 import { recordAudit } from '../audit/audit.service.ts';
 import { workspaceOrderPath } from '../orders/order.views.ts';
+import { readyToCollectMail } from '#server/features/orders/order-mail.ts';
+import { fromStudio, queueEmail } from '#server/features/outbox/outbox.service.ts';
 
 /** Items of one material and one machine recipe burn in one batch. */
 const groupKey = (item: OrderItem) => `${item.snapshot.blank.material.id}:${item.snapshot.recipe?.id ?? 'none'}`;
@@ -296,6 +298,16 @@ export async function markBurned(em: EntityManager, studio: Studio, itemId: stri
   if (item.stage === 'in_production' && render?.status !== 'done')
     throw new AppError('CONFLICT', 'Render the files before marking the item burned.');
   moveItem(em, item, 'markBurned', displayName(user), `Burned; marked by ${displayName(user)}.`, 'burned');
+  // A pickup order whose last piece is now engraved: the buyer hears it is ready, and where.
+  const order = item.order;
+  await em.populate(order, ['items']);
+  const rest = order.items.getItems().filter((other) => other.id !== item.id && other.stage !== 'cancelled');
+  if (order.deliveryMethod === 'pickup' && rest.every((other) => other.stage === 'burned' || other.stage === 'picked_up'))
+    queueEmail(em, {
+      to: order.buyerEmail,
+      ...fromStudio(studio),
+      ...readyToCollectMail({ studioName: studio.name, number: order.number, buyerName: order.buyerName, pickupNote: studio.pickupNote }),
+    });
   await em.flush();
   return item;
 }

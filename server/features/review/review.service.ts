@@ -42,6 +42,7 @@ export async function reviewQueue(em: EntityManager, studio: Studio): Promise<Re
       verdict: verdictFor(ppi),
       lowResolutionConfirmed: item.lowResolutionConfirmed,
       placement: item.placement,
+      inscription: item.inscription,
       photo: { ...buyerPhotoView(studio, item.photo), originalUrl: assetPaths.buyerPhotoOriginal(studio.slug, item.photo.id) },
       replacements: item.replacements,
     };

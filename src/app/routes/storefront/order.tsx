@@ -1,4 +1,5 @@
 import { handoverLine } from '#src/features/orders/handover-line.ts';
+import { trackingUrl } from '#shared/orders/tracking.ts';
 import { useEffect } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { ITEM_STAGE_LABELS, ORDER_STATUS_LABELS } from '#shared/orders/stages.ts';
@@ -85,6 +86,16 @@ export function OrderPage() {
                           {ITEM_STAGE_LABELS[item.stage]}
                         </p>
                         {item.handover && <p className="mt-1 text-sm">{handoverLine(item.handover)}</p>}
+                        {item.handover && trackingUrl(item.handover.carrier, item.handover.trackingNumber) && (
+                          <a
+                            href={trackingUrl(item.handover.carrier, item.handover.trackingNumber)!}
+                            target="_blank"
+                            rel="noreferrer"
+                            className="mt-1 inline-block self-start py-1 text-sm font-semibold underline"
+                          >
+                            Follow the parcel with {item.handover.carrier}
+                          </a>
+                        )}
                         {item.stage === 'needs_new_photo' && (
                           <p className="mt-1 max-w-sm text-sm font-semibold text-rust-600">
                             The studio needs a new photo for this piece: we sent you an e-mail with the reason and a link to send it.

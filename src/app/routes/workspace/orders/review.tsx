@@ -161,6 +161,11 @@ function ReviewDetail({ slug, units, item, last }: { slug: string; units: Length
         {item.lowResolutionConfirmed && (
           <p className="mt-3 text-sm font-semibold text-rust-600">The buyer confirmed ordering at this size despite the low resolution.</p>
         )}
+        {item.inscription && (
+          <p className="mt-3 text-sm">
+            <span className="font-semibold">Words under the photo: </span>“{item.inscription.lines.join(' / ')}”
+          </p>
+        )}
         {item.replacements > 0 && <p className="mt-3 text-sm">This is the buyer’s replacement photo number {item.replacements}.</p>}
         <div className="mt-5 flex gap-2">
           <Button
