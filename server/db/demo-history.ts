@@ -7,7 +7,8 @@ import type { Storage } from '#server/adapters/storage.ts';
 import { Blank, Recipe } from '#server/features/catalog/catalog.entity.ts';
 import { snapshotForOrder } from '#server/features/catalog/catalog.service.ts';
 import { Order, OrderEvent, OrderItem } from '#server/features/orders/order.entity.ts';
-import { BuyerPhoto } from '#server/features/photos/buyer-photo.entity.ts';
+import type { BuyerPhoto } from '#server/features/photos/buyer-photo.entity.ts';
+import { storeBuyerPhoto } from '#server/features/photos/photos.service.ts';
 import { ShippingRate } from '#server/features/shipping/shipping-rate.entity.ts';
 import { Studio } from '#server/features/studios/studio.entity.ts';
 import { makePhotoDerivatives } from '#server/imaging/photo-derivatives.ts';
@@ -78,28 +79,7 @@ const pictureSvg = (body: string) =>
 
 async function storeDemoPhoto(em: EntityManager, storage: Storage, studio: Studio, svg: string): Promise<BuyerPhoto> {
   const bytes = await sharp(pictureSvg(svg)).jpeg({ quality: 88 }).toBuffer();
-  const made = await makePhotoDerivatives(bytes);
-  const photo = em.create(BuyerPhoto, {
-    studio,
-    originalKey: '',
-    previewKey: '',
-    thumbKey: '',
-    format: made.facts.format,
-    width: made.facts.width,
-    height: made.facts.height,
-    previewWidth: made.preview.width,
-    previewHeight: made.preview.height,
-    byteSize: bytes.length,
-    quality: made.quality,
-  });
-  const base = `studios/${studio.id}/buyer-photos/${photo.id}`;
-  Object.assign(photo, { originalKey: `${base}/original`, previewKey: `${base}/preview.webp`, thumbKey: `${base}/thumb.webp` });
-  await Promise.all([
-    storage.put(photo.originalKey, bytes, 'image/jpeg'),
-    storage.put(photo.previewKey, made.preview.data, 'image/webp'),
-    storage.put(photo.thumbKey, made.thumb, 'image/webp'),
-  ]);
-  return photo;
+  return storeBuyerPhoto(em, storage, studio, bytes, await makePhotoDerivatives(bytes));
 }
 
 /** Where an order of this age stands: work done long ago, work in hand this week. */

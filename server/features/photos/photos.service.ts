@@ -4,7 +4,7 @@ import { AppError } from '#shared/errors.ts';
 import type { BuyerPhotoView } from '#shared/schemas/photos.ts';
 import { MAX_IMAGE_UPLOAD_BYTES, type ImageUploadRequest, type UploadTicket } from '#shared/schemas/uploads.ts';
 import type { Storage } from '#server/adapters/storage.ts';
-import { makePhotoDerivatives } from '#server/imaging/photo-derivatives.ts';
+import { makePhotoDerivatives, type PhotoDerivatives } from '#server/imaging/photo-derivatives.ts';
 import { isUuid } from '#server/lib/tokens.ts';
 import type { Studio } from '../studios/studio.entity.ts';
 import { issueUpload, readUpload } from '../uploads/uploads.service.ts';
@@ -30,6 +30,41 @@ export async function acceptBuyerPhoto(em: EntityManager, storage: Storage, stud
     await storage.remove(key).catch(() => undefined);
     throw error;
   }
+  const photo = await storeBuyerPhoto(em, storage, studio, bytes, made);
+  // The upload has been copied into place; only now is it let go.
+  await storage.remove(key).catch(() => undefined);
+  return photo;
+}
+
+export async function findBuyerPhoto(em: EntityManager, studio: Studio, id: string): Promise<BuyerPhoto> {
+  const photo = isUuid(id) ? await em.findOne(BuyerPhoto, { id, studio }) : null;
+  if (!photo) throw new AppError('NOT_FOUND', 'There is no such photo. Please upload it again.');
+  return photo;
+}
+
+export const buyerPhotoView = (studio: Studio, p: BuyerPhoto): BuyerPhotoView => ({
+  id: p.id,
+  width: p.width,
+  height: p.height,
+  previewUrl: assetPaths.buyerPhotoPreview(studio.slug, p.id),
+  previewWidth: p.previewWidth,
+  previewHeight: p.previewHeight,
+  thumbUrl: assetPaths.buyerPhotoThumb(studio.slug, p.id),
+  quality: p.quality,
+});
+
+/**
+ * A photo's bytes and their derivatives stored under the studio, with its row (flushed). Nothing
+ * is half-stored: on any failure the row and the copies go. Accepting an upload and the demo
+ * history both store photos through this.
+ */
+export async function storeBuyerPhoto(
+  em: EntityManager,
+  storage: Storage,
+  studio: Studio,
+  bytes: Buffer,
+  made: PhotoDerivatives,
+): Promise<BuyerPhoto> {
   const photo = em.create(BuyerPhoto, {
     studio,
     originalKey: '',
@@ -59,24 +94,5 @@ export async function acceptBuyerPhoto(em: EntityManager, storage: Storage, stud
     await Promise.all(stored.map((k) => storage.remove(k).catch(() => undefined)));
     throw error;
   }
-  // The upload has been copied into place; only now is it let go.
-  await storage.remove(key).catch(() => undefined);
   return photo;
 }
-
-export async function findBuyerPhoto(em: EntityManager, studio: Studio, id: string): Promise<BuyerPhoto> {
-  const photo = isUuid(id) ? await em.findOne(BuyerPhoto, { id, studio }) : null;
-  if (!photo) throw new AppError('NOT_FOUND', 'There is no such photo. Please upload it again.');
-  return photo;
-}
-
-export const buyerPhotoView = (studio: Studio, p: BuyerPhoto): BuyerPhotoView => ({
-  id: p.id,
-  width: p.width,
-  height: p.height,
-  previewUrl: assetPaths.buyerPhotoPreview(studio.slug, p.id),
-  previewWidth: p.previewWidth,
-  previewHeight: p.previewHeight,
-  thumbUrl: assetPaths.buyerPhotoThumb(studio.slug, p.id),
-  quality: p.quality,
-});
